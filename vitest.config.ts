@@ -1,0 +1,39 @@
+import { defineConfig } from "vitest/config";
+import path from "node:path";
+
+const alias = { "@": path.resolve(__dirname), "server-only": path.resolve(__dirname, "tests/server-only-stub.ts") };
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: "unit", include: ["lib/**/*.test.ts", "workers/**/*.test.ts", "scripts/**/*.test.ts"], environment: "node", testTimeout: 30_000 },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.test.ts"],
+          environment: "node",
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+          globalSetup: ["tests/integration/global-setup.ts"],
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "e2e",
+          include: ["tests/e2e/**/*.test.ts"],
+          environment: "node",
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
