@@ -1,0 +1,103 @@
+import { describe, expect, it } from "vitest";
+import { parseName, tokenise } from "./names";
+
+// Names invented in the style of the trade (common practice of drum sample libraries, no published source):
+// separators, camelCase, abbreviations, dynamics marks, take numbers, folder structures.
+type Row = [
+  path: string,
+  expected: {
+    family?: string | null;
+    articulation?: string | null;
+    velocity?: [scheme: string, rank: number] | null;
+    rr?: number | null;
+    mic?: string | null;
+    stem?: string[];
+  },
+];
+
+const TABLE: Row[] = [
+  ["Kick_In_v3_rr2.wav", { family: "kick", mic: "inside", velocity: ["v", 3], rr: 2 }],
+  ["BD_Out_ff_03.wav", { family: "kick", mic: "outside", velocity: ["dynamic", 7], rr: 3 }],
+  ["KD22_Sub_V10_RR1.wav", { family: "kick", mic: "sub", velocity: ["v", 10], rr: 1, stem: ["kick", "22in"] }],
+  ["BassDrum-Hard-02.wav", { family: "kick", velocity: ["word", 3], rr: 2 }],
+  ["Kick 01.wav", { family: "kick", rr: 1, velocity: null }],
+  ["Snare_14x6.5_Brass_Center_v3_rr2.wav", { family: "snare", articulation: "centre", velocity: ["v", 3], rr: 2, stem: ["snare", "14x6.5", "brass"] }],
+  ["SnareTop_RimShot_mf_1.wav", { family: "snare", articulation: "rim-shot", mic: "top", velocity: ["dynamic", 5], rr: 1 }],
+  ["SN_Bottom_Ctr_pp_4.wav", { family: "snare", articulation: "centre", mic: "bottom", velocity: ["dynamic", 2], rr: 4 }],
+  ["sd-xstick-soft-take3.wav", { family: "snare", articulation: "cross-stick", velocity: ["word", 1], rr: 3 }],
+  ["Snare Side Stick V2 RR4.wav", { family: "snare", articulation: "cross-stick", velocity: ["v", 2], rr: 4 }],
+  ["Snare_Rim_Click_05.wav", { family: "snare", articulation: "rim-click", rr: 5 }],
+  ["Snare_HalfEdge_v4_rr1.wav", { family: "snare", articulation: "half-edge", velocity: ["v", 4], rr: 1 }],
+  ["Snare_Edge_Hard_Alt.wav", { family: "snare", articulation: "edge", velocity: ["word", 3], rr: 2 }],
+  ["Snr_Flam_f_2.wav", { family: "snare", articulation: "flam", velocity: ["dynamic", 6], rr: 2 }],
+  ["Snare_Roll_Buzz_01.wav", { family: "snare", articulation: "roll", rr: 1 }],
+  ["Snare_Center_3_2.wav", { family: "snare", articulation: "centre", velocity: ["number", 3], rr: 2 }],
+  ["Tom1_Center_v2_rr3.wav", { family: "tom", articulation: "centre", velocity: ["v", 2], rr: 3, stem: ["tom", "1"] }],
+  ["RackTom2_Rimshot_Vel5_Take1.wav", { family: "tom", articulation: "rim-shot", velocity: ["v", 5], rr: 1, stem: ["rack", "tom", "2"] }],
+  ["FT16_Centre_mp_02.wav", { family: "tom", articulation: "centre", velocity: ["dynamic", 4], rr: 2, stem: ["floor", "tom", "16in"] }],
+  ["Floor Tom 16 - OH - v1 - rr1.wav", { family: "tom", mic: "overhead", velocity: ["v", 1], rr: 1, stem: ["floor", "tom", "16in"] }],
+  ["Hi Tom Edge 03.wav", { family: "tom", articulation: "edge", rr: 3, stem: ["high", "tom"] }],
+  ["HH_Closed_Tip_v1_rr1.wav", { family: "hi-hat", articulation: "closed", velocity: ["v", 1], rr: 1 }],
+  ["HiHat_Open_f_02.wav", { family: "hi-hat", articulation: "open", velocity: ["dynamic", 6], rr: 2 }],
+  ["Hat-HalfOpen-Medium-1.wav", { family: "hi-hat", articulation: "half-open", velocity: ["word", 2], rr: 1 }],
+  ["HH_Quarter_Open_v2_rr2.wav", { family: "hi-hat", articulation: "quarter-open", velocity: ["v", 2], rr: 2 }],
+  ["HHC_Shank_ff_3.wav", { family: "hi-hat", articulation: "shank", velocity: ["dynamic", 7], rr: 3 }],
+  ["HH_Pedal_Chick_03.wav", { family: "hi-hat", articulation: "pedal", rr: 3 }],
+  ["Hi-Hat Foot Splash 02.wav", { family: "hi-hat", articulation: "foot-splash", rr: 2 }],
+  ["HH_Tight_ppp_1.wav", { family: "hi-hat", articulation: "closed", velocity: ["dynamic", 1], rr: 1 }],
+  ["Crash18_Edge_v5_rr2.wav", { family: "crash", articulation: "edge", velocity: ["v", 5], rr: 2, stem: ["crash", "18in"] }],
+  ["CR2_Choke_Hard_01.wav", { family: "crash", articulation: "choke", velocity: ["word", 3], rr: 1, stem: ["crash", "2"] }],
+  ["Crash 16in Bell mf 2.wav", { family: "crash", articulation: "bell", velocity: ["dynamic", 5], rr: 2 }],
+  ["Ride_Bow_Tip_v3_rr4.wav", { family: "ride", articulation: "bow", velocity: ["v", 3], rr: 4 }],
+  ["RD_Bell_Cup_ff_1.wav", { family: "ride", articulation: "bell", velocity: ["dynamic", 7], rr: 1 }],
+  ["Ride 22 Crash 03.wav", { family: "ride", articulation: "crash-hit", rr: 3, stem: ["ride", "22in"] }],
+  ["China_Grab_v2.wav", { family: "china", articulation: "choke", velocity: ["v", 2] }],
+  ["CH18_Hit_f_1.wav", { family: "china", articulation: "crash-hit", velocity: ["dynamic", 6], rr: 1 }],
+  ["Spl10_Choke_02.wav", { family: "splash", articulation: "choke", rr: 2, stem: ["splash", "10in"] }],
+  ["Cowbell_Open_Hard_02.wav", { family: "cowbell", articulation: "open-tone", velocity: ["word", 3], rr: 2 }],
+  ["CB_Mute_v1_rr1.wav", { family: "cowbell", articulation: "mute", velocity: ["v", 1], rr: 1 }],
+  ["Conga_Slap_03.wav", { family: "hand-drum", articulation: "slap", rr: 3 }],
+  ["Stack_Closed_v2_rr1.wav", { family: "stack", articulation: "closed", velocity: ["v", 2], rr: 1 }],
+  ["Tambourine_Hit_04.wav", { family: "shaker", articulation: "hit", rr: 4 }],
+  // information in folders
+  ["Kit A/Snare 14x6.5 Brass/Center/Velocity 3/RR2.wav", { family: "snare", articulation: "centre", velocity: ["v", 3], rr: 2, stem: ["kit", "snare", "14x6.5", "brass"].filter((w) => w !== "kit") }],
+  ["Drums/Toms/Tom 2/Rimshot/v4_03.wav", { family: "tom", articulation: "rim-shot", velocity: ["v", 4], rr: 3, stem: ["tom", "2"] }],
+  ["Close Mics/Kick/Kick_Hard_1.wav", { family: "kick", mic: "close", velocity: ["word", 3], rr: 1 }],
+  ["Rooms/HiHat/Closed/hh_cl_mf_02.wav", { family: "hi-hat", articulation: "closed", mic: "room", velocity: ["dynamic", 5], rr: 2 }],
+  ["Overheads/Ride/Ride_Bell_02.wav", { family: "ride", articulation: "bell", mic: "overhead", rr: 2 }],
+  ["Cymbals/Crash 18/soft/take 1.wav", { family: "crash", velocity: ["word", 1], rr: 1, stem: ["crash", "18in"] }],
+  // names that say nothing
+  ["Audio 0012.wav", { family: null, articulation: null, rr: 12 }],
+];
+
+describe("parseName over a table of trade-style names (common practice, no published source)", () => {
+  for (const [path, exp] of TABLE) {
+    it(path, () => {
+      const n = parseName(path);
+      if ("family" in exp) expect(n.family).toBe(exp.family);
+      if ("articulation" in exp) expect(n.articulation).toBe(exp.articulation);
+      if ("velocity" in exp) {
+        if (exp.velocity === null) expect(n.velocity).toBeNull();
+        else expect([n.velocity?.scheme, n.velocity?.rank]).toEqual(exp.velocity);
+      }
+      if ("rr" in exp) expect(n.roundRobin).toBe(exp.rr);
+      if ("mic" in exp) expect(n.mic).toBe(exp.mic);
+      if (exp.stem) expect(n.stem).toEqual(exp.stem);
+    });
+  }
+  it("has at least 40 rows", () => expect(TABLE.length).toBeGreaterThanOrEqual(40));
+});
+
+describe("tokenise", () => {
+  it("splits separators, camelCase, acronyms and digit boundaries; keeps sizes", () => {
+    expect(tokenise("SnareTop_RimShot-v3.rr02")).toEqual(["snare", "top", "rim", "shot", "v", "3", "rr", "02"]);
+    expect(tokenise("HHClosed")).toEqual(["hh", "closed"]);
+    expect(tokenise('Snare 14x6.5 and 16" crash')).toEqual(["snare", "14x6.5", "and", "16in", "crash"]);
+    expect(tokenise("HH 1/4 open")).toEqual(["hh", "quarter", "open"]);
+  });
+  it("file family wins over folder family; folder used when the file says nothing", () => {
+    expect(parseName("Snares/Kick_01.wav").family).toBe("kick");
+    expect(parseName("Snares/Brass/01.wav").family).toBe("snare");
+    expect(parseName("Snares/Brass/01.wav").familyFrom).toBe("folder");
+  });
+});
