@@ -1,0 +1,89 @@
+// Test helpers of lib/catalog: a seeded random generator and a Measurement factory.
+// Not used by the product code.
+
+import type { Measurement, SpectralSummary } from "../audio/types";
+
+/** mulberry32: small seeded generator for repeatable test data. */
+export function rng(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+export function spectral(p: Partial<SpectralSummary> = {}): SpectralSummary {
+  return {
+    centroidHz: 1000,
+    spreadHz: 1500,
+    rolloffHz: 5000,
+    flatness: 0.2,
+    slope: 0,
+    zcrPerSec: 2000,
+    mfcc: new Array(13).fill(0),
+    barkLoudness: new Array(24).fill(0),
+    ...p,
+  };
+}
+
+export interface DrumShape {
+  decaySec: number;
+  strikeCentroidHz: number;
+  bodyCentroidHz: number;
+  strikeFlatness: number;
+  bodyFlatness: number;
+  pitchHz: number | null;
+  attackMs?: number;
+  crestDb?: number;
+  rolloffHz?: number;
+  spreadHz?: number;
+}
+
+/** A Measurement-shaped fixture; `shape` sets the features the classifier reads, `over` anything else. */
+export function measurement(shape: Partial<DrumShape> = {}, over: Partial<Measurement> = {}): Measurement {
+  const s: DrumShape = {
+    decaySec: 0.5, strikeCentroidHz: 1500, bodyCentroidHz: 800, strikeFlatness: 0.2, bodyFlatness: 0.1, pitchHz: 150, ...shape,
+  };
+  const roll = s.rolloffHz ?? Math.min(20000, s.bodyCentroidHz * 4);
+  return {
+    measureVersion: 1,
+    format: { formatTag: 1, encoding: "pcm", bitsPerSample: 24, validBits: 24, channels: 2, sampleRate: 44100, frames: 44100, durationSec: 1 },
+    samplePeakDbfs: -3,
+    truePeakDbtp: -2.8,
+    rmsDbfs: -20,
+    strikeLufs: -18,
+    integratedLufs: -20,
+    crestDb: s.crestDb ?? 17,
+    dcOffset: 0,
+    clippedRuns: 0,
+    clippedSamples: 0,
+    onsetMs: 1,
+    attackMs: s.attackMs ?? 2,
+    edtSec: s.decaySec,
+    t20Sec: s.decaySec * 1.1,
+    tail: "decayed",
+    noiseFloorDbfs: -90,
+    stereoCorrelation: 0.9,
+    pitchHz: s.pitchHz,
+    strike: spectral({
+      centroidHz: s.strikeCentroidHz,
+      flatness: s.strikeFlatness,
+      zcrPerSec: s.strikeCentroidHz * 1.6,
+      rolloffHz: Math.min(20000, s.strikeCentroidHz * 4),
+      spreadHz: s.spreadHz ?? s.strikeCentroidHz,
+    }),
+    body: spectral({
+      centroidHz: s.bodyCentroidHz,
+      flatness: s.bodyFlatness,
+      zcrPerSec: s.bodyCentroidHz * 1.6,
+      rolloffHz: roll,
+      spreadHz: s.spreadHz ?? s.bodyCentroidHz,
+    }),
+    truncated: false,
+    warnings: [],
+    ...over,
+  };
+}
