@@ -1,0 +1,247 @@
+// The data the auditor reads (layouts, kits, the catalogue) and the findings it writes.
+// Plain objects only; the JSON schemas in schema.ts describe the same shapes for import/export.
+
+import type { Articulation, Family } from "../catalog/taxonomy";
+import type { StandInOverrides } from "../catalog/fallback";
+
+export type { Articulation, Family, StandInOverrides };
+
+// ---------------------------------------------------------------- layout
+
+/** What a pad plays: a kit slot and an articulation of the instrument in it. */
+export interface PadTarget {
+  slotId: string;
+  articulation: Articulation;
+}
+
+export interface Pad {
+  id: string;
+  label: string;
+  /** Grid position, 1-based (grid layouts). */
+  row?: number;
+  col?: number;
+  /** Trigger-zone name ("snare head", "snare rim") for zone layouts. */
+  zone?: string;
+  /** MIDI note 0-127. */
+  note: number;
+  /** MIDI channel 1-16. */
+  channel: number;
+  /** null while the pad is not yet aimed at anything (it then stays silent). */
+  target: PadTarget | null;
+}
+
+export type LayoutSurface = { kind: "grid"; rows: number; cols: number } | { kind: "zones" };
+
+/** One zone of the hi-hat pedal's controller range (inclusive, 0-127), aimed at an openness articulation. */
+export interface PedalZone {
+  low: number;
+  high: number;
+  articulation: Articulation;
+}
+
+export interface HiHatPedal {
+  /** Control change number; 4 (Foot Controller) by default. */
+  controller: number;
+  channel: number;
+  /** The kit slot the pedal opens and closes (the hi-hat). */
+  slotId: string;
+  /** Which end of the controller range is the closed pedal (varies by maker: common practice). */
+  closedAt: "low" | "high";
+  zones: PedalZone[];
+  /** Note the pedal sends when closed with the foot ("chick"); plays the slot's 'pedal' articulation. null: none. */
+  chickNote: number | null;
+}
+
+/** A kit slot a layout expects (used to build a default kit when none is given). */
+export interface LayoutSlot {
+  id: string;
+  name: string;
+  family: Family;
+}
+
+export interface Layout {
+  id: string;
+  name: string;
+  surface: LayoutSurface;
+  pads: Pad[];
+  hiHatPedal: HiHatPedal | null;
+  /** The slots the pads aim at, in kit order; optional (inferred from slot ids when absent). */
+  slots?: LayoutSlot[];
+}
+
+// ---------------------------------------------------------------- kit
+
+export interface KitSlot {
+  id: string;
+  name: string;
+  /** The family the slot expects ("Ride" expects ride); the instrument in it may be of another family. */
+  family: Family;
+  /** Catalogue instrument id, or null for an empty slot. */
+  instrumentId: string | null;
+  /** Per requested articulation, the articulation to play instead (kit override of the fallback graph). */
+  standIns?: StandInOverrides;
+}
+
+export interface Kit {
+  id: string;
+  name: string;
+  slots: KitSlot[];
+}
+
+// ---------------------------------------------------------------- catalogue
+
+export interface CatalogueLayer {
+  index: number;
+  velocityLow: number;
+  velocityHigh: number;
+  meanStrikeLufs: number;
+  /** The samples of the layer: its round robins. */
+  sampleIds: string[];
+}
+
+export interface CatalogueArticulation {
+  articulation: Articulation;
+  mic?: string | null;
+  layers: CatalogueLayer[];
+}
+
+export interface CatalogueInstrument {
+  id: string;
+  name: string;
+  family: Family;
+  pitchHz?: number | null;
+  articulations: CatalogueArticulation[];
+}
+
+export type Catalogue = readonly CatalogueInstrument[];
+
+// ---------------------------------------------------------------- findings
+
+export type Outcome = "direct" | "stand-in" | "silent";
+
+export interface LayerFinding {
+  index: number;
+  velocityLow: number;
+  velocityHigh: number;
+  meanStrikeLufs: number;
+  /** Round-robin depth: how many takes the layer holds. */
+  roundRobins: number;
+}
+
+export interface VelocityRange {
+  low: number;
+  high: number;
+}
+
+export interface StandInFinding {
+  path: Articulation[];
+  cost: number;
+  source: "graph" | "override";
+}
+
+/** What one request (a pad, a pedal zone, the chick note) will play. */
+export interface PlayFinding {
+  outcome: Outcome;
+  requested: Articulation | null;
+  plays: Articulation | null;
+  standIn: StandInFinding | null;
+  /** Why nothing plays (silent only). */
+  reason: string | null;
+  slotId: string | null;
+  slotName: string | null;
+  instrumentId: string | null;
+  instrumentName: string | null;
+  /** The family whose graph decided (the instrument's own family). */
+  family: Family | null;
+  /** The microphone whose layers are reported, when the catalogue names one. */
+  mic: string | null;
+  layers: LayerFinding[];
+  /** Velocities 1-127 no layer covers. */
+  velocityGaps: VelocityRange[];
+  /** Fewest round robins over the layers (0 when silent). */
+  minRoundRobins: number;
+  /** Notes for the reader (ignored override, slot holding another family ...). */
+  notes: string[];
+}
+
+export interface PadFinding extends PlayFinding {
+  padId: string;
+  label: string;
+  note: number;
+  channel: number;
+  row: number | null;
+  col: number | null;
+  zone: string | null;
+}
+
+export interface PedalZoneFinding extends PlayFinding {
+  zoneIndex: number;
+  low: number;
+  high: number;
+  /** Whether the openness the zone asks for is recorded (outcome 'direct'). */
+  recorded: boolean;
+}
+
+export interface PedalFinding {
+  controller: number;
+  channel: number;
+  closedAt: "low" | "high";
+  zones: PedalZoneFinding[];
+  /** Controller values 0-127 no zone covers. */
+  uncovered: VelocityRange[];
+  chick: PadFinding | null;
+}
+
+export type ConflictKind =
+  | "note-shared" // one note + channel aimed at two different targets
+  | "note-out-of-range"
+  | "channel-out-of-range"
+  | "controller-out-of-range"
+  | "empty-slot"
+  | "unknown-slot"
+  | "unknown-instrument"
+  | "no-target"
+  | "duplicate-pad-id"
+  | "outside-grid"
+  | "pedal-zone-overlap"
+  | "pedal-zone-out-of-range";
+
+export interface Conflict {
+  kind: ConflictKind;
+  message: string;
+  padIds: string[];
+  note: number | null;
+  channel: number | null;
+}
+
+export interface AuditScore {
+  /** 0-100, one decimal. */
+  value: number;
+  formula: string;
+  items: number;
+  itemSum: number;
+  conflictPenalty: number;
+}
+
+export interface AuditSummary {
+  pads: number;
+  direct: number;
+  standIn: number;
+  silent: number;
+  pedalZones: number;
+  pedalZonesRecorded: number;
+  conflicts: number;
+}
+
+export interface AuditResult {
+  layoutId: string;
+  layoutName: string;
+  kitId: string;
+  kitName: string;
+  /** Conflicts come first, as the reader should see them first. */
+  conflicts: Conflict[];
+  summary: AuditSummary;
+  score: AuditScore;
+  pads: PadFinding[];
+  pedal: PedalFinding | null;
+}
