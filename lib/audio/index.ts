@@ -1,0 +1,10 @@
+// Public API of the audio engine (pure TypeScript: bytes in, plain objects out).
+export type { Measurement, WavFormat, SpectralSummary, TailState } from "./types";
+export { MEASURE_VERSION } from "./version";
+export { WavRefusal, isWavRefusal, type WavRefusalCode } from "./refusal";
+export { decodeWav, DEFAULT_MAX_SECONDS, DEFAULT_MAX_MISSING_FRACTION, type DecodedWav, type DecodeOptions } from "./decode";
+export type { WavMetadata, BextChunk, SmplChunk, SmplLoop, InstChunk, CuePoint } from "./chunks";
+export { measure, measureBytes, tryMeasureBytes, type MeasuredFile, type MeasureOutcome } from "./measure";
+export { computePeaks } from "./peaks";
+export { encodeWav, type EncodeOptions } from "./encode";
+export { SILENCE_DB } from "./levels";

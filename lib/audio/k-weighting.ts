@@ -1,0 +1,69 @@
+// K-weighting pre-filter of ITU-R BS.1770-4 Annex 1 (high-shelf "stage 1" + RLB high-pass "stage 2"),
+// derived for any sample rate by the bilinear transform (K = tan(pi f0 / fs)) from the analog prototype
+// parameters in STANDARDS.md; at 48 kHz they reproduce BS.1770-4 Tables 1 and 2. The high-pass numerator
+// is kept at [1, -2, 1] as in the standard's table (normalising it reads about 0.043 dB low).
+
+export interface Biquad {
+  b0: number;
+  b1: number;
+  b2: number;
+  a1: number;
+  a2: number;
+}
+
+export const SHELF_F0 = 1681.974450955533;
+export const SHELF_GAIN_DB = 3.999843853973347;
+export const SHELF_Q = 0.7071752369554196;
+export const SHELF_VB_EXP = 0.4996667741545416;
+export const HIGHPASS_F0 = 38.13547087602444;
+export const HIGHPASS_Q = 0.5003270373238773;
+
+export function shelfCoefficients(fs: number): Biquad {
+  const K = Math.tan((Math.PI * SHELF_F0) / fs);
+  const Vh = 10 ** (SHELF_GAIN_DB / 20);
+  const Vb = Vh ** SHELF_VB_EXP;
+  const a0 = 1 + K / SHELF_Q + K * K;
+  return {
+    b0: (Vh + (Vb * K) / SHELF_Q + K * K) / a0,
+    b1: (2 * (K * K - Vh)) / a0,
+    b2: (Vh - (Vb * K) / SHELF_Q + K * K) / a0,
+    a1: (2 * (K * K - 1)) / a0,
+    a2: (1 - K / SHELF_Q + K * K) / a0,
+  };
+}
+
+export function highpassCoefficients(fs: number): Biquad {
+  const K = Math.tan((Math.PI * HIGHPASS_F0) / fs);
+  const a0 = 1 + K / HIGHPASS_Q + K * K;
+  return { b0: 1, b1: -2, b2: 1, a1: (2 * (K * K - 1)) / a0, a2: (1 - K / HIGHPASS_Q + K * K) / a0 };
+}
+
+/** K-weight one channel (both stages in one pass, direct form I, float64 state). */
+export function kWeight(x: ArrayLike<number>, fs: number): Float64Array {
+  const s = shelfCoefficients(fs);
+  const h = highpassCoefficients(fs);
+  const sb0 = s.b0, sb1 = s.b1, sb2 = s.b2, sa1 = s.a1, sa2 = s.a2, ha1 = h.a1, ha2 = h.a2;
+  const n = x.length;
+  const y = new Float64Array(n);
+  let x1 = 0, x2 = 0, m1 = 0, m2 = 0, y1 = 0, y2 = 0;
+  for (let i = 0; i < n; i++) {
+    const xi = x[i];
+    const m = sb0 * xi + sb1 * x1 + sb2 * x2 - sa1 * m1 - sa2 * m2;
+    const yi = m - 2 * m1 + m2 - ha1 * y1 - ha2 * y2;
+    x2 = x1; x1 = xi; m2 = m1; m1 = m; y2 = y1; y1 = yi;
+    y[i] = yi;
+  }
+  return y;
+}
+
+/** Magnitude response in dB of the cascade at frequency f (for checks such as +0.691 dB at 997 Hz). */
+export function kWeightingGainDb(f: number, fs: number): number {
+  const w = (2 * Math.PI * f) / fs;
+  const mag = (c: Biquad) => {
+    const re = (b0: number, b1: number, b2: number) => [b0 + b1 * Math.cos(w) + b2 * Math.cos(2 * w), -(b1 * Math.sin(w) + b2 * Math.sin(2 * w))];
+    const [nr, ni] = re(c.b0, c.b1, c.b2);
+    const [dr, di] = re(1, c.a1, c.a2);
+    return Math.hypot(nr, ni) / Math.hypot(dr, di);
+  };
+  return 20 * Math.log10(mag(shelfCoefficients(fs)) * mag(highpassCoefficients(fs)));
+}

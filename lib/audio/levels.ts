@@ -1,0 +1,60 @@
+// Sample-level statistics of a one-shot: sample peak, RMS and crest factor (handbook definitions:
+// RMS = sqrt(mean x^2), crest = peak / RMS in dB), DC offset (mean), clipped runs (consecutive samples at
+// full scale) and stereo correlation (zero-lag normalised cross-correlation, as a phase-correlation meter).
+
+/** Levels of silence are reported as this many dB instead of -Infinity (JSON-safe); real 24-bit floors are near -144 dB. */
+export const SILENCE_DB = -200;
+
+export function toDb(linear: number): number {
+  return linear > 0 ? Math.max(SILENCE_DB, 20 * Math.log10(linear)) : SILENCE_DB;
+}
+
+export interface Levels {
+  samplePeak: number; // linear, all channels
+  rms: number; // linear, over all channels and samples
+  dcOffset: number; // mean of the channel with the largest |mean|
+  clippedRuns: number;
+  clippedSamples: number;
+}
+
+export const MIN_CLIP_RUN = 3;
+
+export function levels(channels: ArrayLike<number>[], clipLevel = 1): Levels {
+  let peak = 0, sumSq = 0, count = 0, dc = 0, runs = 0, clipped = 0;
+  const hi = clipLevel - 1e-9;
+  for (const x of channels) {
+    let sum = 0, run = 0;
+    const n = x.length;
+    for (let i = 0; i < n; i++) {
+      const v = x[i];
+      const a = v < 0 ? -v : v;
+      if (a > peak) peak = a;
+      sum += v;
+      sumSq += v * v;
+      if (v >= hi || v <= -1) run++;
+      else {
+        if (run >= MIN_CLIP_RUN) (runs++, (clipped += run));
+        run = 0;
+      }
+    }
+    if (run >= MIN_CLIP_RUN) (runs++, (clipped += run));
+    count += n;
+    const mean = n ? sum / n : 0;
+    if (Math.abs(mean) > Math.abs(dc)) dc = mean;
+  }
+  return { samplePeak: peak, rms: count ? Math.sqrt(sumSq / count) : 0, dcOffset: dc, clippedRuns: runs, clippedSamples: clipped };
+}
+
+/** sum(LR) / sqrt(sum(L^2) sum(R^2)) of the first two channels; null for mono or when a channel is silent. */
+export function stereoCorrelation(channels: ArrayLike<number>[]): number | null {
+  if (channels.length < 2) return null;
+  const l = channels[0], r = channels[1];
+  let lr = 0, ll = 0, rr = 0;
+  for (let i = 0; i < l.length; i++) {
+    lr += l[i] * r[i];
+    ll += l[i] * l[i];
+    rr += r[i] * r[i];
+  }
+  if (ll === 0 || rr === 0) return null;
+  return lr / Math.sqrt(ll * rr);
+}
