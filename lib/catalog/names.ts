@@ -171,7 +171,7 @@ art("flam", ["flam", "flams"]);
 art("drag", ["drag", "drags", "ruff"]);
 art("roll", ["roll", "rolls", "swell"]);
 art("buzz", ["buzz", "press", "pressroll"]);
-art("mute", ["mute", "muted", "dead", "damp", "damped", "dampened", "dry"]);
+art("mute", ["mute", "muted", "dead", "damp", "damped", "dampened"]);
 art("slap", ["slap", "slaps"]);
 art("open-tone", ["tone", "opentone"]);
 art("heel", ["heel"]);
