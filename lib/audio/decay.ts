@@ -8,7 +8,8 @@
 // quietest 10 ms after the strike is reported (an upper bound) and the tail test falls back to a 60 dB range.
 // Tail: 'decayed' when the last 10 ms are digital silence, within 6 dB of the noise floor, or 60 dB or more
 // below the loudest 10 ms; otherwise 'cut'. Schroeder integration stops where the 10 ms level first falls
-// to 5 dB above a known noise floor (a simplified truncation in the spirit of Lundeby's method).
+// to 5 dB above a known noise floor (a simplified truncation in the spirit of Lundeby's method); EDT needs the
+// level to fall 20 dB and T20 35 dB before that point, or they are null.
 import { SILENCE_DB } from "./levels";
 
 export interface DecayResult {
@@ -110,7 +111,15 @@ export function analyseDecay(channels: ArrayLike<number>[], fs: number, onset: n
   // Schroeder from the loudest 1 ms block at or after the onset
   let pk = Math.floor(onset / B), pe = 0;
   for (let k = Math.floor(onset / B); k < Math.min(nb, Math.floor(onset / B) + Math.round(0.3 * 1000)); k++) if (energy[k] > pe) { pe = energy[k]; pk = k; }
-  const curve = schroederCurve(energy, pk, Math.max(pk + 1, Math.min(nb, integEnd)));
-  const { edtSec, t20Sec } = decayTimes(curve, B / fs);
+  const end = Math.max(pk + 1, Math.min(nb, integEnd));
+  const curve = schroederCurve(energy, pk, end);
+  const times = decayTimes(curve, B / fs);
+  // The backward integral always plunges at the last block, so a decay is only trusted when the level
+  // itself falls far enough: 20 dB for EDT and 35 dB for T20 (10 dB below the bottom of each range, as
+  // ISO 3382-1 asks of the range above the noise).
+  const endLevel = level.length ? level[Math.max(0, Math.min(level.length - 1, end - W))] : SILENCE_DB;
+  const range = loudest - endLevel;
+  const edtSec = range >= 20 ? times.edtSec : null;
+  const t20Sec = range >= 35 ? times.t20Sec : null;
   return { edtSec, t20Sec, noiseFloorDbfs: noiseFloor, noiseFloorKnown, tail: decayed ? "decayed" : "cut", soundEnd };
 }

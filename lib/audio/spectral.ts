@@ -33,9 +33,9 @@ export function hann(N: number): Float64Array {
   return w;
 }
 
-/** Frame length for a sample rate: the power of two nearest to about 43 ms (2048 at 44.1/48 kHz). */
+/** Frame length for a sample rate: the power of two nearest to about 43 ms (2048 at 44.1/48 kHz), at least 512. */
 export function frameSizeFor(fs: number): number {
-  return 2 ** Math.max(8, Math.round(Math.log2(fs * 0.0427)));
+  return 2 ** Math.max(9, Math.round(Math.log2(fs * 0.0427))); // at least 512 so 26 mel bands get bins
 }
 
 const melOf = (f: number) => 1125 * Math.log(1 + f / 700);
