@@ -145,7 +145,9 @@ function membrane(s: Src, o: MembraneOpts): void {
     const f = o.f0 * ratioReal * (1 + s.rng.gauss() * 0.004);
     // modal participation at the strike point, normalised by the mode's norm (J_{m+1}(j_mn))
     const part = Math.abs(besselJ(mode.m, mode.j * rDither)) / Math.abs(besselJ(mode.m + 1, mode.j));
-    const radiation = 1 / (1 + 0.35 * mode.m); // higher circumferential orders radiate less well
+    // higher circumferential orders radiate less well (dipole, quadrupole ...), and the nodal circles of the
+    // (0,n>1) modes cancel much of their volume velocity, so the fundamental dominates the far field
+    const radiation = 1 / ((1 + 0.35 * mode.m) * (1 + 0.9 * (mode.n - 1)));
     const amp = o.gain * part * radiation * contactWeight(f, o.contactT) * (0.85 + 0.3 * s.rng.next()) / 2.3;
     const tau = o.tau0 * Math.pow(o.f0 / f, o.tauExp) * (0.9 + 0.2 * s.rng.next());
     const [gl, gr] = pan(s.rng, 0.35);
@@ -192,7 +194,7 @@ function renderKick(s: Src, k: KickSpec, art: KickArticulation): number {
   const T = contactTime(k.beater === "felt" ? 0.0016 : 0.0009, s.v);
   const muted = art === "mute";
   membrane(s, {
-    f0: k.tuneHz * (1 + s.rng.gauss() * 0.006), strikeRadius: 0.12, tau0: muted ? 0.09 : 0.2 * (k.depthIn / 18),
+    f0: k.tuneHz * (1 + s.rng.gauss() * 0.006), strikeRadius: 0.12, tau0: muted ? 0.05 : 0.1 * (k.depthIn / 18),
     tauExp: 1.1, contactT: T, airLoading: 0.12, glide: 0.16 * vn * vn, glideTau: 0.035, gain: 1, maxRatio: 4.2,
     secondHead: 0.035,
   });
@@ -374,7 +376,7 @@ function renderHiHat(s: Src, h: HiHatSpec, art: HiHatArticulation): number {
   const base = { fLo: 500 / sz, fHi: 16000, tauExp: 0.5, contactT: T, washLo: 5500, washHi: 9000 + 7000 * vn, nPartials: 70 };
   switch (art) {
     case "closed":
-      cymbal(s, { ...base, tau1k: 0.05, washGain: 0.7, washTau: 0.022 + 0.006 * s.rng.next(), washRise: 0.0008 });
+      cymbal(s, { ...base, tau1k: 0.028, washGain: 0.7, washTau: 0.018 + 0.005 * s.rng.next(), washRise: 0.0008 });
       cymbalStick(s, vn, 0.6);
       return -8;
     case "quarter-open":
@@ -415,8 +417,8 @@ function renderCrash(s: Src, c: CymbalSpec, art: CrashArticulation): number {
     return -7;
   }
   cymbal(s, {
-    nPartials: 150, fLo: 300, fHi: 16000, tau1k: 0.55 * sz, tauExp: 0.45, contactT: T, lowModes: 6, lowBase: 55 / sz,
-    washGain: 0.35 + 0.4 * vn, washLo: 3000, washHi: 8000 + 6000 * vn, washTau: 0.45 * sz, washRise: 0.012 + 0.02 * vn,
+    nPartials: 150, fLo: 300, fHi: 16000, tau1k: 0.42 * sz, tauExp: 0.4, contactT: T, lowModes: 6, lowBase: 55 / sz,
+    washGain: 0.5 + 0.6 * vn, washLo: 3000, washHi: 8000 + 6000 * vn, washTau: 0.45 * sz, washRise: 0.012 + 0.02 * vn,
     gain: art === "bow" ? 0.8 : 1,
   });
   cymbalStick(s, vn, 0.35);
@@ -446,7 +448,7 @@ function renderRide(s: Src, c: CymbalSpec, art: RideArticulation): number {
   const T = contactTime(crash ? 0.0005 : 0.0003, s.v);
   // bow: a clear "ping" from the stick over a lower wash that sustains for seconds
   cymbal(s, {
-    nPartials: 130, fLo: 300, fHi: 15000, tau1k: 0.75 * sz, tauExp: 0.45, contactT: T, lowModes: 5, lowBase: 45 / sz,
+    nPartials: 130, fLo: 300, fHi: 15000, tau1k: 0.55 * sz, tauExp: 0.35, contactT: T, lowModes: 5, lowBase: 45 / sz,
     washGain: crash ? 0.5 + 0.3 * vn : 0.12 + 0.15 * vn, washLo: 3500, washHi: 7000 + 5000 * vn, washTau: crash ? 0.6 : 0.5,
     washRise: crash ? 0.02 : 0.03, gain: 1,
   });
