@@ -1,0 +1,210 @@
+// kitwright audit --layout <layout.json | template name> --catalogue <folder | catalogue.json> [--kit <kit.json>]
+//                 [--json | --csv] [--smf <out.mid>]
+// Runs the coverage audit offline. Exit status: 0 when every pad plays something, 1 when any pad (or pedal
+// zone, or the pedal chick note) is silent, 2 on bad input (the message says what and where).
+
+import { readFile, readdir, stat, writeFile } from "node:fs/promises";
+import path from "node:path";
+import { hasSilentPads, runAudit } from "../lib/audit/audit";
+import { readCatalogue } from "../lib/audit/catalogue-input";
+import { auditToCsv, auditToJson } from "../lib/audit/export";
+import { buildDefaultKit } from "../lib/audit/kits";
+import { parseKitFile, parseLayoutFile, SchemaError } from "../lib/audit/schema";
+import { auditToSmf } from "../lib/audit/smf";
+import { TEMPLATE_NAMES, getTemplate } from "../lib/audit/templates";
+import type { AuditResult, CatalogueInstrument, Kit, Layout, PlayFinding } from "../lib/audit/types";
+
+const USAGE = `usage: kitwright audit --layout <layout.json | template> --catalogue <folder | catalogue.json>
+                       [--kit <kit.json>] [--json | --csv] [--smf <out.mid>]
+
+templates: ${TEMPLATE_NAMES.join(", ")}
+exit status: 0 every pad plays, 1 some pad is silent, 2 bad input
+`;
+
+class UsageError extends Error {}
+
+interface Options {
+  layout: string;
+  catalogue: string;
+  kit: string | null;
+  format: "text" | "json" | "csv";
+  smf: string | null;
+}
+
+function parseArgs(args: string[]): Options | "help" {
+  const o: Partial<Options> = { kit: null, format: "text", smf: null };
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    const value = () => {
+      const v = args[++i];
+      if (v === undefined || v.startsWith("--")) throw new UsageError(`${a} needs a value`);
+      return v;
+    };
+    if (a === "--help" || a === "-h") return "help";
+    else if (a === "--layout") o.layout = value();
+    else if (a === "--catalogue" || a === "--catalog") o.catalogue = value();
+    else if (a === "--kit") o.kit = value();
+    else if (a === "--smf") o.smf = value();
+    else if (a === "--json" || a === "--csv") {
+      const f = a.slice(2) as "json" | "csv";
+      if (o.format !== "text" && o.format !== f) throw new UsageError("choose one of --json and --csv");
+      o.format = f;
+    } else throw new UsageError(`unknown option ${a}`);
+  }
+  if (!o.layout) throw new UsageError("--layout is required");
+  if (!o.catalogue) throw new UsageError("--catalogue is required");
+  return o as Options;
+}
+
+async function readJson(file: string, what: string): Promise<unknown> {
+  let text: string;
+  try {
+    text = await readFile(file, "utf8");
+  } catch (e) {
+    throw new UsageError(`cannot read the ${what} ${file}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+  }
+  try {
+    return JSON.parse(text);
+  } catch (e) {
+    throw new UsageError(`the ${what} ${file} is not JSON: ${(e as Error).message}`);
+  }
+}
+
+async function loadLayout(arg: string): Promise<Layout> {
+  const t = getTemplate(arg);
+  if (t) return t;
+  const exists = await stat(arg).catch(() => null);
+  if (!exists) throw new UsageError(`--layout ${arg}: neither a file nor a template (${TEMPLATE_NAMES.join(", ")})`);
+  return parseLayoutFile(await readJson(arg, "layout"));
+}
+
+async function wavFiles(dir: string): Promise<string[]> {
+  const out: string[] = [];
+  const walk = async (d: string) => {
+    const entries = await readdir(d, { withFileTypes: true });
+    entries.sort((a, b) => a.name.localeCompare(b.name));
+    for (const e of entries) {
+      const p = path.join(d, e.name);
+      if (e.isDirectory()) await walk(p);
+      else if (e.isFile() && /\.wav$/i.test(e.name)) out.push(p);
+    }
+  };
+  await walk(dir);
+  return out;
+}
+
+/** Catalogue a folder as `kitwright catalogue` does: measure every WAV (lib/audio), sort them (lib/catalog). */
+async function catalogueFolder(dir: string, warn: (s: string) => void): Promise<CatalogueInstrument[]> {
+  let mod: Record<string, unknown>;
+  try {
+    mod = (await import("../lib/catalog/catalogue")) as Record<string, unknown>;
+  } catch (e) {
+    throw new UsageError(
+      `cataloguing a folder needs lib/catalog/catalogue.ts, which could not be loaded (${(e as Error).message}); ` +
+        `pass a catalogue JSON (kitwright.catalogue/v1) with --catalogue instead`,
+    );
+  }
+  const catalogueSamples = mod.catalogueSamples as ((samples: unknown[], opts?: unknown) => unknown) | undefined;
+  if (typeof catalogueSamples !== "function") throw new UsageError("lib/catalog/catalogue.ts has no catalogueSamples()");
+  const { tryMeasureBytes } = await import("../lib/audio");
+  const files = await wavFiles(dir);
+  if (files.length === 0) throw new UsageError(`no .wav files under ${dir}`);
+  const samples: unknown[] = [];
+  const pitch = new Map<string, number>();
+  for (const file of files) {
+    const rel = path.relative(dir, file).split(path.sep).join("/");
+    const bytes = new Uint8Array(await readFile(file));
+    const m = tryMeasureBytes(bytes);
+    if (!m.ok) {
+      warn(`refused ${rel}: ${m.reason}`);
+      continue;
+    }
+    samples.push({ id: rel, path: rel, measurement: m.measurement });
+    if (m.measurement.pitchHz !== null) pitch.set(rel, m.measurement.pitchHz);
+  }
+  const result = await catalogueSamples(samples);
+  const reading = readCatalogue(result);
+  for (const p of reading.problems) warn(`catalogue: ${p}`);
+  // Instrument pitch (to order toms high to low): median measured pitch of its centre hits, else of all its samples.
+  const entries = (result as { samples?: Array<{ id: string; instrumentKey: string; articulation: string }> }).samples ?? [];
+  for (const inst of reading.instruments) {
+    const mine = entries.filter((e) => e.instrumentKey === inst.id && pitch.has(e.id));
+    const centre = mine.filter((e) => e.articulation === "centre");
+    const values = (centre.length ? centre : mine).map((e) => pitch.get(e.id)!).sort((a, b) => a - b);
+    if (values.length && inst.pitchHz == null) {
+      const mid = values.length >> 1;
+      inst.pitchHz = values.length % 2 ? values[mid]! : (values[mid - 1]! + values[mid]!) / 2;
+    }
+  }
+  return reading.instruments;
+}
+
+async function loadCatalogue(arg: string, warn: (s: string) => void): Promise<CatalogueInstrument[]> {
+  const s = await stat(arg).catch(() => null);
+  if (!s) throw new UsageError(`--catalogue ${arg}: no such file or folder`);
+  if (s.isDirectory()) return catalogueFolder(arg, warn);
+  const reading = readCatalogue(await readJson(arg, "catalogue"));
+  if (reading.instruments.length === 0 && reading.problems.length) {
+    throw new UsageError(`--catalogue ${arg}: ${reading.problems.join("; ")}`);
+  }
+  for (const p of reading.problems) warn(`catalogue: ${p}`);
+  return reading.instruments;
+}
+
+function describe(f: PlayFinding): string {
+  if (f.outcome === "silent") return `SILENT    ${f.reason ?? ""}`;
+  const where = `${f.instrumentName ?? "?"} ${f.plays}`;
+  const layers = `${f.layers.length} layer${f.layers.length === 1 ? "" : "s"}, rr >= ${f.minRoundRobins}`;
+  const gaps = f.velocityGaps.length ? `, velocity gaps ${f.velocityGaps.map((g) => (g.low === g.high ? g.low : `${g.low}-${g.high}`)).join(" ")}` : "";
+  if (f.outcome === "direct") return `direct    ${where} (${layers}${gaps})`;
+  return `stand-in  ${where} via ${f.standIn!.path.join(" > ")} cost ${f.standIn!.cost} (${layers}${gaps})`;
+}
+
+export function formatText(r: AuditResult): string {
+  const lines: string[] = [];
+  lines.push(`Audit of "${r.layoutName}" against "${r.kitName}"`);
+  lines.push(`score ${r.score.value} / 100   pads ${r.summary.pads}: ${r.summary.direct} direct, ${r.summary.standIn} stand-in, ${r.summary.silent} silent   conflicts ${r.summary.conflicts}`);
+  if (r.conflicts.length) {
+    lines.push("", "Conflicts");
+    for (const c of r.conflicts) lines.push(`  ${c.kind}: ${c.message}`);
+  }
+  lines.push("", "Pads");
+  for (const p of r.pads) {
+    const at = p.row !== null ? `r${p.row}c${p.col}` : (p.zone ?? p.padId);
+    lines.push(`  ${String(p.note).padStart(3)} ch${String(p.channel).padEnd(2)} ${at.padEnd(14)} ${p.label.padEnd(20)} ${p.requested ?? "-"} -> ${describe(p)}`);
+  }
+  if (r.pedal) {
+    lines.push("", `Hi-hat pedal (CC${r.pedal.controller}, closed at ${r.pedal.closedAt})`);
+    for (const z of r.pedal.zones) lines.push(`  ${String(z.low).padStart(3)}-${String(z.high).padEnd(3)} ${z.requested} -> ${describe(z)}`);
+    if (r.pedal.uncovered.length) lines.push(`  uncovered controller values: ${r.pedal.uncovered.map((u) => `${u.low}-${u.high}`).join(" ")}`);
+    if (r.pedal.chick) lines.push(`  chick note ${r.pedal.chick.note} -> ${describe(r.pedal.chick)}`);
+  }
+  lines.push("", r.score.formula);
+  return lines.join("\n") + "\n";
+}
+
+export async function run(args: string[]): Promise<number> {
+  const warn = (s: string) => void process.stderr.write(`kitwright audit: ${s}\n`);
+  try {
+    const opts = parseArgs(args);
+    if (opts === "help") {
+      process.stdout.write(USAGE);
+      return 0;
+    }
+    const layout = await loadLayout(opts.layout);
+    const catalogue = await loadCatalogue(opts.catalogue, warn);
+    const kit: Kit = opts.kit ? parseKitFile(await readJson(opts.kit, "kit")) : buildDefaultKit(layout, catalogue);
+    const result = runAudit(layout, kit, catalogue);
+    if (opts.format === "json") process.stdout.write(JSON.stringify(auditToJson(result), null, 2) + "\n");
+    else if (opts.format === "csv") process.stdout.write(auditToCsv(result));
+    else process.stdout.write(formatText(result));
+    if (opts.smf) await writeFile(opts.smf, auditToSmf(result));
+    return hasSilentPads(result) ? 1 : 0;
+  } catch (e) {
+    if (e instanceof UsageError || e instanceof SchemaError) {
+      process.stderr.write(`kitwright audit: ${e.message}\n\n${e instanceof UsageError ? USAGE : ""}`);
+      return 2;
+    }
+    throw e;
+  }
+}
