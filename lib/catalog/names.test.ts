@@ -101,3 +101,15 @@ describe("tokenise", () => {
     expect(parseName("Snares/Brass/01.wav").familyFrom).toBe("folder");
   });
 });
+
+describe("robustness", () => {
+  it("words that are object property names never match a table", () => {
+    const n = parseName("constructor/toString_hasOwnProperty_valueOf.wav");
+    expect(n.family).toBeNull();
+    expect(n.articulation).toBeNull();
+  });
+  it("empty and odd paths do not throw", () => {
+    expect(parseName("").family).toBeNull();
+    expect(parseName("___.wav").tokens).toEqual([]);
+  });
+});

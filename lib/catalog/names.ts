@@ -87,6 +87,11 @@ export function tokenise(name: string): string[] {
   return out;
 }
 
+/** Own-property lookup (so "constructor" or "toString" in a name never matches a table). */
+function get<T>(o: Record<string, T>, k: string): T | undefined {
+  return Object.prototype.hasOwnProperty.call(o, k) ? o[k] : undefined;
+}
+
 // ---------------------------------------------------------------------------------------------------------------
 // Synonym tables (trade vocabulary, common practice)
 
@@ -254,7 +259,8 @@ const NOISE_WORDS = new Set([
   "multisamples", "velocities", "velocity", "layers", "layer", "round", "robin", "robins", "rr", "mics", "mic", "stereo",
   "the", "and", "of", "a", "with", "new", "final", "take", "takes", "cymbal", "cymbals", "set", "library", "pack",
   "hits", "hit", "articulations", "processed", "raw", "clean", "v", "vel", "x", "l", "r", "left", "right",
-  "dynamic", "dynamics", "mixed", "all", "misc", "various",
+  "dynamic", "dynamics", "mixed", "all", "misc", "various", "audio", "untitled", "file", "files", "track", "recording", "rec",
+  "bounce", "export", "exported", "copy", "edit", "edited", "sound", "sounds", "sfx", "wavs", "tmp", "temp", "folder",
 ]);
 
 /** Families where several instruments of one kind are usual, so "tom 2" or "crash 1" names the instrument. */
@@ -279,7 +285,7 @@ interface Parsed {
   ambiguous: string[];
 }
 
-const isNum = (t: string | undefined): t is string => t !== undefined && /^\d+$/.test(t);
+const isNum = (t: string | undefined): boolean => t !== undefined && /^\d+$/.test(t);
 
 function parseTokens(tokens: string[], isFile: boolean): Parsed {
   const p: Parsed = {
@@ -332,20 +338,20 @@ function parseTokens(tokens: string[], isFile: boolean): Parsed {
       i += 2;
       continue;
     }
-    if (bigram && FAMILY_BIGRAMS[bigram]) {
-      takeFamily(FAMILY_BIGRAMS[bigram]!, i + 1);
+    if (bigram && get(FAMILY_BIGRAMS, bigram)) {
+      takeFamily(get(FAMILY_BIGRAMS, bigram)!, i + 1);
       used[i] = used[i + 1] = true;
       i++;
       continue;
     }
-    if (bigram && ARTICULATION_BIGRAMS[bigram]) {
-      p.articulationWords.push(ARTICULATION_BIGRAMS[bigram]!);
+    if (bigram && get(ARTICULATION_BIGRAMS, bigram)) {
+      p.articulationWords.push(get(ARTICULATION_BIGRAMS, bigram)!);
       used[i] = used[i + 1] = true;
       i++;
       continue;
     }
-    if (bigram && MIC_BIGRAMS[bigram]) {
-      p.mic = MIC_BIGRAMS[bigram]!;
+    if (bigram && get(MIC_BIGRAMS, bigram)) {
+      p.mic = get(MIC_BIGRAMS, bigram)!;
       used[i] = used[i + 1] = true;
       i++;
       continue;
@@ -372,9 +378,9 @@ function parseTokens(tokens: string[], isFile: boolean): Parsed {
       numbers.push({ i, raw: t });
       continue;
     }
-    if (FAMILY_WORDS[t]) {
+    if (get(FAMILY_WORDS, t)) {
       // "ch" after a hi-hat word means closed hi-hat, not china; "splash" on a hi-hat is a foot splash
-      const fw = FAMILY_WORDS[t]!;
+      const fw = get(FAMILY_WORDS, t)!;
       // a size in inches before the instrument word ("18 crash", "22 kick")
       const prevNum = numbers[numbers.length - 1];
       if (prevNum && prevNum.i === i - 1 && !prevNum.raw.startsWith("0") && Number(prevNum.raw) >= 6 && Number(prevNum.raw) <= 28) {
@@ -385,7 +391,7 @@ function parseTokens(tokens: string[], isFile: boolean): Parsed {
         p.articulationWords.push("closed");
       } else if ((t === "splash" || t === "spl") && p.family === "hi-hat") {
         p.articulationWords.push("foot-splash");
-      } else if (t === "bass" && (next === "drum" || FAMILY_WORDS[next ?? ""]?.family === "kick")) {
+      } else if (t === "bass" && (next === "drum" || get(FAMILY_WORDS, next ?? "")?.family === "kick")) {
         takeFamily({ family: "kick", words: ["kick"] }, i);
       } else {
         takeFamily(fw, i);
@@ -393,28 +399,28 @@ function parseTokens(tokens: string[], isFile: boolean): Parsed {
       used[i] = true;
       continue;
     }
-    if (ARTICULATION_WORDS[t]) {
-      p.articulationWords.push(ARTICULATION_WORDS[t]!);
+    if (get(ARTICULATION_WORDS, t)) {
+      p.articulationWords.push(get(ARTICULATION_WORDS, t)!);
       used[i] = true;
       continue;
     }
-    if (MIC_WORDS[t] && !(t === "in" && isNum(next))) {
-      if (!p.mic) p.mic = MIC_WORDS[t]!;
+    if (get(MIC_WORDS, t) && !(t === "in" && isNum(next))) {
+      if (!p.mic) p.mic = get(MIC_WORDS, t)!;
       used[i] = true;
       continue;
     }
-    if (t in DYNAMICS && (t.length > 1 || i > 0)) {
-      p.velocity = { scheme: "dynamic", rank: DYNAMICS[t]!, raw: t };
+    if (get(DYNAMICS, t) !== undefined && (t.length > 1 || i > 0)) {
+      p.velocity = { scheme: "dynamic", rank: get(DYNAMICS, t)!, raw: t };
       used[i] = true;
       continue;
     }
-    if (t in DYNAMIC_WORDS) {
+    if (get(DYNAMIC_WORDS, t) !== undefined) {
       // "hi"/"lo"/"mid"/"high"/"low" next to "tom" are drum positions, not strengths
-      const nearTom = FAMILY_WORDS[next ?? ""]?.family === "tom" || FAMILY_WORDS[tokens[i - 1] ?? ""]?.family === "tom";
+      const nearTom = get(FAMILY_WORDS, next ?? "")?.family === "tom" || get(FAMILY_WORDS, tokens[i - 1] ?? "")?.family === "tom";
       if (nearTom && ["hi", "lo", "low", "high", "mid"].includes(t)) {
         p.stem.push(t === "hi" ? "high" : t === "lo" ? "low" : t);
       } else if (!p.velocity || p.velocity.scheme === "word") {
-        p.velocity = { scheme: "word", rank: DYNAMIC_WORDS[t]!, raw: t };
+        p.velocity = { scheme: "word", rank: get(DYNAMIC_WORDS, t)!, raw: t };
       }
       used[i] = true;
       continue;

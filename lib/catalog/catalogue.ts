@@ -1,0 +1,242 @@
+// The whole sorted catalogue of a set of measured samples: per sample its family, articulation (with label
+// sources), instrument, mic, velocity layer and round robin; the instruments; the layer groups; the health
+// findings. Called by the CLI (`kitwright catalogue`) and by the server's regroup worker. Pure.
+
+import type { Measurement } from "../audio/types";
+import { articulationFromSound, nameSoundConflict, suggestFromSound, type LabelModel, type NameSoundConflict, type SoundSuggestion } from "./classify";
+import { conflictHealth, fileHealth, layerHealth, sortFindings, type HealthFinding, type HealthOptions } from "./health";
+import { groupInstruments, instrumentDisplayName, type Instrument } from "./instruments";
+import { sortLayers, type Layer, type LayerOptions } from "./layers";
+import { parseName, type MicPosition, type NameInfo } from "./names";
+import type { Articulation, Family } from "./taxonomy";
+import { DLS, type VelocityCurve } from "./velocity";
+
+export type LabelSource = "name" | "sound" | "person";
+
+export interface CatalogueSampleInput {
+  id: string;
+  /** Relative path inside the library (folders carry names too). */
+  path: string;
+  sha256?: string;
+  measurement: Measurement;
+  /** Labels a member confirmed; they win over names and sound. */
+  confirmed?: { family?: Family; articulation?: Articulation; mic?: MicPosition | null; instrumentKey?: string };
+}
+
+export interface CatalogueOptions {
+  /** Velocity curve for the layer ranges. Default DLS Level 1. */
+  curve?: VelocityCurve;
+  /** Nearest-neighbour model from the studio's confirmed labels (buildLabelModel). */
+  labelModel?: LabelModel;
+  layers?: Omit<LayerOptions, "curve">;
+  health?: HealthOptions;
+}
+
+export interface CatalogueEntry {
+  id: string;
+  path: string;
+  family: Family;
+  familySource: LabelSource;
+  articulation: Articulation;
+  articulationSource: LabelSource;
+  /** Confidence of the family label, 0..1 (1 for a person's label). */
+  confidence: number;
+  /** Plain words: why these labels. */
+  reasons: string[];
+  name: Pick<NameInfo, "family" | "articulation" | "velocity" | "roundRobin" | "mic" | "stem">;
+  sound: Pick<SoundSuggestion, "family" | "articulation" | "confidence" | "source">;
+  conflict: NameSoundConflict["level"];
+  instrumentKey: string;
+  instrumentName: string;
+  mic: MicPosition | null;
+  groupKey: string;
+  /** 0 = softest; null when the strike loudness could not be measured. */
+  layerIndex: number | null;
+  layerCount: number;
+  /** 1-based position among the layer's round robins. */
+  roundRobin: number | null;
+  roundRobinCount: number;
+  velocityLow: number | null;
+  velocityHigh: number | null;
+  strikeLufs: number;
+}
+
+export interface LayerGroup {
+  key: string;
+  instrumentKey: string;
+  articulation: Articulation;
+  mic: MicPosition | null;
+  label: string;
+  countFrom: "names" | "gaps" | "single";
+  criterion: string;
+  layers: Layer[];
+}
+
+export interface Catalogue {
+  samples: CatalogueEntry[];
+  instruments: Instrument[];
+  groups: LayerGroup[];
+  health: HealthFinding[];
+  curve: VelocityCurve;
+}
+
+export function groupKeyOf(instrumentKey: string, articulation: Articulation, mic: MicPosition | null): string {
+  return `${instrumentKey}|${articulation}|${mic ?? "-"}`;
+}
+
+const round2 = (x: number) => Math.round(x * 100) / 100;
+
+/** Sorts measured samples into the catalogue. Input order does not matter; output is sorted by path. */
+export function catalogueSamples(samples: CatalogueSampleInput[], opts: CatalogueOptions = {}): Catalogue {
+  const curve = opts.curve ?? DLS;
+  const ids = new Set<string>();
+  for (const s of samples) {
+    if (ids.has(s.id)) throw new Error(`sample id "${s.id}" appears twice`);
+    ids.add(s.id);
+  }
+  const sorted = [...samples].sort((a, b) => a.path.localeCompare(b.path) || a.id.localeCompare(b.id));
+
+  // 1. labels per sample
+  interface Work {
+    s: CatalogueSampleInput;
+    n: NameInfo;
+    snd: SoundSuggestion;
+    family: Family;
+    familySource: LabelSource;
+    articulation: Articulation;
+    articulationSource: LabelSource;
+    confidence: number;
+    reasons: string[];
+    conflict: NameSoundConflict;
+    mic: MicPosition | null;
+  }
+  const work: Work[] = sorted.map((s) => {
+    const n = parseName(s.path);
+    const snd = suggestFromSound(s.measurement, opts.labelModel);
+    const conflict = nameSoundConflict({ family: n.family, articulation: n.articulation }, snd);
+    let family: Family;
+    let familySource: LabelSource;
+    let confidence: number;
+    const reasons: string[] = [];
+    if (s.confirmed?.family) {
+      family = s.confirmed.family;
+      familySource = "person";
+      confidence = 1;
+      reasons.push("confirmed by a member");
+    } else if (n.family) {
+      family = n.family;
+      familySource = "name";
+      confidence = snd.family === n.family ? Math.max(0.9, snd.confidence) : conflict.level === "strong" ? 0.5 : 0.7;
+      reasons.push(`${n.familyFrom === "folder" ? "folder" : "file"} name says ${n.family}`);
+      if (conflict.level !== "none") reasons.push(conflict.message);
+      else reasons.push(`sound agrees: ${snd.reasons[0]}`);
+    } else {
+      family = snd.family;
+      familySource = "sound";
+      confidence = snd.confidence;
+      reasons.push(...snd.reasons);
+    }
+    let articulation: Articulation;
+    let articulationSource: LabelSource;
+    if (s.confirmed?.articulation) {
+      articulation = s.confirmed.articulation;
+      articulationSource = "person";
+    } else if (n.articulation) {
+      articulation = n.articulation;
+      articulationSource = "name";
+    } else if (snd.family === family) {
+      articulation = snd.articulation;
+      articulationSource = "sound";
+    } else {
+      const a = articulationFromSound(s.measurement, family);
+      articulation = a.articulation;
+      articulationSource = "sound";
+      reasons.push(a.reason);
+    }
+    const mic = s.confirmed?.mic !== undefined ? s.confirmed.mic : n.mic;
+    return { s, n, snd, family, familySource, articulation, articulationSource, confidence: round2(confidence), reasons, conflict, mic };
+  });
+
+  // 2. instruments
+  const { instruments: autoInstruments, bySample } = groupInstruments(work.map((w) => ({ id: w.s.id, family: w.family, stem: w.n.stem })));
+  let instruments = autoInstruments;
+  const confirmedMoves = work.filter((w) => w.s.confirmed?.instrumentKey && w.s.confirmed.instrumentKey !== bySample[w.s.id]);
+  if (confirmedMoves.length) {
+    const map = new Map(instruments.map((i) => [i.key, { ...i, sampleIds: [...i.sampleIds] }]));
+    for (const w of confirmedMoves) {
+      const to = w.s.confirmed!.instrumentKey!;
+      const from = map.get(bySample[w.s.id]!)!;
+      from.sampleIds = from.sampleIds.filter((x) => x !== w.s.id);
+      let target = map.get(to);
+      if (!target) {
+        const words = to.split(":")[1]?.split("-").filter((x) => x && x !== "main") ?? [];
+        target = { key: to, family: w.family, displayName: instrumentDisplayName(w.family, words), descriptors: words, sampleIds: [], mergedFrom: [] };
+        map.set(to, target);
+      }
+      target.sampleIds.push(w.s.id);
+      target.sampleIds.sort();
+      bySample[w.s.id] = to;
+    }
+    instruments = [...map.values()].filter((i) => i.sampleIds.length > 0).sort((a, b) => a.key.localeCompare(b.key));
+  }
+  const instName = new Map(instruments.map((i) => [i.key, i.displayName]));
+
+  // 3. layer groups
+  const byGroup = new Map<string, Work[]>();
+  for (const w of work) {
+    const k = groupKeyOf(bySample[w.s.id]!, w.articulation, w.mic);
+    const l = byGroup.get(k) ?? [];
+    l.push(w);
+    byGroup.set(k, l);
+  }
+  const groups: LayerGroup[] = [];
+  const layerOf = new Map<string, { layer: Layer; count: number; rr: number; rrCount: number }>();
+  const findings: HealthFinding[] = [];
+  for (const [key, members] of [...byGroup.entries()].sort((a, b) => a[0].localeCompare(b[0]))) {
+    const first = members[0]!;
+    const instrumentKey = bySample[first.s.id]!;
+    const label = [instName.get(instrumentKey) ?? instrumentKey, first.articulation, first.mic].filter(Boolean).join(" / ");
+    const res = sortLayers(
+      members.map((w) => ({ id: w.s.id, strikeLufs: w.s.measurement.strikeLufs, velocityHint: w.n.velocity, roundRobin: w.n.roundRobin, path: w.s.path })),
+      { ...opts.layers, curve },
+    );
+    groups.push({ key, instrumentKey, articulation: first.articulation, mic: first.mic, label, countFrom: res.countFrom, criterion: res.criterion, layers: res.layers });
+    for (const layer of res.layers) layer.sampleIds.forEach((id, i) => layerOf.set(id, { layer, count: res.layers.length, rr: i + 1, rrCount: layer.sampleIds.length }));
+    findings.push(...layerHealth(label, res.issues));
+  }
+
+  // 4. health
+  findings.push(...fileHealth(sorted.map((s) => ({ id: s.id, path: s.path, sha256: s.sha256, measurement: s.measurement })), opts.health));
+  findings.push(...conflictHealth(work.filter((w) => w.familySource === "name").map((w) => ({ id: w.s.id, path: w.s.path, conflict: w.conflict }))));
+
+  const entries: CatalogueEntry[] = work.map((w) => {
+    const lo = layerOf.get(w.s.id);
+    const instrumentKey = bySample[w.s.id]!;
+    return {
+      id: w.s.id,
+      path: w.s.path,
+      family: w.family,
+      familySource: w.familySource,
+      articulation: w.articulation,
+      articulationSource: w.articulationSource,
+      confidence: w.confidence,
+      reasons: w.reasons,
+      name: { family: w.n.family, articulation: w.n.articulation, velocity: w.n.velocity, roundRobin: w.n.roundRobin, mic: w.n.mic, stem: w.n.stem },
+      sound: { family: w.snd.family, articulation: w.snd.articulation, confidence: w.snd.confidence, source: w.snd.source },
+      conflict: w.conflict.level,
+      instrumentKey,
+      instrumentName: instName.get(instrumentKey) ?? instrumentKey,
+      mic: w.mic,
+      groupKey: groupKeyOf(instrumentKey, w.articulation, w.mic),
+      layerIndex: lo ? lo.layer.index : null,
+      layerCount: lo ? lo.count : 0,
+      roundRobin: lo ? lo.rr : null,
+      roundRobinCount: lo ? lo.rrCount : 0,
+      velocityLow: lo ? lo.layer.velocityLow : null,
+      velocityHigh: lo ? lo.layer.velocityHigh : null,
+      strikeLufs: w.s.measurement.strikeLufs,
+    };
+  });
+
+  return { samples: entries, instruments, groups, health: sortFindings(findings), curve };
+}

@@ -1,0 +1,59 @@
+import { describe, expect, it } from "vitest";
+import { conflictHealth, fileHealth, layerHealth, sortFindings, type HealthSample } from "./health";
+import { measurement } from "./test-helpers";
+import type { Measurement } from "../audio/types";
+
+const s = (id: string, over: Partial<Measurement> = {}, sha256?: string): HealthSample => ({ id, path: `${id}.wav`, sha256, measurement: measurement({}, over) });
+const fmt = (p: Partial<Measurement["format"]>): Partial<Measurement> => ({ format: { ...measurement().format, ...p } });
+
+describe("fileHealth: one finding per defect (thresholds: common practice unless a standard is named)", () => {
+  it("clean files give no findings", () => {
+    expect(fileHealth([s("a"), s("b", {}, "h2")])).toEqual([]);
+  });
+  it("mixed sample rates, bit depths and channel counts name the minority files", () => {
+    const f = fileHealth([s("a"), s("b"), s("c", fmt({ sampleRate: 48000 })), s("d", fmt({ validBits: 16, bitsPerSample: 16 })), s("e", fmt({ channels: 1 }))]);
+    expect(f.find((x) => x.code === "mixed-sample-rate")).toMatchObject({ sampleIds: ["c"], severity: "warning" });
+    expect(f.find((x) => x.code === "mixed-sample-rate")!.message).toMatch(/4 at 44\.1 kHz, 1 at 48 kHz/);
+    expect(f.find((x) => x.code === "mixed-bit-depth")!.sampleIds).toEqual(["d"]);
+    expect(f.find((x) => x.code === "mixed-channels")!.message).toMatch(/mono/);
+  });
+  it("duplicates by hash", () => {
+    const f = fileHealth([s("a", {}, "x"), s("b", {}, "y"), s("c", {}, "x")]);
+    expect(f).toEqual([expect.objectContaining({ code: "duplicate", sampleIds: ["a", "c"] })]);
+  });
+  it("clipping, true-peak over 0 dBTP (BS.1770-4 Annex 2), DC offset, late onset (> 10 ms), cut tail, truncated", () => {
+    const f = fileHealth([
+      s("clip", { clippedRuns: 2, clippedSamples: 9 }),
+      s("tp", { truePeakDbtp: 0.4 }),
+      s("tp0", { truePeakDbtp: 0 }),
+      s("dc", { dcOffset: -0.01 }),
+      s("late", { onsetMs: 25 }),
+      s("ontime", { onsetMs: 9.9 }),
+      s("cut", { tail: "cut" }),
+      s("short", { truncated: true }),
+    ]);
+    const codes = Object.fromEntries(f.map((x) => [x.sampleIds[0], x.code]));
+    expect(codes).toEqual({ clip: "clipping", tp: "true-peak-over", dc: "dc-offset", late: "late-onset", cut: "cut-tail", short: "truncated" });
+    expect(f.find((x) => x.code === "dc-offset")!.message).toMatch(/-40 dBFS/);
+    expect(f.find((x) => x.code === "late-onset")!.message).toMatch(/25 ms.*few milliseconds/);
+    expect(f.find((x) => x.code === "clipping")!.severity).toBe("error");
+  });
+  it("sortFindings puts errors first", () => {
+    const f = sortFindings(fileHealth([s("late", { onsetMs: 25 }), s("clip", { clippedRuns: 1, clippedSamples: 3 })]));
+    expect(f.map((x) => x.code)).toEqual(["clipping", "late-onset"]);
+  });
+});
+
+describe("layer and conflict findings", () => {
+  it("layer issues carry the group label", () => {
+    const f = layerHealth("Snare / centre", [{ code: "missing-layer", sampleIds: ["b", "a"], message: "v3 is missing." }]);
+    expect(f).toEqual([{ code: "missing-layer", severity: "warning", sampleIds: ["a", "b"], message: "Snare / centre: v3 is missing." }]);
+  });
+  it("only strong name/sound conflicts become findings", () => {
+    const f = conflictHealth([
+      { id: "a", conflict: { level: "strong", message: "Named kick but sounds like crash." } },
+      { id: "b", conflict: { level: "mild", message: "x" } },
+    ]);
+    expect(f).toEqual([expect.objectContaining({ code: "name-sound-conflict", sampleIds: ["a"] })]);
+  });
+});
