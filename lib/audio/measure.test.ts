@@ -1,0 +1,74 @@
+import { describe, expect, it } from "vitest";
+import { computePeaks, decodeWav, encodeWav, measure, measureBytes, tryMeasureBytes, MEASURE_VERSION, SILENCE_DB } from "./index";
+import { hit, sine } from "./signals";
+
+const fs = 48000;
+
+describe("measure(): the whole record on generated one-shots", () => {
+  const L = hit(fs, 1.5, { f: 110, tau: 0.12, leadSec: 0.012, noiseDb: -78, seed: 2 });
+  const R = Float32Array.from(L, (v) => 0.8 * v);
+  const bytes = encodeWav([L, R], { sampleRate: fs, bits: 24 });
+  const m = measureBytes(bytes);
+
+  it("fills every field with finite, JSON-safe values", () => {
+    expect(JSON.parse(JSON.stringify(m))).toEqual(m);
+    expect(m.measureVersion).toBe(MEASURE_VERSION);
+    expect(m.format).toMatchObject({ channels: 2, sampleRate: fs, bitsPerSample: 24, frames: 72000, durationSec: 1.5 });
+    expect(m.strike.mfcc).toHaveLength(13);
+    expect(m.strike.barkLoudness).toHaveLength(24);
+    expect(m.body).not.toBeNull();
+  });
+  it("agrees with the parts: onset 12 ms (+-1), pitch 110 Hz (1 %), decayed tail, T60 = 6.9078 tau (5 %), floor near -78 dBFS", () => {
+    expect(Math.abs(m.onsetMs - 12)).toBeLessThanOrEqual(1);
+    expect(Math.abs(m.pitchHz! / 110 - 1)).toBeLessThan(0.01);
+    expect(m.tail).toBe("decayed");
+    expect(Math.abs(m.t20Sec! / (6.9078 * 0.12) - 1)).toBeLessThan(0.05);
+    expect(Math.abs(m.noiseFloorDbfs + 78)).toBeLessThan(2);
+  });
+  it("levels are consistent: true peak >= sample peak, crest = peak - RMS, correlation 1 for scaled copies", () => {
+    expect(m.truePeakDbtp).toBeGreaterThanOrEqual(m.samplePeakDbfs - 1e-9);
+    expect(m.crestDb).toBeCloseTo(m.samplePeakDbfs - m.rmsDbfs, 9);
+    expect(m.stereoCorrelation!).toBeCloseTo(1, 6);
+    expect(m.strikeLufs).toBeGreaterThan(m.integratedLufs! - 1e-9);
+  });
+  it("the strike (noise burst plus tone) is brighter than the body (tone)", () => {
+    expect(m.strike.centroidHz).toBeGreaterThan(m.body!.centroidHz);
+  });
+  it("a 0.5 amplitude 1 kHz sine file reads -6.02 dBFS peak, -9.03 dBFS RMS, 3.01 dB crest (handbook)", () => {
+    const s = measureBytes(encodeWav([sine(fs, 1, 1000, 0.5, 0, 0.05)], { sampleRate: fs, bits: 32, float: true }));
+    expect(s.samplePeakDbfs).toBeCloseTo(-6.02, 2);
+    expect(s.rmsDbfs).toBeCloseTo(-9.03 - 0.2, 0); // the 50 ms tapers lower the RMS slightly
+    expect(s.stereoCorrelation).toBeNull();
+  });
+  it("silence is measured, not refused, with the silence level and a warning", () => {
+    const s = measureBytes(encodeWav([new Float32Array(4800)], { sampleRate: fs, bits: 16 }));
+    expect(s.samplePeakDbfs).toBe(SILENCE_DB);
+    expect(s.warnings.join()).toMatch(/silent/);
+  });
+  it("clipping is counted and warned about", () => {
+    const x = sine(fs, 0.2, 100, 1.5);
+    const s = measureBytes(encodeWav([x], { sampleRate: fs, bits: 16 }));
+    expect(s.clippedRuns).toBeGreaterThan(30);
+    expect(s.warnings.join()).toMatch(/clipped/);
+  });
+  it("a truncated file is measured and flagged; a refused one comes back with its code", () => {
+    const t = tryMeasureBytes(bytes.subarray(0, bytes.length - 3000));
+    expect(t.ok && t.measurement.truncated).toBe(true);
+    const r = tryMeasureBytes(new Uint8Array([1, 2, 3]));
+    expect(r).toMatchObject({ ok: false, code: "not-riff" });
+  });
+  it("measure() on decoded 44.1 kHz 16-bit mono works the same way", () => {
+    const d = decodeWav(encodeWav([hit(44100, 0.8, { f: 200, tau: 0.05, leadSec: 0.005 })], { sampleRate: 44100, bits: 16 }));
+    const mm = measure(d);
+    expect(Math.abs(mm.onsetMs - 5)).toBeLessThanOrEqual(1);
+    expect(Math.abs(mm.pitchHz! / 200 - 1)).toBeLessThan(0.01);
+  });
+});
+
+describe("computePeaks (min/max per bucket over all channels)", () => {
+  it("returns the extremes of each span", () => {
+    const a = Float32Array.from([0, 0.5, -0.25, 0, 0.1, 0.2, 0, 0]);
+    const b = Float32Array.from([0, 0, 0, -0.75, 0, 0, 0.9, 0]);
+    expect(computePeaks({ channels: [a, b] }, 4)).toEqual({ min: [0, -0.75, 0, 0], max: [0.5, 0, Math.fround(0.2), Math.fround(0.9)] });
+  });
+});
