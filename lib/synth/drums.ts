@@ -54,6 +54,8 @@ export interface RenderOptions {
   seconds?: number;
   /** level spread between takes in dB (standard deviation; default 0.6) */
   takeSpreadDb?: number;
+  /** preamp and room noise floor in dBFS RMS (default NOISE_FLOOR_DBFS); null for none */
+  noiseFloorDbfs?: number | null;
 }
 
 export interface KickSpec { diameterIn: number; depthIn: number; tuneHz: number; beater: "felt" | "plastic" }
@@ -318,7 +320,9 @@ function cymbal(s: Src, o: CymbalOpts): void {
     if (f < o.fLo * 0.5) continue;
     const [gl, gr] = pan(s.rng, 0.8);
     addMode(s.L, s.R, s.sr, {
-      freq: f, amp: g * 0.12 * contactWeight(f, o.contactT) * (0.6 + 0.8 * s.rng.next()),
+      // a small plate radiates poorly at low frequencies (radiation efficiency grows steeply with frequency
+      // below coincidence; Cremer & Heckl, Structure-Borne Sound; from memory)
+      freq: f, amp: g * 0.12 * contactWeight(f, o.contactT) * Math.min(1, Math.pow(f / 600, 2)) * (0.6 + 0.8 * s.rng.next()),
       tau: o.tau1k * Math.pow(1000 / f, o.tauExp) * (0.8 + 0.4 * s.rng.next()), gainL: gl, gainR: gr, start: s.pre,
       phase: s.rng.next() * 2 * Math.PI,
     });
@@ -583,7 +587,8 @@ export function renderSound(sound: SoundSpec, opts: RenderOptions): Float32Array
     outs.push(x);
   }
   // preamp and room noise floor, then a short fade at the very end (as exported one-shots are)
-  const floor = dbToGain(NOISE_FLOOR_DBFS);
+  const floorDb = opts.noiseFloorDbfs === undefined ? NOISE_FLOOR_DBFS : opts.noiseFloorDbfs;
+  const floor = floorDb === null ? 0 : dbToGain(floorDb);
   const nrng = mrng.fork("floor");
   const fade = Math.min(n, Math.round(0.03 * sr));
   const result: Float32Array[] = [];
