@@ -12,6 +12,8 @@ import { buildDefaultKit } from "../lib/audit/kits";
 import { parseKitFile, parseLayoutFile, SchemaError } from "../lib/audit/schema";
 import { auditToSmf } from "../lib/audit/smf";
 import { TEMPLATE_NAMES, getTemplate } from "../lib/audit/templates";
+import { tryMeasureBytes } from "../lib/audio";
+import { catalogueSamples, type CatalogueSampleInput } from "../lib/catalog/catalogue";
 import type { AuditResult, CatalogueInstrument, Kit, Layout, PlayFinding } from "../lib/audit/types";
 
 const USAGE = `usage: kitwright audit --layout <layout.json | template> --catalogue <folder | catalogue.json>
@@ -95,21 +97,9 @@ async function wavFiles(dir: string): Promise<string[]> {
 
 /** Catalogue a folder as `kitwright catalogue` does: measure every WAV (lib/audio), sort them (lib/catalog). */
 async function catalogueFolder(dir: string, warn: (s: string) => void): Promise<CatalogueInstrument[]> {
-  let mod: Record<string, unknown>;
-  try {
-    mod = (await import("../lib/catalog/catalogue")) as Record<string, unknown>;
-  } catch (e) {
-    throw new UsageError(
-      `cataloguing a folder needs lib/catalog/catalogue.ts, which could not be loaded (${(e as Error).message}); ` +
-        `pass a catalogue JSON (kitwright.catalogue/v1) with --catalogue instead`,
-    );
-  }
-  const catalogueSamples = mod.catalogueSamples as ((samples: unknown[], opts?: unknown) => unknown) | undefined;
-  if (typeof catalogueSamples !== "function") throw new UsageError("lib/catalog/catalogue.ts has no catalogueSamples()");
-  const { tryMeasureBytes } = await import("../lib/audio");
   const files = await wavFiles(dir);
   if (files.length === 0) throw new UsageError(`no .wav files under ${dir}`);
-  const samples: unknown[] = [];
+  const samples: CatalogueSampleInput[] = [];
   const pitch = new Map<string, number>();
   for (const file of files) {
     const rel = path.relative(dir, file).split(path.sep).join("/");
@@ -122,11 +112,11 @@ async function catalogueFolder(dir: string, warn: (s: string) => void): Promise<
     samples.push({ id: rel, path: rel, measurement: m.measurement });
     if (m.measurement.pitchHz !== null) pitch.set(rel, m.measurement.pitchHz);
   }
-  const result = await catalogueSamples(samples);
+  const result = catalogueSamples(samples);
   const reading = readCatalogue(result);
   for (const p of reading.problems) warn(`catalogue: ${p}`);
   // Instrument pitch (to order toms high to low): median measured pitch of its centre hits, else of all its samples.
-  const entries = (result as { samples?: Array<{ id: string; instrumentKey: string; articulation: string }> }).samples ?? [];
+  const entries = result.samples;
   for (const inst of reading.instruments) {
     const mine = entries.filter((e) => e.instrumentKey === inst.id && pitch.has(e.id));
     const centre = mine.filter((e) => e.articulation === "centre");

@@ -1,8 +1,10 @@
 // Default kits: when no kit is given, fill the slots a layout expects from a catalogue.
 //
 // One slot per catalogued instrument: each slot the layout expects takes the next unused instrument of its
-// family, in catalogue order, except toms, which go from high to low measured pitch (common practice, no
-// published source: "toms are ordered from high to low pitch"); toms without a pitch come after, by name.
+// family. Toms go from high to low measured pitch (common practice, no published source: "toms are ordered
+// from high to low pitch"; toms without a pitch come after, by name). Other families take the instrument with
+// the most recorded articulations first, then the most samples, then catalogue order. Percussion slots
+// (hand drum, cowbell, shaker, other) first take an instrument whose name carries the slot's word.
 // An instrument is never used twice; expected slots with no instrument left stay empty (their pads go
 // silent); instruments no slot asked for are appended as extra slots so the kit holds all of them.
 
@@ -71,6 +73,17 @@ function namedForOtherSlot(i: CatalogueInstrument, family: Family, expected: Lay
   return expected.some((s) => s.family === family && slotWords(s).some((w) => n.includes(w)));
 }
 
+function recordedCount(i: CatalogueInstrument): number {
+  return new Set(i.articulations.filter((a) => a.layers.some((l) => l.sampleIds.length > 0)).map((a) => a.articulation)).size;
+}
+function sampleCount(i: CatalogueInstrument): number {
+  return i.articulations.reduce((s, a) => s + a.layers.reduce((t, l) => t + l.sampleIds.length, 0), 0);
+}
+/** Other families: the instrument with the most recorded articulations first, then the most samples (stable). */
+function richerFirst(a: CatalogueInstrument, b: CatalogueInstrument): number {
+  return recordedCount(b) - recordedCount(a) || sampleCount(b) - sampleCount(a);
+}
+
 function tomOrder(a: CatalogueInstrument, b: CatalogueInstrument): number {
   const pa = a.pitchHz ?? null;
   const pb = b.pitchHz ?? null;
@@ -88,7 +101,7 @@ export function buildDefaultKit(layout: Layout, catalogue: Catalogue, name = `De
     list.push(inst);
     byFamily.set(inst.family, list);
   }
-  byFamily.get("tom")?.sort(tomOrder);
+  for (const [f, list] of byFamily) list.sort(f === "tom" ? tomOrder : richerFirst);
   const used = new Set<string>();
   const expected = expectedSlots(layout);
   const chosen = new Map<string, CatalogueInstrument>();
