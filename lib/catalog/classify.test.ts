@@ -99,7 +99,10 @@ describe("nameSoundConflict", () => {
   });
   it("mild between alike families or with low confidence; none when they agree or the name says nothing", () => {
     expect(nameSoundConflict({ family: "crash" }, sound("china", 0.8)).level).toBe("mild");
-    expect(nameSoundConflict({ family: "kick" }, sound("crash", 0.3)).level).toBe("mild");
+    expect(nameSoundConflict({ family: "kick" }, sound("crash", 0.55)).level).toBe("mild");
+    // a cross-stick's woody click resembles a cowbell (common practice)
+    expect(nameSoundConflict({ family: "snare", articulation: "cross-stick" }, sound("cowbell", 0.9)).level).toBe("mild");
+    expect(nameSoundConflict({ family: "snare", articulation: "centre" }, sound("cowbell", 0.9)).level).toBe("strong");
     expect(nameSoundConflict({ family: "ride" }, sound("ride", 0.9, "bow")).level).toBe("none");
     expect(nameSoundConflict({ family: null }, sound("ride", 0.9)).level).toBe("none");
     expect(nameSoundConflict({ family: "ride", articulation: "bell" }, sound("ride", 0.9, "bow")).level).toBe("mild");

@@ -6,8 +6,9 @@
 //   kick      fundamental about 40-100 Hz, body energy low (centroid under ~400 Hz), tonal body, decay 0.15-1.2 s
 //   snare     body fundamental about 150-330 Hz with a strong noise part from the wires (high flatness), decay 0.15-1 s
 //   tom       tonal (low flatness), fundamental about 60-330 Hz, moderate decay 0.3-2 s, body under ~600 Hz
-//   hi-hat    bright (centroid over ~4 kHz), noisy; closed under ~0.3 s, open longer, pedal "chick" shortest
-//   crash     bright and noisy with a long wash, decay over ~1.5 s
+//   hi-hat    small thick cymbals: the brightest (centroid over ~6 kHz), noisy; closed under ~0.3 s, open up to a
+//             few seconds, pedal "chick" shortest
+//   crash     bright (centroid ~2.5-8 kHz) and noisy with a long wash, decay over ~1.5 s
 //   ride      long decay (over ~2 s) with a clearer "ping": less noisy at the strike than a crash
 //   china     trashy: the noisiest cymbal, darker centroid than a crash, decay 1-4 s
 //   splash    small cymbal: bright, decay about 0.4-1.5 s
@@ -70,8 +71,8 @@ const RULES: Record<Exclude<Family, "other">, Rule[]> = {
   kick: [["pitch", 35, 90, 0.4, 3], ["bc", 40, 350, 0.7, 2], ["bf", 0, 0.25, 0.12, 1], ["decay", 0.15, 0.9, 0.6, 1]],
   snare: [["pitch", 140, 330, 0.5, 1.5], ["sf", 0.3, 0.85, 0.12, 3], ["bc", 300, 3500, 0.8, 1], ["decay", 0.12, 1.0, 0.8, 1]],
   tom: [["pitch", 70, 330, 0.5, 2.5], ["bf", 0, 0.2, 0.1, 2], ["bc", 60, 700, 0.7, 1.5], ["decay", 0.3, 2.0, 0.8, 1]],
-  "hi-hat": [["sc", 4000, 14000, 0.6, 2.5], ["sf", 0.3, 0.9, 0.12, 1.5], ["bc", 3000, 14000, 0.7, 1], ["decay", 0.03, 0.9, 0.7, 2]],
-  crash: [["sc", 2500, 9000, 0.6, 1.5], ["sf", 0.35, 0.9, 0.12, 1.5], ["bf", 0.3, 0.6, 0.12, 1.5], ["bc", 3000, 9000, 0.7, 1], ["decay", 1.5, 7, 0.7, 3]],
+  "hi-hat": [["sc", 6000, 16000, 0.6, 2.5], ["sf", 0.3, 0.9, 0.12, 1.5], ["bc", 3000, 14000, 0.7, 1], ["decay", 0.03, 2.5, 0.7, 1.5]],
+  crash: [["sc", 2500, 8000, 0.6, 1.5], ["sf", 0.35, 0.9, 0.12, 1.5], ["bf", 0.3, 0.6, 0.12, 1.5], ["bc", 3000, 9000, 0.7, 1], ["decay", 1.5, 7, 0.7, 3]],
   ride: [["decay", 2.0, 10, 0.7, 2.5], ["sf", 0.08, 0.4, 0.1, 2], ["bc", 2000, 8000, 0.7, 1], ["bf", 0.12, 0.5, 0.12, 1]],
   china: [["decay", 1.0, 4, 0.7, 2], ["bf", 0.6, 0.95, 0.1, 2.5], ["sc", 1800, 7000, 0.6, 1], ["bc", 1500, 4500, 0.7, 1]],
   splash: [["decay", 0.5, 1.8, 0.6, 2.5], ["sc", 4000, 12000, 0.6, 1.5], ["bf", 0.3, 0.9, 0.12, 1], ["bc", 4000, 12000, 0.7, 1]],
@@ -305,16 +306,18 @@ export interface NameSoundConflict {
   message: string;
 }
 
-/** Flags a sample whose name and sound disagree: strongly when the families are unlike and the sound is confident. */
+/** Flags a sample whose name and sound disagree: strongly when the families are unlike and the sound is confident (>= 0.6 by default). */
 export function nameSoundConflict(
   name: { family: Family | null; articulation?: Articulation | null },
   sound: Pick<SoundSuggestion, "family" | "articulation" | "confidence" | "reasons">,
   opts: { minConfidence?: number } = {},
 ): NameSoundConflict {
-  const minConf = opts.minConfidence ?? 0.5;
+  const minConf = opts.minConfidence ?? 0.6;
   if (!name.family) return { level: "none", message: "" };
   if (name.family !== sound.family) {
-    const alike = SOUND_GROUPS.some((g) => g.includes(name.family!) && g.includes(sound.family));
+    // a cross-stick or rim click is a short woody click with a mid-range peak: it resembles a cowbell or block
+    const click = (name.articulation === "cross-stick" || name.articulation === "rim-click") && (sound.family === "cowbell" || sound.family === "other");
+    const alike = click || SOUND_GROUPS.some((g) => g.includes(name.family!) && g.includes(sound.family));
     const level = !alike && sound.confidence >= minConf ? "strong" : "mild";
     return {
       level,

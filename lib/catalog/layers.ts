@@ -145,7 +145,10 @@ export function sortLayers(members: LayerMember[], opts: LayerOptions = {}): Lay
   if (hints && hints.ranks.length > 1) {
     k = Math.min(hints.ranks.length, unique);
     countFrom = "names";
-    criterion = `${hints.ranks.length} velocity marks in the names (${hints.scheme === "v" ? "v" : ""}${hints.ranks.join(", ")})`;
+    const DYN = ["", "ppp", "pp", "p", "mp", "mf", "f", "ff", "fff"];
+    const WORD = ["", "soft", "medium", "hard", "harder"];
+    const label = (r: number) => (hints.scheme === "v" ? `v${r}` : hints.scheme === "dynamic" ? DYN[r] ?? String(r) : hints.scheme === "word" ? WORD[r] ?? String(r) : String(r));
+    criterion = `${hints.ranks.length} velocity marks in the names (${hints.ranks.map(label).join(", ")})`;
   } else {
     const g = layerCountFromGaps(values, opts);
     k = g.k;

@@ -190,6 +190,7 @@ art("closed", ["closed", "cl", "clsd", "cls", "tight", "shut", "clsed", "closd"]
 art("quarter-open", ["quarter", "qtr", "loose", "slightly", "semiopen", "semi", "threequarter"]);
 art("half-open", ["half", "halfopen", "ho", "hlf", "hopen"]);
 art("open", ["open", "op", "opn", "opened", "wide"]);
+art("foot-splash", ["footsplash", "splashfoot", "fsplash"]);
 art("pedal", ["pedal", "foot", "chick", "ped", "pdl", "pedl", "chic"]);
 art("hit", ["hit", "hits", "shot", "oneshot", "strike", "normal", "norm", "std"]);
 
@@ -260,7 +261,7 @@ const NOISE_WORDS = new Set([
   "the", "and", "of", "a", "with", "new", "final", "take", "takes", "cymbal", "cymbals", "set", "library", "pack",
   "hits", "hit", "articulations", "processed", "raw", "clean", "v", "vel", "x", "l", "r", "left", "right",
   "dynamic", "dynamics", "mixed", "all", "misc", "various", "audio", "untitled", "file", "files", "track", "recording", "rec",
-  "bounce", "export", "exported", "copy", "edit", "edited", "sound", "sounds", "sfx", "wavs", "tmp", "temp", "folder",
+  "percussion", "perc", "bounce", "export", "exported", "copy", "edit", "edited", "sound", "sounds", "sfx", "wavs", "tmp", "temp", "folder",
 ]);
 
 /** Families where several instruments of one kind are usual, so "tom 2" or "crash 1" names the instrument. */
@@ -547,6 +548,11 @@ export function parseName(path: string): NameInfo {
   // name an articulation, a layer or a mic add nothing.
   const stem: string[] = [];
   for (const f of [...folders, file]) for (const w of f.stem) if (!stem.includes(w)) stem.push(w);
+  // "22in" says nothing more when a size "22x18" is already there
+  for (let i = stem.length - 1; i >= 0; i--) {
+    const inch = /^(\d+(?:\.\d+)?)in$/.exec(stem[i]!);
+    if (inch && stem.some((w) => w.startsWith(`${inch[1]}x`))) stem.splice(i, 1);
+  }
 
   return { tokens, folderTokens, family, familyFrom, articulation, articulationFrom, stem, velocity, roundRobin, mic: micPos };
 }
