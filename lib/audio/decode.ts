@@ -172,10 +172,6 @@ export function decodeWav(bytes: Uint8Array, opts: DecodeOptions = {}): DecodedW
   if (magic !== "RIFF") throw new WavRefusal("not-riff", `not a WAV file: ${magicName(magic)}`);
   const form = fourcc(bytes, 8);
   if (form !== "WAVE") throw new WavRefusal("not-riff", `RIFF file of type "${form}", not "WAVE"`);
-  const riffSize = u32(bytes, 4);
-  if (riffSize + 8 !== bytes.length && riffSize + 8 !== bytes.length - 1) {
-    warnings.push(`RIFF size field says ${riffSize + 8} bytes, file has ${bytes.length}`);
-  }
 
   const chunks = walkChunks(bytes);
   const fmtRef = chunks.find((c) => c.id === "fmt ");
@@ -195,6 +191,10 @@ export function decodeWav(bytes: Uint8Array, opts: DecodeOptions = {}): DecodedW
     );
   }
   const truncated = missingBytes > 0;
+  const riffSize = u32(bytes, 4);
+  if (!truncated && riffSize + 8 !== bytes.length && riffSize + 8 !== bytes.length - 1) {
+    warnings.push(`RIFF size field says ${riffSize + 8} bytes, file has ${bytes.length}`);
+  }
   if (truncated) warnings.push(`truncated: ${missingBytes} bytes (${seconds(missingBytes)} s) of the data chunk missing; measured what is there`);
   const frames = Math.floor(dataRef.available / fmt.blockAlign);
   if (frames === 0) {
