@@ -99,8 +99,10 @@ export function indexCatalogue(catalogue: Catalogue | ReadonlyMap<string, Catalo
   return m;
 }
 
+// Objects are built with Object.assign rather than object spread: some TypeScript transforms turn spreads
+// into helper calls that cost tens of microseconds each, which matters for 128-pad audits.
 function emptyPlay(partial: Partial<PlayFinding>): PlayFinding {
-  return {
+  return Object.assign({
     outcome: "silent",
     requested: null,
     plays: null,
@@ -116,8 +118,7 @@ function emptyPlay(partial: Partial<PlayFinding>): PlayFinding {
     velocityGaps: [{ low: 1, high: 127 }],
     minRoundRobins: 0,
     notes: [],
-    ...partial,
-  };
+  }, partial);
 }
 
 /**
@@ -158,13 +159,13 @@ export function runAudit(
     if (slot.instrumentId === null) {
       const reason = `slot "${slot.name}" is empty`;
       noteSlotProblem("empty-slot", slotId, reason, askerId);
-      return emptyPlay({ ...base, reason });
+      return emptyPlay(Object.assign({ reason }, base));
     }
     const inst = instruments.get(slot.instrumentId);
     if (!inst) {
       const reason = `slot "${slot.name}" holds instrument "${slot.instrumentId}", which is not in the catalogue`;
       noteSlotProblem("unknown-instrument", slotId, reason, askerId);
-      return emptyPlay({ ...base, instrumentId: slot.instrumentId, reason });
+      return emptyPlay(Object.assign({ instrumentId: slot.instrumentId, reason }, base));
     }
     const key = `${slotId}|${requested}`;
     const cached = playCache.get(key);
@@ -180,10 +181,10 @@ export function runAudit(
     }
     const r = resolveArticulation(inst.family, requested, rec.keys(), slot.standIns);
     if (r.overrideIgnored) notes.push(`override to ${r.overrideIgnored} ignored: ${r.overrideIgnored} is not recorded`);
-    const common = { ...base, instrumentId: inst.id, instrumentName: inst.name, family: inst.family, notes };
+    const common = Object.assign({ instrumentId: inst.id, instrumentName: inst.name, family: inst.family, notes }, base);
     let f: PlayFinding;
     if (r.plays === null) {
-      f = emptyPlay({ ...common, reason: rec.size === 0 ? `"${inst.name}" has no recorded samples` : `nothing recorded on "${inst.name}" can stand in for ${requested}` });
+      f = emptyPlay(Object.assign({}, common, { reason: rec.size === 0 ? `"${inst.name}" has no recorded samples` : `nothing recorded on "${inst.name}" can stand in for ${requested}` }));
     } else {
       // Of several microphones, report the one with the most layers (first listed on a tie).
       const entries = rec.get(r.plays)!;
@@ -199,8 +200,7 @@ export function runAudit(
           roundRobins: l.sampleIds.length,
         }))
         .sort((a, b) => a.velocityLow - b.velocityLow || a.index - b.index);
-      f = emptyPlay({
-        ...common,
+      f = emptyPlay(Object.assign({}, common, {
         outcome: r.outcome,
         plays: r.plays,
         standIn: r.outcome === "stand-in" ? { path: r.path, cost: r.cost, source: r.source === "override" ? "override" : "graph" } : null,
@@ -212,14 +212,14 @@ export function runAudit(
           127,
         ),
         minRoundRobins: layers.reduce((m, l) => Math.min(m, l.roundRobins), Infinity),
-      });
+      } as Partial<PlayFinding>));
       if (layers.length === 0) f.minRoundRobins = 0;
     }
     playCache.set(key, f);
     return f;
   }
 
-  const clonePlay = (p: PlayFinding): PlayFinding => ({ ...p, notes: [...p.notes] });
+  const clonePlay = (p: PlayFinding): PlayFinding => Object.assign({}, p, { notes: p.notes.slice() });
 
   function auditPad(pad: Pad): PadFinding {
     const where = {
@@ -233,9 +233,9 @@ export function runAudit(
     };
     if (!pad.target) {
       addConflict("no-target", `pad "${pad.label}" is not aimed at any kit slot`, [pad.id], pad.note, pad.channel);
-      return { ...where, ...emptyPlay({ reason: "the pad has no target" }) };
+      return Object.assign(where, emptyPlay({ reason: "the pad has no target" }));
     }
-    return { ...where, ...clonePlay(play(pad.target.slotId, pad.target.articulation, pad.id)) };
+    return Object.assign(where, clonePlay(play(pad.target.slotId, pad.target.articulation, pad.id)));
   }
 
   // ---- pads
@@ -264,7 +264,7 @@ export function runAudit(
         addConflict("pedal-zone-out-of-range", `pedal zone ${i + 1} (${z.low}-${z.high}) is not a range inside 0-127`, [`pedal-zone-${i + 1}`]);
       }
       const p = clonePlay(play(hh.slotId, z.articulation, `pedal-zone-${i + 1}`));
-      return { zoneIndex: i, low: z.low, high: z.high, recorded: p.outcome === "direct", ...p };
+      return Object.assign({ zoneIndex: i, low: z.low, high: z.high, recorded: p.outcome === "direct" }, p);
     });
     for (let i = 0; i < hh.zones.length; i++) {
       for (let j = i + 1; j < hh.zones.length; j++) {

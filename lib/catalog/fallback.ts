@@ -257,7 +257,7 @@ export function resolveArticulation(
 }
 
 function cloneResolution(r: Resolution): Resolution {
-  return { ...r, path: [...r.path] };
+  return Object.assign({}, r, { path: r.path.slice() });
 }
 
 function resolveUncached(family: Family, requested: Articulation, rec: Set<Articulation>, override: Articulation | undefined): Resolution {
@@ -307,7 +307,7 @@ function resolveUncached(family: Family, requested: Articulation, rec: Set<Artic
 }
 
 function withOverride(r: Resolution, override: Articulation | undefined): Resolution {
-  return override !== undefined ? { ...r, overrideIgnored: override } : r;
+  return override !== undefined ? Object.assign({}, r, { overrideIgnored: override }) : r;
 }
 
 function round6(x: number): number {
