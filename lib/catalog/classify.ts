@@ -31,6 +31,8 @@ export interface SoundSuggestion {
   source: "rules" | "labels";
   /** The other families considered, best first, with their score (rules) or vote share (labels). */
   alternatives: { family: Family; score: number }[];
+  /** How well each family fits, 0..1: rule score (rules) or neighbour vote share (labels). */
+  familyScores: Partial<Record<Family, number>>;
 }
 
 // ---------------------------------------------------------------------------------------------------------------
@@ -62,24 +64,31 @@ function feat(m: Measurement): Feat {
 }
 
 type Key = keyof Feat;
-/** [feature, low, high, width outside the band (octaves for Hz/s/ms, units for flatness), weight] */
-type Rule = [Key, number, number, number, number];
+/** [feature, low, high, width outside the band (octaves for Hz/s/ms, units for flatness), weight, score when missing] */
+type Rule = [Key, number, number, number, number, number?];
 
-const LOG_KEYS = new Set<Key>(["decay", "sc", "bc", "pitch", "attack", "rolloff"]);
+const LOG_KEYS = new Set<Key>(["decay", "sc", "bc", "pitch", "attack", "rolloff", "sf", "bf"]);
 
+/** Cymbals have little energy below ~200 Hz: a strong low peak speaks against them; no peak at all is normal. */
+const CYMBAL_PITCH: Rule = ["pitch", 200, 20000, 0.7, 1, 1];
+
+// Flatness is judged on a log scale (octaves of the ratio): white noise reads about 0.85 on the amplitude spectrum
+// (STANDARDS.md), but drum and cymbal noise is coloured (it rolls off), which lowers the geometric mean a lot:
+// tonal drums sit near 0.01-0.05, a snare's wires lift it to roughly 0.08-0.5, cymbal wash roughly 0.2-0.9
+// (from memory; common practice, no published source).
 const RULES: Record<Exclude<Family, "other">, Rule[]> = {
-  kick: [["pitch", 35, 90, 0.4, 3], ["bc", 40, 350, 0.7, 2], ["bf", 0, 0.25, 0.12, 1], ["decay", 0.15, 0.9, 0.6, 1]],
-  snare: [["pitch", 140, 330, 0.5, 1.5], ["sf", 0.3, 0.85, 0.12, 3], ["bc", 300, 3500, 0.8, 1], ["decay", 0.12, 1.0, 0.8, 1]],
-  tom: [["pitch", 70, 330, 0.5, 2.5], ["bf", 0, 0.2, 0.1, 2], ["bc", 60, 700, 0.7, 1.5], ["decay", 0.3, 2.0, 0.8, 1]],
-  "hi-hat": [["sc", 6000, 16000, 0.6, 2.5], ["sf", 0.3, 0.9, 0.12, 1.5], ["bc", 3000, 14000, 0.7, 1], ["decay", 0.03, 2.5, 0.7, 1.5]],
-  crash: [["sc", 2500, 8000, 0.6, 1.5], ["sf", 0.35, 0.9, 0.12, 1.5], ["bf", 0.3, 0.6, 0.12, 1.5], ["bc", 3000, 9000, 0.7, 1], ["decay", 1.5, 7, 0.7, 3]],
-  ride: [["decay", 2.0, 10, 0.7, 2.5], ["sf", 0.08, 0.4, 0.1, 2], ["bc", 2000, 8000, 0.7, 1], ["bf", 0.12, 0.5, 0.12, 1]],
-  china: [["decay", 1.0, 4, 0.7, 2], ["bf", 0.6, 0.95, 0.1, 2.5], ["sc", 1800, 7000, 0.6, 1], ["bc", 1500, 4500, 0.7, 1]],
-  splash: [["decay", 0.5, 1.8, 0.6, 2.5], ["sc", 4000, 12000, 0.6, 1.5], ["bf", 0.3, 0.9, 0.12, 1], ["bc", 4000, 12000, 0.7, 1]],
-  stack: [["decay", 0.1, 0.8, 0.6, 2], ["sc", 2500, 9000, 0.6, 1], ["bf", 0.45, 0.95, 0.1, 2], ["bc", 2000, 8000, 0.7, 0.5]],
-  cowbell: [["pitch", 450, 1000, 0.4, 3], ["bf", 0, 0.2, 0.1, 2], ["bc", 500, 2500, 0.6, 1], ["decay", 0.1, 0.8, 0.7, 1]],
-  "hand-drum": [["pitch", 100, 450, 0.5, 2], ["bf", 0, 0.25, 0.1, 1.5], ["bc", 150, 1000, 0.7, 1], ["decay", 0.08, 0.6, 0.6, 1.5]],
-  shaker: [["decay", 0.02, 0.3, 0.6, 2], ["sc", 4000, 14000, 0.6, 1.5], ["sf", 0.5, 0.95, 0.1, 2], ["attack", 5, 60, 0.8, 1.5]],
+  kick: [["pitch", 35, 90, 0.4, 3], ["bc", 40, 450, 0.7, 2], ["bf", 0.0005, 0.06, 1.2, 1], ["decay", 0.15, 1.0, 0.6, 1]],
+  snare: [["pitch", 140, 330, 0.5, 1.5], ["sf", 0.08, 0.5, 0.8, 3], ["bc", 300, 4000, 0.8, 1], ["decay", 0.12, 1.0, 0.8, 1]],
+  tom: [["pitch", 70, 330, 0.5, 2.5], ["bf", 0.0005, 0.05, 1, 2], ["bc", 60, 700, 0.7, 1.5], ["decay", 0.3, 2.5, 0.8, 1]],
+  "hi-hat": [["sc", 6000, 16000, 0.6, 2.5], ["sf", 0.2, 0.9, 0.8, 1.5], ["bc", 3000, 14000, 0.7, 1], ["decay", 0.03, 2.5, 0.7, 1.5], CYMBAL_PITCH],
+  crash: [["sc", 2500, 8000, 0.6, 1.5], ["sf", 0.2, 0.9, 0.8, 1.5], ["bf", 0.2, 0.6, 0.8, 1.5], ["bc", 3000, 9000, 0.7, 1], ["decay", 1.5, 7, 0.7, 3], CYMBAL_PITCH],
+  ride: [["decay", 2.0, 10, 0.7, 2.5], ["sf", 0.04, 0.25, 0.8, 2], ["bc", 2000, 8000, 0.7, 1], ["bf", 0.06, 0.4, 0.8, 1], CYMBAL_PITCH],
+  china: [["decay", 1.0, 4, 0.7, 2], ["bf", 0.35, 0.95, 0.8, 2.5], ["sc", 1800, 7000, 0.6, 1], ["bc", 1500, 4500, 0.7, 1], CYMBAL_PITCH],
+  splash: [["decay", 0.5, 1.8, 0.6, 2.5], ["sc", 4000, 12000, 0.6, 1.5], ["bf", 0.2, 0.9, 0.8, 1], ["bc", 4000, 12000, 0.7, 1], CYMBAL_PITCH],
+  stack: [["decay", 0.1, 0.8, 0.6, 2], ["sc", 2500, 9000, 0.6, 1], ["bf", 0.3, 0.95, 0.8, 2], ["bc", 2000, 8000, 0.7, 0.5], CYMBAL_PITCH],
+  cowbell: [["pitch", 450, 1000, 0.4, 3], ["bf", 0.0005, 0.06, 1, 2], ["bc", 500, 2500, 0.6, 1], ["decay", 0.1, 0.8, 0.7, 1]],
+  "hand-drum": [["pitch", 100, 450, 0.5, 2], ["bf", 0.0005, 0.08, 1, 1.5], ["bc", 150, 1000, 0.7, 1], ["decay", 0.08, 0.6, 0.6, 1.5]],
+  shaker: [["decay", 0.02, 0.3, 0.6, 2], ["sc", 4000, 14000, 0.6, 1.5], ["sf", 0.3, 0.95, 0.8, 2], ["attack", 5, 60, 0.8, 1.5]],
 };
 
 /** Families that are less common in drum kits start slightly behind (common practice). */
@@ -87,9 +96,9 @@ const PRIOR: Partial<Record<Family, number>> = { stack: 0.9, "hand-drum": 0.9, s
 const OTHER_SCORE = 0.35;
 const RULE_CAP = 0.85;
 
-function membership(f: Feat, [key, lo, hi, width]: Rule): number {
+function membership(f: Feat, [key, lo, hi, width, , missing]: Rule): number {
   const raw = f[key];
-  if (raw === null || !Number.isFinite(raw)) return key === "pitch" ? 0.4 : 0.5;
+  if (raw === null || !Number.isFinite(raw)) return missing ?? (key === "pitch" ? 0.4 : 0.5);
   let d: number;
   if (LOG_KEYS.has(key)) {
     const x = Math.log2(Math.max(raw, 1e-6));
@@ -139,7 +148,8 @@ export function articulationFromSound(m: Measurement, family: Family): { articul
   const d = fmtS(f.decay);
   switch (family) {
     case "hi-hat":
-      if (f.decay < 0.1 && f.sc < 7000) return { articulation: "pedal", reason: `very short (${d}) and less bright: pedal chick` };
+      // the pedal "chick" has no stick transient: short and darker than stick hits
+      if (f.decay < 0.25 && f.sc < 7000) return { articulation: "pedal", reason: `short (${d}) and darker (${fmtHz(f.sc)}): pedal chick` };
       if (f.decay < 0.3) return { articulation: "closed", reason: `short decay ${d}: closed` };
       if (f.decay < 0.7) return { articulation: "quarter-open", reason: `decay ${d}: slightly open` };
       if (f.decay < 1.5) return { articulation: "half-open", reason: `decay ${d}: half open` };
@@ -148,16 +158,16 @@ export function articulationFromSound(m: Measurement, family: Family): { articul
     case "china":
     case "splash":
       if (f.decay < (family === "splash" ? 0.25 : 0.5)) return { articulation: "choke", reason: `cymbal stopped after ${d}: choke` };
-      if (f.sf < 0.15 && f.bc > 1200) return { articulation: "bell", reason: `tonal strike (flatness ${f.sf.toFixed(2)}): bell` };
+      if (f.sf < 0.06 && f.bc > 1200) return { articulation: "bell", reason: `tonal strike (flatness ${f.sf.toFixed(2)}): bell` };
       return { articulation: "crash-hit", reason: `full wash, decay ${d}` };
     case "ride":
       if (f.decay < 0.5) return { articulation: "choke", reason: `cymbal stopped after ${d}: choke` };
-      if (f.sf < 0.12 && f.bc > 1000) return { articulation: "bell", reason: `tonal strike (flatness ${f.sf.toFixed(2)}): bell` };
-      if (f.bf > 0.5) return { articulation: "crash-hit", reason: `noisy wash (flatness ${f.bf.toFixed(2)}): crashed` };
+      if (f.sf < 0.06 && f.bc > 1000) return { articulation: "bell", reason: `tonal strike (flatness ${f.sf.toFixed(2)}): bell` };
+      if (f.bf > 0.35) return { articulation: "crash-hit", reason: `noisy wash (flatness ${f.bf.toFixed(2)}): crashed` };
       return { articulation: "bow", reason: "defined ping with moderate wash: bow" };
     case "snare":
-      if (f.decay < 0.25 && f.sf < 0.25 && f.sc >= 700 && f.sc <= 4000) return { articulation: "cross-stick", reason: `short woody click (${d}, flatness ${f.sf.toFixed(2)}): cross-stick` };
-      if (f.sc > 5000 && f.sf > 0.3) return { articulation: "rim-shot", reason: `very bright strike (${fmtHz(f.sc)}): rim shot` };
+      if (f.decay < 0.3 && f.sf < 0.1 && f.sc >= 700 && f.sc <= 4000) return { articulation: "cross-stick", reason: `short woody click (${d}, flatness ${f.sf.toFixed(2)}): cross-stick` };
+      if (f.sc > 5000 && f.sf > 0.15) return { articulation: "rim-shot", reason: `very bright strike (${fmtHz(f.sc)}): rim shot` };
       return { articulation: "centre", reason: "head and wires: centre" };
     case "tom":
       if (f.sc > 5000) return { articulation: "rim-shot", reason: `very bright strike (${fmtHz(f.sc)}): rim shot` };
@@ -169,7 +179,7 @@ export function articulationFromSound(m: Measurement, family: Family): { articul
       return { articulation: "hit", reason: "ringing note" };
     case "hand-drum":
       if (f.decay < 0.1) return { articulation: "mute", reason: `very short (${d}): muted` };
-      if (f.sf > 0.35) return { articulation: "slap", reason: `noisy crack (flatness ${f.sf.toFixed(2)}): slap` };
+      if (f.sf > 0.15) return { articulation: "slap", reason: `noisy crack (flatness ${f.sf.toFixed(2)}): slap` };
       return { articulation: "open-tone", reason: "ringing head: open tone" };
     case "stack":
       return { articulation: "hit", reason: "stack: hit" };
@@ -194,6 +204,7 @@ export function suggestByRules(m: Measurement): SoundSuggestion {
     reasons: [describeSound(m), `rules of thumb: ${best.family} fits best (${best.score.toFixed(2)}), next ${scores[1]!.family} (${scores[1]!.score.toFixed(2)})`, art.reason],
     source: "rules",
     alternatives: scores.slice(1, 4),
+    familyScores: Object.fromEntries(scores.map((x) => [x.family, Math.round(x.score * 1000) / 1000])),
   };
 }
 
@@ -286,6 +297,7 @@ export function suggestFromSound(m: Measurement, model?: LabelModel): SoundSugge
     ],
     source: "labels",
     alternatives: ranked.slice(1).map(([f, v]) => ({ family: f, score: Math.round((v / total) * 100) / 100 })),
+    familyScores: Object.fromEntries(ranked.map(([f, v]) => [f, Math.round((v / total) * 1000) / 1000])),
   };
 }
 
@@ -306,10 +318,14 @@ export interface NameSoundConflict {
   message: string;
 }
 
-/** Flags a sample whose name and sound disagree: strongly when the families are unlike and the sound is confident (>= 0.6 by default). */
+/**
+ * Flags a sample whose name and sound disagree. Strong when the families are unlike and either the named family
+ * fits the sound badly (its score at most 0.6 and at least 0.3 below the best, when scores are given) or,
+ * without scores, the sound is confident (>= 0.6 by default). Otherwise mild.
+ */
 export function nameSoundConflict(
   name: { family: Family | null; articulation?: Articulation | null },
-  sound: Pick<SoundSuggestion, "family" | "articulation" | "confidence" | "reasons">,
+  sound: Pick<SoundSuggestion, "family" | "articulation" | "confidence" | "reasons"> & { familyScores?: Partial<Record<Family, number>> },
   opts: { minConfidence?: number } = {},
 ): NameSoundConflict {
   const minConf = opts.minConfidence ?? 0.6;
@@ -318,7 +334,13 @@ export function nameSoundConflict(
     // a cross-stick or rim click is a short woody click with a mid-range peak: it resembles a cowbell or block
     const click = (name.articulation === "cross-stick" || name.articulation === "rim-click") && (sound.family === "cowbell" || sound.family === "other");
     const alike = click || SOUND_GROUPS.some((g) => g.includes(name.family!) && g.includes(sound.family));
-    const level = !alike && sound.confidence >= minConf ? "strong" : "mild";
+    let sure = sound.confidence >= minConf;
+    if (sound.familyScores) {
+      const best = sound.familyScores[sound.family] ?? 0;
+      const fit = sound.familyScores[name.family] ?? 0;
+      sure = fit <= 0.6 && best - fit >= 0.3;
+    }
+    const level = !alike && sure ? "strong" : "mild";
     return {
       level,
       message: `Named ${name.family} but sounds like ${sound.family} (confidence ${sound.confidence.toFixed(2)}; ${sound.reasons[0] ?? ""}).`,
