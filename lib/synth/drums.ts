@@ -165,11 +165,24 @@ function membrane(s: Src, o: MembraneOpts): void {
   }
 }
 
+/**
+ * Noise for one channel of a close stereo pair: a part common to both microphones plus an independent part
+ * (about 0.75 correlation: the pair hears one source from slightly different places; our assumption).
+ */
+function pairNoise(n: number, s: Src, common: Float64Array | null): Float64Array {
+  const x = whiteNoise(n, s.rng);
+  if (!common) return x;
+  const a = 0.86, b = 0.5;
+  for (let i = 0; i < n; i++) x[i] = a * common[i] + b * x[i];
+  return x;
+}
+
 /** A burst of filtered noise (stick tip, beater click, rim crack). */
 function noiseBurst(s: Src, o: { lo: number; hi: number; tau: number; gain: number; attack?: number; start?: number }): void {
   const n = Math.min(s.L.length, Math.ceil((o.tau * 12 + (o.attack ?? 0.0003)) * s.sr) + s.pre + (o.start ?? 0));
+  const common = whiteNoise(n, s.rng);
   for (const [buf, k] of [[s.L, 0], [s.R, 1]] as const) {
-    const x = whiteNoise(n, s.rng);
+    const x = pairNoise(n, s, common);
     if (o.lo > 20) biquad(x, s.sr, "highpass", o.lo, 0.7);
     biquad(x, s.sr, "lowpass", o.hi, 0.7);
     applyEnvelope(x, s.sr, { start: s.pre + (o.start ?? 0), attack: o.attack ?? 0.0003, tau: o.tau });
@@ -217,8 +230,9 @@ function snareWires(s: Src, sp: SnareSpec, o: { gain: number; tau: number; f0: n
   const n = s.L.length;
   const delay = s.pre + ((sp.depthIn * 0.0254) / SPEED_OF_SOUND) * s.sr; // air column between the heads
   const buzzRate = o.f0;
+  const common = whiteNoise(n, s.rng);
   for (const [buf, k] of [[s.L, 0], [s.R, 1]] as const) {
-    const x = whiteNoise(n, s.rng);
+    const x = pairNoise(n, s, common);
     biquad(x, s.sr, "highpass", 1500, 0.6);
     biquad(x, s.sr, "lowpass", 3500 + 9000 * s.vn, 0.6);
     const dec = Math.exp(-1 / (o.tau * s.sr));
@@ -318,7 +332,7 @@ function cymbal(s: Src, o: CymbalOpts): void {
   for (let n = 2; n < 2 + (o.lowModes ?? 0); n++) {
     const f = (o.lowBase ?? 60) * n * n * (1 + s.rng.gauss() * 0.01);
     if (f < o.fLo * 0.5) continue;
-    const [gl, gr] = pan(s.rng, 0.8);
+    const [gl, gr] = pan(s.rng, 0.5);
     addMode(s.L, s.R, s.sr, {
       // a small plate radiates poorly at low frequencies (radiation efficiency grows steeply with frequency
       // below coincidence; Cremer & Heckl, Structure-Borne Sound; from memory)
@@ -330,7 +344,7 @@ function cymbal(s: Src, o: CymbalOpts): void {
   // the dense inharmonic partials: modal density roughly constant in frequency
   for (let i = 0; i < o.nPartials; i++) {
     const f = o.fLo + (o.fHi - o.fLo) * s.rng.next();
-    const [gl, gr] = pan(s.rng, 0.9);
+    const [gl, gr] = pan(s.rng, 0.5);
     const rayleigh = Math.sqrt(-2 * Math.log(1 - s.rng.next() * 0.999));
     const amp = (g * 0.06 * rayleigh * contactWeight(f, o.contactT) * Math.pow(1000 / Math.max(f, 300), 0.3) * 40) / o.nPartials;
     addMode(s.L, s.R, s.sr, {
@@ -341,28 +355,34 @@ function cymbal(s: Src, o: CymbalOpts): void {
   // the wash: high-frequency energy that builds up after the strike (nonlinear cascade) and decays
   const n = s.L.length;
   const sizzle = o.sizzle ?? 0;
+  // rattle: a random slowly-varying gain (the hi-hat pair or the china's flange chattering), heard by both mics
+  let rattle: Float64Array | null = null;
+  if (sizzle > 0) {
+    rattle = new Float64Array(n);
+    const rateN = Math.max(1, Math.round(s.sr / (o.sizzleRate ?? 40)));
+    let r = 1;
+    let target = 1;
+    for (let i = 0; i < n; i++) {
+      if (i % rateN === 0) target = 1 - sizzle * s.rng.next();
+      r += (target - r) * 0.02;
+      rattle[i] = r;
+    }
+  }
+  const common = whiteNoise(n, s.rng);
   for (const [buf, k] of [[s.L, 0], [s.R, 1]] as const) {
-    const x = whiteNoise(n, s.rng);
+    const x = pairNoise(n, s, common);
     biquad(x, s.sr, "highpass", o.washLo, 0.6);
     biquad(x, s.sr, "highpass", o.washLo, 0.6);
     biquad(x, s.sr, "lowpass", o.washHi, 0.6);
     const dec = Math.exp(-1 / (o.washTau * s.sr));
     const riseK = 1 / (o.washRise * s.sr);
     let e = 1;
-    // rattle: a random slowly-varying gain (the hi-hat pair or the china's flange chattering)
-    let rattle = 1;
-    const rateN = Math.max(1, Math.round(s.sr / (o.sizzleRate ?? 40)));
-    let target = 1;
     for (let i = 0; i < n; i++) {
       if (i < s.pre) { x[i] = 0; continue; }
       const t = i - s.pre;
       e *= dec;
       const rise = 1 - Math.exp(-t * riseK);
-      if (sizzle > 0) {
-        if (t % rateN === 0) target = 1 - sizzle * s.rng.next();
-        rattle += (target - rattle) * 0.02;
-      }
-      x[i] *= e * rise * rattle;
+      x[i] *= e * rise * (rattle ? rattle[i] : 1);
     }
     mixInto(buf, x, g * o.washGain * (k === 0 ? 1 : 0.95), 0);
   }
@@ -422,7 +442,7 @@ function renderCrash(s: Src, c: CymbalSpec, art: CrashArticulation): number {
   }
   cymbal(s, {
     nPartials: 150, fLo: 300, fHi: 16000, tau1k: 0.42 * sz, tauExp: 0.4, contactT: T, lowModes: 6, lowBase: 55 / sz,
-    washGain: 0.5 + 0.6 * vn, washLo: 3000, washHi: 8000 + 6000 * vn, washTau: 0.45 * sz, washRise: 0.012 + 0.02 * vn,
+    washGain: 0.5 + 0.6 * vn, washLo: 3000, washHi: 8000 + 6000 * vn, washTau: 0.45 * sz, washRise: 0.003 + 0.006 * vn,
     gain: art === "bow" ? 0.8 : 1,
   });
   cymbalStick(s, vn, 0.35);
@@ -454,7 +474,7 @@ function renderRide(s: Src, c: CymbalSpec, art: RideArticulation): number {
   cymbal(s, {
     nPartials: 130, fLo: 300, fHi: 15000, tau1k: 0.55 * sz, tauExp: 0.35, contactT: T, lowModes: 5, lowBase: 45 / sz,
     washGain: crash ? 0.5 + 0.3 * vn : 0.12 + 0.15 * vn, washLo: 3500, washHi: 7000 + 5000 * vn, washTau: crash ? 0.6 : 0.5,
-    washRise: crash ? 0.02 : 0.03, gain: 1,
+    washRise: crash ? 0.006 : 0.008, gain: 1,
   });
   partials(s, [1, 1.41, 1.87].map((r, i) => ({ f: 2900 * r * (1 + s.rng.gauss() * 0.03), a: 0.08 / (i + 1), tau: 0.25 })), 1);
   cymbalStick(s, vn, crash ? 0.25 : 0.6);
@@ -582,8 +602,10 @@ export function renderSound(sound: SoundSpec, opts: RenderOptions): Float32Array
     const wet = schroederReverb(x, sr, model.t60, mic === "room" ? 0.45 : 0.3, c * 23);
     const wetGain = dbToGain(model.reverbDb);
     for (let i = 0; i < n; i++) x[i] = (x[i] + wet[i] * wetGain) * dbToGain(model.gainDb);
-    // arrival delay (d / c) plus a small inter-channel offset for spaced pairs
-    delayInPlace(x, (model.distanceM / SPEED_OF_SOUND) * sr + (c === 1 ? model.distanceM * 0.0006 * sr : 0));
+    // arrival delay (d / c); a close pair is coincident, the overhead and room pairs are spaced, so their right
+    // channel arrives a little later (common practice)
+    const spaced = mic === "close" ? 0 : model.distanceM * 0.0004 * sr;
+    delayInPlace(x, (model.distanceM / SPEED_OF_SOUND) * sr + (c === 1 ? spaced : 0));
     outs.push(x);
   }
   // preamp and room noise floor, then a short fade at the very end (as exported one-shots are)
