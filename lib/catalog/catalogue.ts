@@ -206,7 +206,8 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
   }
 
   // 4. health
-  findings.push(...fileHealth(sorted.map((s) => ({ id: s.id, path: s.path, sha256: s.sha256, measurement: s.measurement })), opts.health));
+  const micOf = new Map(work.map((w) => [w.s.id, w.mic]));
+  findings.push(...fileHealth(sorted.map((s) => ({ id: s.id, path: s.path, sha256: s.sha256, measurement: s.measurement, mic: micOf.get(s.id) ?? null })), opts.health));
   findings.push(...conflictHealth(work.filter((w) => w.familySource === "name").map((w) => ({ id: w.s.id, path: w.s.path, conflict: w.conflict }))));
 
   const entries: CatalogueEntry[] = work.map((w) => {

@@ -38,6 +38,11 @@ describe("fileHealth: one finding per defect (thresholds: common practice unless
     expect(f.find((x) => x.code === "late-onset")!.message).toMatch(/25 ms.*few milliseconds/);
     expect(f.find((x) => x.code === "clipping")!.severity).toBe("error");
   });
+  it("distant mics may start later: sound travels ~0.34 m/ms (physics), a room mic 10 m away hears the hit ~29 ms late", () => {
+    const room = (id: string, onsetMs: number, mic: string | null): HealthSample => ({ ...s(id, { onsetMs }), mic });
+    const f = fileHealth([room("room14", 14, "room"), room("room45", 45, "room"), room("close14", 14, "close"), room("oh20", 20, "overhead")]);
+    expect(f.filter((x) => x.code === "late-onset").map((x) => x.sampleIds[0])).toEqual(["room45", "close14"]);
+  });
   it("sortFindings puts errors first", () => {
     const f = sortFindings(fileHealth([s("late", { onsetMs: 25 }), s("clip", { clippedRuns: 1, clippedSamples: 3 })]));
     expect(f.map((x) => x.code)).toEqual(["clipping", "late-onset"]);

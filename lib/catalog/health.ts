@@ -37,7 +37,14 @@ export interface HealthSample {
   path?: string;
   sha256?: string;
   measurement: Measurement;
+  /** Microphone position from the name: distant mics (room, overhead, ambient, far) hear the hit later. */
+  mic?: string | null;
 }
+
+/** Microphones set back from the kit. Sound travels about 0.34 m per ms, so a room mic 10 m away hears the hit
+ * about 29 ms after the close mics; trimming every mic with the same offset keeps that delay (common practice). */
+const DISTANT_MICS = new Set(["room", "overhead", "ambient", "far"]);
+const DISTANT_EXTRA_MS = 30;
 
 export interface HealthOptions {
   /** Leading silence above which an onset is late (ms). Default 10. */
@@ -136,8 +143,9 @@ export function fileHealth(samples: HealthSample[], opts: HealthOptions = {}): H
     if (Math.abs(m.dcOffset) > dcMax) {
       one("dc-offset", `DC offset ${m.dcOffset.toFixed(4)} of full scale (${r1(20 * Math.log10(Math.abs(m.dcOffset)))} dBFS): it clicks at the start and end and eats headroom; remove it with a high-pass filter.`);
     }
-    if (m.onsetMs > lateMs) {
-      one("late-onset", `the hit starts ${r1(m.onsetMs)} ms into the file; it is common practice to trim leading silence to a few milliseconds, with one offset for all layers, round robins and microphones, so pads feel tight.`);
+    const distant = !!s.mic && DISTANT_MICS.has(s.mic);
+    if (m.onsetMs > lateMs + (distant ? DISTANT_EXTRA_MS : 0)) {
+      one("late-onset", `the hit starts ${r1(m.onsetMs)} ms into the file; it is common practice to trim leading silence to a few milliseconds, with one offset for all layers, round robins and microphones, so pads feel tight${distant ? ` (a ${s.mic} mic may start up to about ${DISTANT_EXTRA_MS} ms later than the close mics, not more)` : ""}.`);
     }
     if (m.tail === "cut") one("cut-tail", "the tail is cut off before it decays to the noise floor: the sound stops abruptly. Keep the full decay or fade it out.");
   }
