@@ -40,20 +40,38 @@ export function highpassCoefficients(fs: number): Biquad {
 
 /** K-weight one channel (both stages in one pass, direct form I, float64 state). */
 export function kWeight(x: ArrayLike<number>, fs: number): Float64Array {
+  const y = new Float64Array(x.length);
+  kWeightInto(x, fs, y, 0);
+  return y;
+}
+
+/**
+ * K-weight x and either store the output in `out` (gain 0) or add gain * y^2 to it (gain > 0): the second
+ * form feeds the loudness meter without allocating a filtered copy of every channel.
+ */
+export function kWeightInto(x: ArrayLike<number>, fs: number, out: Float64Array, gain: number): void {
   const s = shelfCoefficients(fs);
   const h = highpassCoefficients(fs);
   const sb0 = s.b0, sb1 = s.b1, sb2 = s.b2, sa1 = s.a1, sa2 = s.a2, ha1 = h.a1, ha2 = h.a2;
   const n = x.length;
-  const y = new Float64Array(n);
   let x1 = 0, x2 = 0, m1 = 0, m2 = 0, y1 = 0, y2 = 0;
-  for (let i = 0; i < n; i++) {
-    const xi = x[i];
-    const m = sb0 * xi + sb1 * x1 + sb2 * x2 - sa1 * m1 - sa2 * m2;
-    const yi = m - 2 * m1 + m2 - ha1 * y1 - ha2 * y2;
-    x2 = x1; x1 = xi; m2 = m1; m1 = m; y2 = y1; y1 = yi;
-    y[i] = yi;
+  if (gain === 0) {
+    for (let i = 0; i < n; i++) {
+      const xi = x[i];
+      const m = sb0 * xi + sb1 * x1 + sb2 * x2 - sa1 * m1 - sa2 * m2;
+      const yi = m - 2 * m1 + m2 - ha1 * y1 - ha2 * y2;
+      x2 = x1; x1 = xi; m2 = m1; m1 = m; y2 = y1; y1 = yi;
+      out[i] = yi;
+    }
+  } else {
+    for (let i = 0; i < n; i++) {
+      const xi = x[i];
+      const m = sb0 * xi + sb1 * x1 + sb2 * x2 - sa1 * m1 - sa2 * m2;
+      const yi = m - 2 * m1 + m2 - ha1 * y1 - ha2 * y2;
+      x2 = x1; x1 = xi; m2 = m1; m1 = m; y2 = y1; y1 = yi;
+      out[i] += gain * yi * yi;
+    }
   }
-  return y;
 }
 
 /** Magnitude response in dB of the cascade at frequency f (for checks such as +0.691 dB at 997 Hz). */

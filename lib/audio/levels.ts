@@ -15,20 +15,22 @@ export interface Levels {
   dcOffset: number; // mean of the channel with the largest |mean|
   clippedRuns: number;
   clippedSamples: number;
+  loudestChannel: number; // index of the channel holding the sample peak
 }
 
 export const MIN_CLIP_RUN = 3;
 
 export function levels(channels: ArrayLike<number>[], clipLevel = 1): Levels {
-  let peak = 0, sumSq = 0, count = 0, dc = 0, runs = 0, clipped = 0;
+  let peak = 0, sumSq = 0, count = 0, dc = 0, runs = 0, clipped = 0, loudest = 0;
   const hi = clipLevel - 1e-9;
-  for (const x of channels) {
-    let sum = 0, run = 0;
+  for (let ci = 0; ci < channels.length; ci++) {
+    const x = channels[ci];
+    let sum = 0, run = 0, chPeak = 0;
     const n = x.length;
     for (let i = 0; i < n; i++) {
       const v = x[i];
       const a = v < 0 ? -v : v;
-      if (a > peak) peak = a;
+      if (a > chPeak) chPeak = a;
       sum += v;
       sumSq += v * v;
       if (v >= hi || v <= -1) run++;
@@ -38,11 +40,12 @@ export function levels(channels: ArrayLike<number>[], clipLevel = 1): Levels {
       }
     }
     if (run >= MIN_CLIP_RUN) (runs++, (clipped += run));
+    if (chPeak > peak) { peak = chPeak; loudest = ci; }
     count += n;
     const mean = n ? sum / n : 0;
     if (Math.abs(mean) > Math.abs(dc)) dc = mean;
   }
-  return { samplePeak: peak, rms: count ? Math.sqrt(sumSq / count) : 0, dcOffset: dc, clippedRuns: runs, clippedSamples: clipped };
+  return { samplePeak: peak, rms: count ? Math.sqrt(sumSq / count) : 0, dcOffset: dc, clippedRuns: runs, clippedSamples: clipped, loudestChannel: loudest };
 }
 
 /** sum(LR) / sqrt(sum(L^2) sum(R^2)) of the first two channels; null for mono or when a channel is silent. */

@@ -1,7 +1,7 @@
 // Loudness per ITU-R BS.1770-4 Annex 1 (K-weighting, channel weights, 400 ms blocks) and EBU Tech 3341:
 // the maximum momentary loudness (our "strike loudness") and the gated integrated loudness
 // (blocks of 400 ms with 75 % overlap, absolute gate -70 LKFS, relative gate -10 LU).
-import { kWeight } from "./k-weighting";
+import { kWeightInto } from "./k-weighting";
 
 export const ABSOLUTE_GATE_LUFS = -70;
 export const RELATIVE_GATE_LU = -10;
@@ -33,19 +33,13 @@ export function lufsOfPower(z: number): number {
 /** Prefix sums of the channel-weighted K-weighted power: P[i] = sum over samples < i of sum_c G_c y_c^2. */
 export function weightedPowerPrefix(channels: ArrayLike<number>[], fs: number, weights = channelWeights(channels.length)): Float64Array {
   const n = channels[0]?.length ?? 0;
-  const acc = new Float64Array(n);
+  const P = new Float64Array(n + 1); // P[i + 1] first collects the power of sample i, then is summed in place
+  const acc = P.subarray(1);
   channels.forEach((x, c) => {
     const g = weights[c] ?? 1;
-    if (g === 0) return;
-    const y = kWeight(x, fs);
-    for (let i = 0; i < n; i++) acc[i] += g * y[i] * y[i];
+    if (g !== 0) kWeightInto(x, fs, acc, g);
   });
-  const P = new Float64Array(n + 1);
-  let s = 0;
-  for (let i = 0; i < n; i++) {
-    s += acc[i];
-    P[i + 1] = s;
-  }
+  for (let i = 1; i <= n; i++) P[i] += P[i - 1];
   return P;
 }
 

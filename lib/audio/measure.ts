@@ -60,7 +60,7 @@ export function measure(decoded: DecodedWav): Measurement {
   const tp = truePeak(channels, fs);
   const ld = loudness(channels, fs, decoded.channelMask);
   const onset = onsetIndex(channels, fs, lv.samplePeak);
-  const attack = attackMs(channels, fs, onset);
+  const attack = attackMs(channels, fs, onset, lv.loudestChannel);
   const dec = analyseDecay(channels, fs, onset);
   if (dec.tail === "cut") warnings.push("tail cut off while still sounding");
 

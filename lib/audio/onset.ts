@@ -46,13 +46,13 @@ export function hilbertEnvelope(x: ArrayLike<number>, start: number, len: number
   const f = getFft(N);
   const input = new Float64Array(N);
   for (let i = 0; i < len && start + i < x.length; i++) input[i] = x[start + i];
-  const spec = f.createComplexArray() as number[];
+  const spec = new Float64Array(2 * N);
   f.realTransform(spec, input);
   f.completeSpectrum(spec);
   // analytic signal: keep DC and Nyquist, double positive frequencies, zero negative ones
   for (let k = 1; k < N / 2; k++) { spec[2 * k] *= 2; spec[2 * k + 1] *= 2; }
   for (let k = N / 2 + 1; k < N; k++) { spec[2 * k] = 0; spec[2 * k + 1] = 0; }
-  const out = f.createComplexArray() as number[];
+  const out = new Float64Array(2 * N);
   f.inverseTransform(out, spec);
   const env = new Float64Array(len);
   for (let i = 0; i < len; i++) env[i] = Math.hypot(out[2 * i], out[2 * i + 1]);
@@ -60,10 +60,12 @@ export function hilbertEnvelope(x: ArrayLike<number>, start: number, len: number
 }
 
 /** 10 % -> 90 % rise time of the envelope peak, in ms, starting the search at the onset. */
-export function attackMs(channels: ArrayLike<number>[], fs: number, onset: number): number {
-  let loud = channels[0], lp = 0;
-  for (const x of channels) { let p = 0; for (let i = 0; i < x.length; i++) p = Math.max(p, Math.abs(x[i])); if (p > lp) { lp = p; loud = x; } }
-  if (lp === 0) return 0;
+export function attackMs(channels: ArrayLike<number>[], fs: number, onset: number, loudestChannel?: number): number {
+  let loud = channels[loudestChannel ?? 0];
+  if (loudestChannel === undefined) {
+    let lp = 0;
+    for (const x of channels) { const p = peakOf([x]); if (p > lp) { lp = p; loud = x; } }
+  }
   const pre = Math.min(onset, Math.round(0.002 * fs));
   const start = onset - pre;
   const len = Math.min(loud.length - start, Math.round(ATTACK_WINDOW_SEC * fs) + pre);

@@ -47,7 +47,7 @@ export class SpectralAnalyzer {
   private fft: FFT;
   private window: Float64Array;
   private input: Float64Array;
-  private out: number[];
+  private out: Float64Array;
   readonly amp: Float64Array; // amplitude spectrum of the last frame, bins 0..N/2-1
   private mel: { start: number; w: Float64Array }[];
   private barkLimits: Int32Array;
@@ -59,7 +59,7 @@ export class SpectralAnalyzer {
     this.fft = new FFT(N);
     this.window = hann(N);
     this.input = new Float64Array(N);
-    this.out = this.fft.createComplexArray() as number[];
+    this.out = new Float64Array(2 * N); // typed storage: fft.js indexes it like its own arrays, faster
     this.amp = new Float64Array(N / 2);
     // mel filter bank as meyda builds it (triangles on floor((N + 1) f / fs) bins, 0 to Nyquist)
     const melMax = melOf(fs / 2);

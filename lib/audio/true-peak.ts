@@ -4,7 +4,8 @@
 // phase, the size of the Annex 2 example filter); phase 0 returns the samples themselves.
 // Speed: the interpolated value near sample n is bounded by (largest |x| within the filter span) times
 // the largest per-phase L1 norm of the coefficients, so blocks that cannot beat the running maximum are
-// skipped exactly, without approximation. Drum one-shots decay fast, so most of the file is skipped.
+// skipped exactly, without approximation; inside a block, so are samples whose two nearest taps plus the
+// far taps at the block's neighbourhood maximum cannot beat it. Drum one-shots decay fast, so most of the file is skipped.
 
 export const TAPS_PER_PHASE = 12;
 const KAISER_BETA = 6;
@@ -46,13 +47,23 @@ export function interpolatorPhases(L: number, T = TAPS_PER_PHASE): Float64Array[
   return phases;
 }
 
-const phaseCache = new Map<number, { phases: Float64Array[]; l1: number }>();
-function getPhases(L: number) {
+interface PhaseSet {
+  phases: Float64Array[];
+  l1: number; // largest per-phase sum of |c|
+  near: Float64Array; // per phase: |c| of the taps on x[i] and x[i+1], interleaved
+  rest: number; // largest per-phase sum of |c| over the other taps
+}
+const phaseCache = new Map<number, PhaseSet>();
+function getPhases(L: number): PhaseSet {
   let e = phaseCache.get(L);
   if (!e) {
     const phases = interpolatorPhases(L);
-    const l1 = Math.max(...phases.map((c) => c.reduce((s, v) => s + Math.abs(v), 0)));
-    e = { phases, l1 };
+    const half = TAPS_PER_PHASE / 2;
+    const sums = phases.map((c) => c.reduce((s, v) => s + Math.abs(v), 0));
+    const near = new Float64Array(2 * phases.length);
+    phases.forEach((c, p) => { near[2 * p] = Math.abs(c[half - 1]); near[2 * p + 1] = Math.abs(c[half]); });
+    const rest = Math.max(...phases.map((c, p) => sums[p] - near[2 * p] - near[2 * p + 1]));
+    e = { phases, l1: Math.max(...sums), near, rest };
     phaseCache.set(L, e);
   }
   return e;
@@ -62,7 +73,8 @@ function getPhases(L: number) {
 export function truePeakChannel(x: ArrayLike<number>, fs: number): number {
   const n = x.length;
   const L = oversamplingFactor(fs);
-  const { phases, l1 } = getPhases(L);
+  const { phases, l1, near, rest } = getPhases(L);
+  const P = phases.length;
   const T = TAPS_PER_PHASE;
   const half = T / 2;
   const nb = Math.ceil(n / BLOCK);
@@ -85,7 +97,13 @@ export function truePeakChannel(x: ArrayLike<number>, fs: number): number {
   for (const b of order) {
     if (bound[b] <= best) break;
     const end = Math.min(n, (b + 1) * BLOCK);
+    const restBound = (bound[b] / l1) * rest; // the far taps can add at most this
     for (let i = b * BLOCK; i < end; i++) {
+      // Per-sample bound: the two nearest taps exactly, the others at the neighbourhood maximum.
+      const a0 = Math.abs(x[i]), a1 = i + 1 < n ? Math.abs(x[i + 1]) : 0;
+      let nb2 = 0;
+      for (let p = 0; p < P; p++) nb2 = Math.max(nb2, near[2 * p] * a0 + near[2 * p + 1] * a1);
+      if (nb2 + restBound <= best) continue;
       const base = i - half + 1;
       for (const c of phases) {
         let y = 0;
