@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { besselJ } from "./dsp";
 import { MEMBRANE_MODES, membraneRatios, renderSound, type SoundSpec } from "./drums";
-import { centroidHz, decaySeconds, dftMag, magnitudeSpectrum, rmsDb, strongestPeakHz } from "./test-utils";
+import { centroidHz, decaySeconds, dftMag, envelopeDb, magnitudeSpectrum, rmsDb, strongestPeakHz } from "./test-utils";
 
 const SR = 48000;
 const TOM12: SoundSpec = { family: "tom", instrument: { diameterIn: 12, depthIn: 9, tuneHz: 136, floor: false }, articulation: "centre" };
@@ -104,6 +104,38 @@ describe("drums", () => {
     }
   });
 
+  it("a rim shot is louder and brighter than a centre hit at the same strength (common practice)", () => {
+    const o = { sampleRate: SR, velocity: 100, seed: 8, channels: 1 as const, seconds: 0.5, noiseFloorDbfs: null };
+    const centre = renderSound(SNARE, o)[0];
+    const rim = renderSound({ ...SNARE, articulation: "rim-shot" } as SoundSpec, o)[0];
+    const peakDb = (x: Float32Array) => 20 * Math.log10(x.reduce((m, v) => Math.max(m, Math.abs(v)), 0));
+    expect(peakDb(rim)).toBeGreaterThan(peakDb(centre) + 1);
+    // more high partials relative to the head's low modes: energy above 1 kHz over energy below
+    const hiLo = (x: Float32Array) => {
+      const mag = magnitudeSpectrum(x, 0, 8192);
+      const k1 = Math.round((1000 * 8192) / SR);
+      let lo = 0, hi = 0;
+      mag.forEach((m, k) => { if (k < k1) lo += m * m; else hi += m * m; });
+      return hi / lo;
+    };
+    expect(hiLo(rim)).toBeGreaterThan(hiLo(centre));
+  });
+
+  it("harder strikes rise faster (shorter contact): time from onset to half the early peak", () => {
+    const rise = (velocity: number, seed: number) => {
+      const cb: SoundSpec = { family: "cowbell", instrument: { lowHz: 560, highHz: 845 }, articulation: "hit" };
+      const x = renderSound(cb, { sampleRate: SR, velocity, seed, channels: 1, seconds: 0.3, noiseFloorDbfs: null })[0];
+      const head = Array.from(x.subarray(0, Math.round(0.02 * SR)), Math.abs);
+      const max = Math.max(...head);
+      const on = head.findIndex((v) => v > 0.01 * max);
+      const half = head.findIndex((v) => v >= 0.5 * max);
+      return ((half - on) / SR) * 1000;
+    };
+    const soft = [1, 2, 3].map((seed) => rise(20, seed));
+    const hard = [1, 2, 3].map((seed) => rise(127, seed));
+    expect(Math.min(...soft)).toBeGreaterThan(Math.max(...hard));
+  });
+
   it("an edge strike excites the (1,1) mode more than a centre strike (J_1(0) = 0; F&R ch. 18)", () => {
     const ratio = (art: "centre" | "edge") => {
       const spec = { ...TOM12, articulation: art } as SoundSpec;
@@ -166,6 +198,10 @@ describe("drums", () => {
     expect(dOh).toBeGreaterThan(0.002); // about 1 m more path: 2.9 ms
     expect(dOh).toBeLessThan(0.004);
     expect(onset(room)).toBeGreaterThan(onset(oh));
+    expect(rmsDb(oh)).toBeLessThan(rmsDb(close));
+    // more reverberant: the tail stands higher relative to the strike
+    const tailRel = (x: Float32Array) => rmsDb(x, onset(x) + Math.round(0.35 * SR)) - rmsDb(x, onset(x), onset(x) + Math.round(0.05 * SR));
+    expect(tailRel(room)).toBeGreaterThan(tailRel(close) + 3);
     expect(centroidHz(oh, SR, onset(oh), 4096)).toBeLessThan(centroidHz(close, SR, onset(close), 4096));
     expect(centroidHz(room, SR, onset(room), 4096)).toBeLessThan(centroidHz(oh, SR, onset(oh), 4096));
   });

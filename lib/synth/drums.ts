@@ -274,13 +274,13 @@ function renderSnare(s: Src, sp: SnareSpec, art: SnareArticulation): number {
     glide: 0.035 * vn * vn, glideTau: 0.03, gain: 1, maxRatio: 6, secondHead: 0.04,
   });
   partials(s, shellPartials(sp.shell, f0), rim ? 2.5 : 1);
-  const wireGain = art === "centre" ? 0.55 : art === "half-edge" ? 0.5 : art === "edge" ? 0.4 : 0.45;
+  const wireGain = art === "centre" ? 0.55 : art === "half-edge" ? 0.5 : art === "edge" ? 0.4 : 0.55;
   snareWires(s, sp, { gain: wireGain * (0.8 + 0.4 * vn), tau: wireTau, f0 });
   noiseBurst(s, { lo: 300, hi: 2000 + 8000 * vn, tau: 0.0015, gain: 0.15 * vn });
   if (rim) {
     // steel or die-cast hoop: inharmonic metallic partials, and the crack of wood on metal
-    partials(s, [1, 1.63, 2.41, 3.36, 4.43].map((r, i) => ({ f: 1350 * r, a: 0.25 / (1 + i * 0.5), tau: 0.06 / (1 + i * 0.3) })), 0.7 + 0.6 * vn);
-    noiseBurst(s, { lo: 1000, hi: 12000, tau: 0.0035, gain: 0.6 * vn + 0.2 });
+    partials(s, [1, 1.63, 2.41, 3.36, 4.43, 5.6].map((r, i) => ({ f: 1350 * r, a: 0.3 / (1 + i * 0.3), tau: 0.06 / (1 + i * 0.3) })), 0.8 + 0.8 * vn);
+    noiseBurst(s, { lo: 1500, hi: 14000, tau: 0.004, gain: 0.9 * vn + 0.3 });
     return -1.5;
   }
   return art === "centre" ? -4 : art === "half-edge" ? -4.5 : -5.5;
@@ -523,8 +523,9 @@ interface MicModel { gainDb: number; distanceM: number; lowpassHz: number; rever
 const MIC_MODELS: Record<Mic, MicModel> = {
   // levels are gain-staged at the preamp (common practice), not raw inverse-square differences
   close: { gainDb: 0, distanceM: 0.05, lowpassHz: 20000, reverbDb: -30, t60: 0.5 },
-  overhead: { gainDb: -4, distanceM: 1.0, lowpassHz: 12000, reverbDb: -16, t60: 0.6 },
-  room: { gainDb: -8, distanceM: 4.0, lowpassHz: 6500, reverbDb: -4, t60: 0.8 },
+  // beyond the critical distance (about 1-2 m in a live room) the reverberant field outweighs the direct sound
+  overhead: { gainDb: -4, distanceM: 1.0, lowpassHz: 12000, reverbDb: -10, t60: 0.7 },
+  room: { gainDb: -10, distanceM: 4.0, lowpassHz: 6500, reverbDb: 4, t60: 1.0 },
 };
 
 export const DEFAULT_SECONDS: Record<SoundSpec["family"], number> = {

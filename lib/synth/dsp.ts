@@ -51,7 +51,7 @@ export function addMode(L: Float64Array, R: Float64Array | null, sr: number, o: 
   const gl = o.gainL ?? 1;
   const gr = o.gainR ?? 1;
   const start = Math.max(0, Math.floor(o.start ?? 0));
-  const life = Math.ceil(o.tau * sr * Math.log(o.amp / 1e-8 + 1)); // until about -160 dB re full scale
+  const life = Math.ceil(o.tau * sr * Math.log(o.amp / 1e-6 + 1)); // until about -120 dB re the source peak
   const end = Math.min(L.length, start + Math.max(1, life));
   const dec = Math.exp(-1 / (o.tau * sr));
   let re = o.amp * Math.cos(o.phase ?? 0);
