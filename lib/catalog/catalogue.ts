@@ -5,13 +5,16 @@
 import type { Measurement } from "../audio/types";
 import { articulationFromSound, nameSoundConflict, suggestFromSound, type LabelModel, type NameSoundConflict, type SoundSuggestion } from "./classify";
 import { conflictHealth, fileHealth, layerHealth, sortFindings, type HealthFinding, type HealthOptions } from "./health";
-import { groupInstruments, instrumentDisplayName, type Instrument } from "./instruments";
+import { groupInstruments, instrumentDisplayName, splitByPitch, type Instrument } from "./instruments";
 import { sortLayers, type Layer, type LayerOptions } from "./layers";
 import { parseName, type MicPosition, type NameInfo } from "./names";
 import type { Articulation, Family } from "./taxonomy";
 import { DLS, type VelocityCurve } from "./velocity";
 
 export type LabelSource = "name" | "sound" | "person";
+
+/** Families whose drums are told apart by pitch when only the sound names them. */
+const PITCHED = new Set<Family>(["tom", "snare", "kick", "hand-drum", "cowbell"]);
 
 export interface CatalogueSampleInput {
   id: string;
@@ -160,6 +163,16 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
   // 2. instruments
   const { instruments: autoInstruments, bySample } = groupInstruments(work.map((w) => ({ id: w.s.id, family: w.family, stem: w.n.stem })));
   let instruments = autoInstruments;
+  // drums named by sound only: tell several drums of one kind apart by their pitch
+  const soundOnly = new Set(work.filter((w) => w.familySource === "sound").map((w) => w.s.id));
+  const pitchById: Record<string, number | null> = Object.fromEntries(work.map((w) => [w.s.id, w.s.measurement.pitchHz]));
+  instruments = instruments.flatMap((inst) => {
+    if (!PITCHED.has(inst.family) || !inst.sampleIds.every((id) => soundOnly.has(id))) return [inst];
+    const parts = splitByPitch(inst, pitchById);
+    if (parts.length > 1) for (const p of parts) for (const id of p.sampleIds) bySample[id] = p.key;
+    return parts;
+  });
+  instruments.sort((a, b) => a.key.localeCompare(b.key));
   const confirmedMoves = work.filter((w) => w.s.confirmed?.instrumentKey && w.s.confirmed.instrumentKey !== bySample[w.s.id]);
   if (confirmedMoves.length) {
     const map = new Map(instruments.map((i) => [i.key, { ...i, sampleIds: [...i.sampleIds] }]));

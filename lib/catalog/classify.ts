@@ -132,7 +132,7 @@ const fmtS = (s: number) => (s >= 1 ? `${s.toFixed(1)} s` : `${Math.round(s * 10
 /** The measured values in plain words ("decay 1.9 s, centroid 7.4 kHz, flatness 0.61, pitch 62 Hz"). */
 export function describeSound(m: Measurement): string {
   const f = feat(m);
-  const parts = [`decay ${fmtS(f.decay)}`, `centroid ${fmtHz(f.sc)}`, `flatness ${f.bf.toFixed(2)}`];
+  const parts = [`decay ${fmtS(f.decay)}`, `centroid ${fmtHz(f.sc)}`, `flatness ${f.bf >= 0.1 || f.bf === 0 ? f.bf.toFixed(2) : f.bf.toFixed(3)}`];
   if (f.pitch !== null) parts.push(`pitch ${fmtHz(f.pitch)}`);
   return parts.join(", ");
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { groupInstruments, instrumentDisplayName, instrumentKey, mergeInList, mergeInstruments } from "./instruments";
+import { groupInstruments, instrumentDisplayName, instrumentKey, mergeInList, mergeInstruments, splitByPitch } from "./instruments";
 import { parseName } from "./names";
 
 const input = (id: string, path: string) => {
@@ -49,5 +49,23 @@ describe("instruments from folder and name stems (common practice of library fol
     ]);
     expect(() => mergeInstruments(two.find((i) => i.family === "crash")!, two.find((i) => i.family === "ride")!)).toThrow(/families differ/);
     expect(() => mergeInList(two, "crash:dark", "nope")).toThrow(/no instrument/);
+  });
+});
+
+describe("splitByPitch (toms tuned a third or fourth apart, one drum's pitch moving well under a tone: common practice)", () => {
+  const inst = { key: "tom:main", family: "tom" as const, displayName: "Tom", descriptors: [], sampleIds: ["a", "b", "c", "d", "e", "f", "g"], mergedFrom: [] };
+  it("three toms a fourth apart become three instruments, highest first; unpitched hits kept apart", () => {
+    // 98 Hz, 131 Hz (a fourth up: 98 * 2^(5/12) = 130.8), 175 Hz; each with +-0.3 semitone scatter
+    const st = (hz: number, semis: number) => hz * 2 ** (semis / 12);
+    const pitch = { a: st(98, -0.3), b: st(98, 0.3), c: st(131, 0), d: st(131, 0.25), e: st(175, -0.2), f: st(175, 0.2), g: null };
+    const parts = splitByPitch(inst, pitch);
+    expect(parts.map((p) => [p.key, p.sampleIds])).toEqual([
+      ["tom:main-p1", ["e", "f"]], ["tom:main-p2", ["c", "d"]], ["tom:main-p3", ["a", "b"]], ["tom:main-unpitched", ["g"]],
+    ]);
+    expect(parts[0]!.displayName).toBe("Tom 1 (about 175 Hz)");
+  });
+  it("one drum whose pitch rises a little with strength stays one", () => {
+    const pitch = { a: 100, b: 101, c: 102, d: 103.5, e: 104, f: 105, g: 106 };
+    expect(splitByPitch(inst, pitch)).toEqual([inst]);
   });
 });

@@ -1,6 +1,7 @@
 // Instruments: one physical drum or cymbal of a library, grouped automatically from the folder and file name
 // stems plus the family. Keys are deterministic ("snare:14x6.5-brass"), display names readable ("Snare 14x6.5 Brass").
 
+import { clusterSizes, layerCountFromGaps } from "./layers";
 import type { Family } from "./taxonomy";
 
 export interface InstrumentInput {
@@ -103,4 +104,43 @@ export function mergeInList(instruments: Instrument[], targetKey: string, source
   if (t === s) return instruments.slice();
   const merged = mergeInstruments(t, s, opts);
   return instruments.filter((i) => i.key !== sourceKey).map((i) => (i.key === targetKey ? merged : i));
+}
+
+/**
+ * Splits an instrument named by sound only (no name words) by the pitch of its hits: drums of one kind in one
+ * folder (three toms, two snares) sit at different pitches, while one drum's hits vary by well under a whole
+ * tone with strength. Clusters of log pitch (semitones) by the same gap criterion as the layers, with a
+ * smallest gap of 2 semitones (toms are commonly tuned a third or fourth apart: common practice, no published
+ * source). Parts are numbered from the highest pitch (toms are ordered high to low, common practice).
+ * Samples without a measured pitch stay together in a part of their own ("unpitched").
+ */
+export function splitByPitch(inst: Instrument, pitchById: Record<string, number | null>, opts: { minGapSemitones?: number } = {}): Instrument[] {
+  const pitched = inst.sampleIds.filter((id) => (pitchById[id] ?? 0) > 0);
+  const unpitched = inst.sampleIds.filter((id) => !((pitchById[id] ?? 0) > 0));
+  if (pitched.length < 2) return [inst];
+  const semis = pitched.map((id) => ({ id, s: 12 * Math.log2(pitchById[id]! / 440) })).sort((a, b) => a.s - b.s || a.id.localeCompare(b.id));
+  const choice = layerCountFromGaps(semis.map((x) => x.s), { minGapDb: opts.minGapSemitones ?? 2, spreadFloorDb: 0.5, maxLayers: 8 });
+  if (choice.k < 2) return [inst];
+  const sizes = clusterSizes(semis.map((x) => x.s), choice.k);
+  const parts: { ids: string[]; hz: number }[] = [];
+  let at = 0;
+  for (const n of sizes) {
+    const chunk = semis.slice(at, at + n);
+    at += n;
+    const mean = chunk.reduce((a, x) => a + x.s, 0) / chunk.length;
+    parts.push({ ids: chunk.map((x) => x.id).sort(), hz: 440 * 2 ** (mean / 12) });
+  }
+  parts.reverse(); // highest first
+  const out: Instrument[] = parts.map((p, i) => ({
+    key: `${inst.key}-p${i + 1}`,
+    family: inst.family,
+    displayName: `${inst.displayName} ${i + 1} (about ${Math.round(p.hz)} Hz)`,
+    descriptors: [...inst.descriptors, `p${i + 1}`],
+    sampleIds: p.ids,
+    mergedFrom: [],
+  }));
+  if (unpitched.length) {
+    out.push({ key: `${inst.key}-unpitched`, family: inst.family, displayName: `${inst.displayName} (no clear pitch)`, descriptors: [...inst.descriptors, "unpitched"], sampleIds: unpitched.sort(), mergedFrom: [] });
+  }
+  return out;
 }

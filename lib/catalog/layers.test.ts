@@ -101,6 +101,12 @@ describe("layer issues", () => {
     const s = sortLayers(m);
     expect(s.issues.find((i) => i.code === "missing-layer")?.message).toMatch(/v3 is missing/);
   });
+  it("does not call MIDI-velocity marks (v32, v64, v96, v127) missing layers", () => {
+    const m = group([-30, -24, -18, -12], 2, 0.2, 6, true).map((x) => ({ ...x, velocityHint: { scheme: "v" as const, rank: [32, 64, 96, 127][x.velocityHint!.rank - 1]!, raw: "" } }));
+    const s = sortLayers(m);
+    expect(s.layers).toHaveLength(4);
+    expect(s.issues.map((i) => i.code)).not.toContain("missing-layer");
+  });
   it("flags uneven spacing (steps of 2 dB and 12 dB) but not even steps", () => {
     expect(sortLayers(group([-34, -22, -20, -18], 2, 0.1, 8)).issues.map((i) => i.code)).toContain("uneven-layers");
     expect(sortLayers(group([-34, -28, -22, -16], 2, 0.1, 8)).issues.map((i) => i.code)).not.toContain("uneven-layers");

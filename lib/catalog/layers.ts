@@ -181,7 +181,8 @@ export function sortLayers(members: LayerMember[], opts: LayerOptions = {}): Lay
 
   const issues: LayerIssue[] = [];
   if (hints) issues.push(...orderIssues(groups, hints.scheme));
-  if (hints && (hints.scheme === "v" || hints.scheme === "number")) {
+  // layer numbers (v1..v16 convention) can skip; marks above 16 are MIDI velocities (v32, v64, v127), not counts
+  if (hints && (hints.scheme === "v" || hints.scheme === "number") && hints.ranks[hints.ranks.length - 1]! <= 16) {
     const missing: number[] = [];
     for (let r = hints.ranks[0]!; r <= hints.ranks[hints.ranks.length - 1]!; r++) if (!hints.ranks.includes(r)) missing.push(r);
     if (missing.length) {
