@@ -16,36 +16,41 @@ export interface Levels {
   clippedRuns: number;
   clippedSamples: number;
   loudestChannel: number; // index of the channel holding the sample peak
+  perChannel: { peak: number; rms: number; dc: number; clippedRuns: number }[];
 }
 
 export const MIN_CLIP_RUN = 3;
 
 export function levels(channels: ArrayLike<number>[], clipLevel = 1): Levels {
   let peak = 0, sumSq = 0, count = 0, dc = 0, runs = 0, clipped = 0, loudest = 0;
+  const perChannel: Levels["perChannel"] = [];
   const hi = clipLevel - 1e-9;
   for (let ci = 0; ci < channels.length; ci++) {
     const x = channels[ci];
-    let sum = 0, run = 0, chPeak = 0;
+    let sum = 0, run = 0, chPeak = 0, chSq = 0, chRuns = 0;
     const n = x.length;
     for (let i = 0; i < n; i++) {
       const v = x[i];
       const a = v < 0 ? -v : v;
       if (a > chPeak) chPeak = a;
       sum += v;
-      sumSq += v * v;
+      chSq += v * v;
       if (v >= hi || v <= -1) run++;
       else {
-        if (run >= MIN_CLIP_RUN) (runs++, (clipped += run));
+        if (run >= MIN_CLIP_RUN) (chRuns++, (clipped += run));
         run = 0;
       }
     }
-    if (run >= MIN_CLIP_RUN) (runs++, (clipped += run));
+    if (run >= MIN_CLIP_RUN) (chRuns++, (clipped += run));
+    runs += chRuns;
+    sumSq += chSq;
     if (chPeak > peak) { peak = chPeak; loudest = ci; }
     count += n;
     const mean = n ? sum / n : 0;
     if (Math.abs(mean) > Math.abs(dc)) dc = mean;
+    perChannel.push({ peak: chPeak, rms: n ? Math.sqrt(chSq / n) : 0, dc: mean, clippedRuns: chRuns });
   }
-  return { samplePeak: peak, rms: count ? Math.sqrt(sumSq / count) : 0, dcOffset: dc, clippedRuns: runs, clippedSamples: clipped, loudestChannel: loudest };
+  return { samplePeak: peak, rms: count ? Math.sqrt(sumSq / count) : 0, dcOffset: dc, clippedRuns: runs, clippedSamples: clipped, loudestChannel: loudest, perChannel };
 }
 
 /** sum(LR) / sqrt(sum(L^2) sum(R^2)) of the first two channels; null for mono or when a channel is silent. */

@@ -31,6 +31,12 @@ describe("measure(): the whole record on generated one-shots", () => {
     expect(m.stereoCorrelation!).toBeCloseTo(1, 6);
     expect(m.strikeLufs).toBeGreaterThan(m.integratedLufs! - 1e-9);
   });
+  it("per-channel levels: the right channel, a 0.8x copy, reads 20 log10(0.8) = -1.94 dB below the left", () => {
+    const [l, r] = m.perChannel!;
+    expect(r.samplePeakDbfs - l.samplePeakDbfs).toBeCloseTo(20 * Math.log10(0.8), 1);
+    expect(r.rmsDbfs - l.rmsDbfs).toBeCloseTo(20 * Math.log10(0.8), 1);
+    expect(Math.max(l.truePeakDbtp, r.truePeakDbtp)).toBe(m.truePeakDbtp);
+  });
   it("the strike (noise burst plus tone) is brighter than the body (tone)", () => {
     expect(m.strike.centroidHz).toBeGreaterThan(m.body!.centroidHz);
   });

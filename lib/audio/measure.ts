@@ -8,7 +8,7 @@ import { decodeWav, type DecodedWav, type DecodeOptions } from "./decode";
 import type { WavMetadata } from "./chunks";
 import { MEASURE_VERSION } from "./version";
 import { levels, stereoCorrelation, toDb, SILENCE_DB } from "./levels";
-import { truePeak } from "./true-peak";
+import { truePeaks } from "./true-peak";
 import { loudness } from "./loudness";
 import { onsetIndex, attackMs } from "./onset";
 import { analyseDecay } from "./decay";
@@ -54,10 +54,12 @@ export function measure(decoded: DecodedWav): Measurement {
       samplePeakDbfs: SILENCE_DB, truePeakDbtp: SILENCE_DB, rmsDbfs: SILENCE_DB, strikeLufs: SILENCE_DB, integratedLufs: null,
       crestDb: 0, onsetMs: 0, attackMs: 0, edtSec: null, t20Sec: null, tail: "decayed", noiseFloorDbfs: SILENCE_DB,
       pitchHz: null, strike: emptySummary(), body: null, warnings,
+      perChannel: channels.map(() => ({ samplePeakDbfs: SILENCE_DB, truePeakDbtp: SILENCE_DB, rmsDbfs: SILENCE_DB, dcOffset: 0, clippedRuns: 0 })),
     };
   }
   if (lv.clippedRuns > 0) warnings.push(`clipped: ${lv.clippedRuns} run(s) of full-scale samples (${lv.clippedSamples} samples)`);
-  const tp = truePeak(channels, fs);
+  const tps = truePeaks(channels, fs);
+  const tp = Math.max(...tps);
   const ld = loudness(channels, fs, decoded.channelMask);
   const onset = onsetIndex(channels, fs, lv.samplePeak);
   const attack = attackMs(channels, fs, onset, lv.loudestChannel);
@@ -110,6 +112,7 @@ export function measure(decoded: DecodedWav): Measurement {
     strike: strikeFrames.length ? summarize(strikeFrames, N, fs) : emptySummary(),
     body,
     warnings,
+    perChannel: lv.perChannel.map((c, i) => ({ samplePeakDbfs: toDb(c.peak), truePeakDbtp: toDb(tps[i]), rmsDbfs: toDb(c.rms), dcOffset: c.dc, clippedRuns: c.clippedRuns })),
   };
 }
 

@@ -118,7 +118,10 @@ export function truePeakChannel(x: ArrayLike<number>, fs: number): number {
 }
 
 export function truePeak(channels: ArrayLike<number>[], fs: number): number {
-  let m = 0;
-  for (const ch of channels) m = Math.max(m, truePeakChannel(ch, fs));
-  return m;
+  return Math.max(0, ...truePeaks(channels, fs));
+}
+
+/** True peak of each channel (linear). */
+export function truePeaks(channels: ArrayLike<number>[], fs: number): number[] {
+  return channels.map((ch) => truePeakChannel(ch, fs));
 }

@@ -50,4 +50,13 @@ export interface Measurement {
   body: SpectralSummary | null; // after the strike, while above the noise floor
   truncated: boolean; // data chunk shorter than its header claimed (measured what was there)
   warnings: string[];
+  perChannel?: ChannelLevels[]; // added in MEASURE_VERSION 1: the level figures of each channel, in file order
+}
+
+export interface ChannelLevels {
+  samplePeakDbfs: number;
+  truePeakDbtp: number;
+  rmsDbfs: number;
+  dcOffset: number;
+  clippedRuns: number;
 }
