@@ -111,6 +111,11 @@ describe("robustness", () => {
     expect(n.family).toBeNull();
     expect(n.articulation).toBeNull();
   });
+  it("hashes and ids add no instrument words", () => {
+    expect(parseName("pack/3fa9c2d1.wav").stem).toEqual([]);
+    expect(parseName("pack/0b8e4c1a-77f2-4d3e-9a51-2c6b9e0f1d3a.wav").stem).toEqual([]);
+    expect(parseName("pack/Snare_Maple_xkcd_01.wav").stem).toEqual(["snare", "maple"]);
+  });
   it("empty and odd paths do not throw", () => {
     expect(parseName("").family).toBeNull();
     expect(parseName("___.wav").tokens).toEqual([]);

@@ -75,6 +75,8 @@ export function tokenise(name: string): string[] {
       continue;
     }
     const cleaned = chunk.replace(/\u0000/g, "");
+    // hashes and ids (hex runs with digits, UUID parts) carry no words
+    if (/^(?=.*\d)(?=.*[a-f])[0-9a-f]{6,}$/i.test(cleaned) || /^[0-9a-f]{12,}$/i.test(cleaned)) continue;
     // camelCase / ACRONYMWord / letter-digit boundaries
     const parts = cleaned
       .replace(/([a-z])([A-Z])/g, "$1 $2")
@@ -436,7 +438,8 @@ function parseTokens(tokens: string[], isFile: boolean): Parsed {
       used[i] = true;
       continue;
     }
-    if (!NOISE_WORDS.has(t) && /[a-z]/.test(t) && t.length >= 2) {
+    // unknown words name the instrument ("brass", "maple"); letter runs without a vowel are ids, not words
+    if (!NOISE_WORDS.has(t) && /[a-z]/.test(t) && t.length >= 2 && /[aeiouy]/.test(t)) {
       p.stem.push(t);
     }
     used[i] = true;
