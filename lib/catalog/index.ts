@@ -1,0 +1,13 @@
+// Public API of the cataloguer (pure TypeScript: measurements and paths in, plain objects out).
+export * from "./taxonomy";
+export { parseName, tokenise, MIC_POSITIONS, type MicPosition, type NameInfo, type VelocityHint, type VelocityScheme } from "./names";
+export { featureVector, fitStandardiser, standardise, distance, decaySec, FEATURE_NAMES, FEATURE_COUNT, type Standardiser } from "./features";
+export {
+  suggestFromSound, suggestByRules, ruleScores, articulationFromSound, describeSound, buildLabelModel, nameSoundConflict,
+  type SoundSuggestion, type LabelModel, type LabelledExample, type NameSoundConflict,
+} from "./classify";
+export { groupInstruments, mergeInstruments, mergeInList, splitByPitch, instrumentKey, instrumentDisplayName, descriptorsOf, type Instrument, type InstrumentInput } from "./instruments";
+export { sortLayers, layerCountFromGaps, clusterSizes, isMonotonic, type Layer, type LayerMember, type LayerSorting, type LayerIssue, type LayerIssueCode, type LayerOptions, type GapChoice } from "./layers";
+export { DLS, dlsAttenuationDb, dannenbergCoefficients, dannenbergGainDb, curveAttenuationDb, velocityForAttenuation, velocityRanges, type VelocityCurve, type VelocityRange } from "./velocity";
+export { fileHealth, layerHealth, conflictHealth, sortFindings, severityOf, type HealthCode, type HealthFinding, type HealthOptions, type HealthSample, type Severity } from "./health";
+export { catalogueSamples, groupKeyOf, type Catalogue, type CatalogueEntry, type CatalogueOptions, type CatalogueSampleInput, type LayerGroup, type LabelSource } from "./catalogue";
