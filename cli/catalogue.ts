@@ -107,7 +107,7 @@ function line(s: CatalogueEntry): string {
   const rr = s.roundRobin === null ? "-" : `${s.roundRobin}/${s.roundRobinCount}`;
   const vel = s.velocityLow === null ? "" : ` vel ${s.velocityLow}-${s.velocityHigh}`;
   const lufs = Number.isFinite(s.strikeLufs) ? `${s.strikeLufs.toFixed(1)} LUFS` : "no strike";
-  return `${s.path}\n    ${s.instrumentName} | ${s.articulation} | layer ${layer}${vel} | rr ${rr} | mic ${s.mic ?? "-"} | ${lufs} | ${s.familySource}/${s.articulationSource} ${s.confidence.toFixed(2)}\n    ${s.reasons.join("; ")}`;
+  return `${s.path}\n    ${s.family} | ${s.instrumentName} | ${s.articulation} | layer ${layer}${vel} | rr ${rr} | mic ${s.mic ?? "-"} | ${lufs} | ${s.familySource}/${s.articulationSource} ${s.confidence.toFixed(2)}\n    ${s.reasons.join("; ")}`;
 }
 
 export function toText(cat: Catalogue, refused: Refused[], folder: string): string {
