@@ -1,6 +1,8 @@
 #!/usr/bin/env node
-// Entry point of `npx kitwright <command>`: loads the TypeScript CLI through tsx.
-import { register } from "tsx/esm/api";
+// Entry point of `npx kitwright <command>`: loads the TypeScript CLI through tsx's CommonJS loader.
+import { createRequire } from "node:module";
+import { register } from "tsx/cjs/api";
 register();
-const { main } = await import("../cli/main.ts");
+const require = createRequire(import.meta.url);
+const { main } = require("../cli/main.ts");
 process.exitCode = await main(process.argv.slice(2));

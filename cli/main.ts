@@ -1,9 +1,10 @@
-// kitwright command line: dispatches to one module per command.
-const COMMANDS: Record<string, () => Promise<{ run(args: string[]): Promise<number> }>> = {
-  measure: () => import("./measure"),
-  catalogue: () => import("./catalogue"),
-  audit: () => import("./audit"),
-};
+// kitwright command line: dispatches to one module per command. Static imports: under tsx the .ts files
+// load as CommonJS (package.json has no "type"), where dynamic import of a .ts file does not resolve.
+import * as measure from "./measure";
+import * as catalogue from "./catalogue";
+import * as audit from "./audit";
+
+const COMMANDS: Record<string, { run(args: string[]): Promise<number> }> = { measure, catalogue, audit };
 
 const USAGE = `usage: kitwright <command> [options]
 
@@ -20,19 +21,10 @@ export async function main(argv: string[]): Promise<number> {
     process.stdout.write(USAGE);
     return cmd ? 0 : 2;
   }
-  const load = COMMANDS[cmd];
-  if (!load) {
+  const mod = COMMANDS[cmd];
+  if (!mod) {
     process.stderr.write(`kitwright: unknown command "${cmd}"\n\n${USAGE}`);
     return 2;
   }
-  try {
-    const mod = await load();
-    return await mod.run(rest);
-  } catch (e) {
-    if ((e as NodeJS.ErrnoException).code === "ERR_MODULE_NOT_FOUND") {
-      process.stderr.write(`kitwright: the "${cmd}" command is not built yet\n`);
-      return 2;
-    }
-    throw e;
-  }
+  return mod.run(rest);
 }
