@@ -1,0 +1,37 @@
+// Mail caught by the local SMTP fake (demo, development, tests), so verification and invitation links can
+// be clicked. With a real SMTP server configured this page does not exist.
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { listCaughtMail, mailFakeEnabled } from "@/lib/server/mail-catcher";
+
+export const metadata: Metadata = { title: "Caught mail" };
+export const dynamic = "force-dynamic";
+
+function Linkified({ text }: { text: string }) {
+  const parts = text.split(/(https?:\/\/[^\s]+)/g);
+  return <>{parts.map((p, i) => (/^https?:\/\//.test(p) ? <a key={i} href={p} className="break-all">{p}</a> : <span key={i}>{p}</span>))}</>;
+}
+
+export default async function MailPage() {
+  if (!mailFakeEnabled()) notFound();
+  const mail = await listCaughtMail();
+  return (
+    <div className="space-y-4">
+      <h1>Caught mail</h1>
+      <p className="text-sm text-muted">Kitwright is sending through its local SMTP fake: nothing leaves this machine. Every message is kept here, newest first.</p>
+      {mail.length === 0 && <p className="card text-sm">No mail yet.</p>}
+      <ul className="space-y-3" data-testid="mail-list">
+        {mail.map((m) => (
+          <li key={m.id} className="card space-y-2">
+            <div className="flex flex-wrap justify-between gap-2 text-sm">
+              <strong data-testid="mail-subject">{m.subject}</strong>
+              <span className="num text-muted">{m.date.replace("T", " ").slice(0, 19)}</span>
+            </div>
+            <p className="text-sm">To: <span data-testid="mail-to">{m.to}</span></p>
+            <pre className="whitespace-pre-wrap rounded bg-paper p-3 font-sans text-sm"><Linkified text={m.text} /></pre>
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}

@@ -1,0 +1,52 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { requireStudio } from "@/lib/server/session";
+import { listActivity } from "@/lib/server/activity";
+import { can } from "@/lib/permissions";
+import { NotAllowed } from "@/components/not-allowed";
+
+export const metadata: Metadata = { title: "Activity" };
+
+function describe(action: string, d: Record<string, unknown> | null): string {
+  const s = (k: string) => String(d?.[k] ?? "");
+  switch (action) {
+    case "studio.created": return `created the studio "${s("name")}"`;
+    case "studio.renamed": return `renamed the studio from "${s("from")}" to "${s("to")}"`;
+    case "invitation.sent": return `invited ${s("email")} as ${s("role")}`;
+    case "invitation.revoked": return `withdrew the invitation to ${s("email")}`;
+    case "invitation.accepted": return `joined as ${s("role")} (${s("email")})`;
+    case "member.role-changed": return `changed a member's role from ${s("from")} to ${s("to")}`;
+    case "member.removed": return `removed ${s("email")} (${s("role")})`;
+    default: return `${action}${d ? ` ${JSON.stringify(d)}` : ""}`;
+  }
+}
+
+export default async function ActivityPage({ params, searchParams }: { params: Promise<{ studioId: string }>; searchParams: Promise<{ before?: string }> }) {
+  const { studioId } = await params;
+  const { before } = await searchParams;
+  const { studio } = await requireStudio(studioId);
+  if (!can(studio.role, "activity:read")) return <NotAllowed what="read the activity log" role={studio.role} />;
+  const limit = 50;
+  const beforeId = before && /^\d+$/.test(before) ? Number(before) : undefined;
+  const entries = await listActivity({ studioId: studio.id, before: beforeId, limit });
+  return (
+    <section className="card p-0">
+      <table className="w-full text-sm" data-testid="activity-table">
+        <caption className="px-5 pt-4 text-left font-semibold">Activity log, newest first</caption>
+        <thead className="text-left text-muted"><tr><th className="px-5 py-2 font-medium">When (UTC)</th><th className="px-2 py-2 font-medium">Who</th><th className="px-5 py-2 font-medium">What</th></tr></thead>
+        <tbody>
+          {entries.map((e) => (
+            <tr key={e.id} className="border-t border-line">
+              <td className="num whitespace-nowrap px-5 py-2">{e.createdAt.replace("T", " ").slice(0, 19)}</td>
+              <td className="px-2 py-2">{e.actorName ?? "a former member"}</td>
+              <td className="px-5 py-2">{describe(e.action, e.details)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      {entries.length === limit && (
+        <p className="px-5 py-3 text-sm"><Link href={`/s/${studio.id}/activity?before=${entries[entries.length - 1].id}`}>Older entries</Link></p>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,9 @@
+"use client";
+// Client-side providers: one TanStack Query client for polling and mutations.
+import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
+import { useState } from "react";
+
+export function Providers({ children }: { children: React.ReactNode }) {
+  const [client] = useState(() => new QueryClient({ defaultOptions: { queries: { staleTime: 5_000, retry: 1 } } }));
+  return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+}

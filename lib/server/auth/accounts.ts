@@ -1,0 +1,141 @@
+import "server-only";
+// Accounts: sign-up, e-mail verification, password reset, and credential checks with rate limits.
+import bcrypt from "bcryptjs";
+import { db } from "../db";
+import { AppError } from "../errors";
+import { hashToken, newId, newToken } from "../ids";
+import { appUrl, sendMail } from "../mail";
+import type { SignUpInput } from "@/lib/validation/auth";
+
+const BCRYPT_COST = 11;
+const VERIFY_TTL_MS = 48 * 3600_000;
+const RESET_TTL_MS = 3600_000;
+export const RATE = { windowMs: 15 * 60_000, perAccount: 5, perAddress: 20 } as const;
+
+export interface UserRow {
+  id: string;
+  email: string;
+  name: string;
+  password_hash: string;
+  email_verified_at: Date | null;
+}
+
+export async function findUserByEmail(email: string): Promise<UserRow | undefined> {
+  return db()("users").where({ email: email.toLowerCase() }).first();
+}
+
+export async function findUserById(id: string): Promise<Omit<UserRow, "password_hash"> | undefined> {
+  return db()("users").where({ id }).first("id", "email", "name", "email_verified_at");
+}
+
+export const hashPassword = (pw: string) => bcrypt.hash(pw, BCRYPT_COST);
+
+async function issueToken(userId: string, kind: "verify-email" | "reset-password", ttlMs: number): Promise<string> {
+  const token = newToken();
+  await db()("auth_tokens").insert({
+    id: newId(),
+    user_id: userId,
+    kind,
+    token_hash: hashToken(token),
+    expires_at: new Date(Date.now() + ttlMs),
+  });
+  return token;
+}
+
+export async function sendVerificationMail(user: { id: string; email: string; name: string }): Promise<void> {
+  const token = await issueToken(user.id, "verify-email", VERIFY_TTL_MS);
+  await sendMail({
+    to: user.email,
+    subject: "Confirm your e-mail address for Kitwright",
+    text: `Hello ${user.name},\n\nconfirm your address to start using Kitwright:\n\n${appUrl(`/verify?token=${token}`)}\n\nThe link works once and expires in 48 hours. If you did not sign up, ignore this message.\n`,
+  });
+}
+
+/** Creates an unverified account and mails the verification link. A taken address is a 409. */
+export async function signUp(input: SignUpInput, opts: { sendVerification?: boolean } = {}): Promise<{ id: string }> {
+  const existing = await findUserByEmail(input.email);
+  if (existing) throw new AppError("conflict", "An account with this e-mail address already exists. Sign in or reset your password.");
+  const id = newId();
+  const password_hash = await hashPassword(input.password);
+  try {
+    await db()("users").insert({ id, email: input.email, name: input.name, password_hash });
+  } catch (e) {
+    if ((e as { errno?: number }).errno === 1062) throw new AppError("conflict", "An account with this e-mail address already exists.");
+    throw e;
+  }
+  if (opts.sendVerification !== false) await sendVerificationMail({ id, email: input.email, name: input.name });
+  return { id };
+}
+
+/** Consumes a single-use token of a kind; returns its user id or throws a clear 422. */
+async function consumeToken(token: string, kind: "verify-email" | "reset-password"): Promise<string> {
+  return db().transaction(async (trx) => {
+    const row = await trx("auth_tokens").where({ token_hash: hashToken(token), kind }).forUpdate().first();
+    const what = kind === "verify-email" ? "confirmation link" : "reset link";
+    if (!row) throw new AppError("invalid-input", `This ${what} is not valid.`);
+    if (row.used_at) throw new AppError("invalid-input", `This ${what} has already been used.`);
+    if (new Date(row.expires_at).getTime() < Date.now()) throw new AppError("invalid-input", `This ${what} has expired; ask for a new one.`);
+    await trx("auth_tokens").where({ id: row.id }).update({ used_at: new Date() });
+    return row.user_id as string;
+  });
+}
+
+export async function verifyEmail(token: string): Promise<{ userId: string }> {
+  const userId = await consumeToken(token, "verify-email");
+  await db()("users").where({ id: userId }).whereNull("email_verified_at").update({ email_verified_at: new Date(), updated_at: new Date() });
+  return { userId };
+}
+
+/** Always succeeds from the caller's view (no account enumeration); mails only existing accounts. */
+export async function resendVerification(email: string): Promise<void> {
+  const u = await findUserByEmail(email);
+  if (u && !u.email_verified_at) await sendVerificationMail(u);
+}
+
+export async function requestPasswordReset(email: string): Promise<void> {
+  const u = await findUserByEmail(email);
+  if (!u) return;
+  const token = await issueToken(u.id, "reset-password", RESET_TTL_MS);
+  await sendMail({
+    to: u.email,
+    subject: "Reset your Kitwright password",
+    text: `Hello ${u.name},\n\nsomeone asked to reset the password of this Kitwright account. To choose a new password, open:\n\n${appUrl(`/reset?token=${token}`)}\n\nThe link works once and expires in one hour. If it was not you, ignore this message: your password stays as it is.\n`,
+  });
+}
+
+export async function resetPassword(token: string, password: string): Promise<void> {
+  const userId = await consumeToken(token, "reset-password");
+  const password_hash = await hashPassword(password);
+  // A reset link proves control of the address, so it also confirms it.
+  await db()("users").where({ id: userId }).update({ password_hash, updated_at: new Date(), email_verified_at: db().raw("COALESCE(email_verified_at, CURRENT_TIMESTAMP(3))") });
+  await db()("sign_in_attempts").where({ email: (await findUserById(userId))!.email }).delete();
+}
+
+function minutesLeft(oldest: Date): number {
+  return Math.max(1, Math.ceil((oldest.getTime() + RATE.windowMs - Date.now()) / 60_000));
+}
+
+/**
+ * Checks an e-mail + password. Failures are counted per account and per client address over a 15-minute
+ * window; past the limit every attempt is refused with the time to wait, even with the right password.
+ */
+export async function checkCredentials(emailRaw: string, password: string, ip: string): Promise<{ id: string; email: string; name: string }> {
+  const email = emailRaw.trim().toLowerCase();
+  const since = new Date(Date.now() - RATE.windowMs);
+  const [acc] = await db()("sign_in_attempts").where({ email, succeeded: false }).andWhere("created_at", ">", since).count({ n: "*" }).min({ oldest: "created_at" });
+  if (Number(acc.n) >= RATE.perAccount) {
+    throw new AppError("rate-limited", `Too many failed sign-ins for this account. Try again in ${minutesLeft(new Date(acc.oldest as string))} minutes, or reset your password.`);
+  }
+  const [addr] = await db()("sign_in_attempts").where({ ip, succeeded: false }).andWhere("created_at", ">", since).count({ n: "*" }).min({ oldest: "created_at" });
+  if (Number(addr.n) >= RATE.perAddress) {
+    throw new AppError("rate-limited", `Too many failed sign-ins from your network. Try again in ${minutesLeft(new Date(addr.oldest as string))} minutes.`);
+  }
+  const user = await findUserByEmail(email);
+  // Compare against a dummy hash when the account does not exist, so timing does not reveal it.
+  const ok = await bcrypt.compare(password, user?.password_hash ?? "$2b$11$CwTycUXWue0Thq9StjUM0uJ8c3s0FQ0l9e2yDq0l0Y3jTzqGmFvGe");
+  await db()("sign_in_attempts").insert({ email, ip, succeeded: ok && !!user });
+  if (!user || !ok) throw new AppError("unauthenticated", "That e-mail and password do not match an account.");
+  if (!user.email_verified_at) throw new AppError("forbidden", "Confirm your e-mail address first: use the link we sent you (or ask for a new one below).");
+  await db()("sign_in_attempts").where({ email, succeeded: false }).delete();
+  return { id: user.id, email: user.email, name: user.name };
+}

@@ -1,0 +1,54 @@
+import "server-only";
+// next-auth configuration: e-mail + password credentials, JWT sessions carrying the user id only.
+// Membership and role are read from the database on every request (lib/server/session.ts), so a removed
+// member loses access at once.
+import type { NextAuthOptions } from "next-auth";
+import CredentialsProvider from "next-auth/providers/credentials";
+import { env } from "../env";
+import { AppError } from "../errors";
+import { checkCredentials } from "./accounts";
+import { signInSchema } from "@/lib/validation/auth";
+
+function clientIp(headers: Record<string, string | string[] | undefined> | undefined): string {
+  const xff = headers?.["x-forwarded-for"];
+  const first = (Array.isArray(xff) ? xff[0] : xff)?.split(",")[0]?.trim();
+  return first || "local";
+}
+
+export function authOptions(): NextAuthOptions {
+  const e = env();
+  const secure = e.KW_APP_URL.startsWith("https://");
+  return {
+    secret: e.NEXTAUTH_SECRET,
+    session: { strategy: "jwt", maxAge: 7 * 24 * 3600 },
+    useSecureCookies: secure,
+    pages: { signIn: "/sign-in", error: "/sign-in" },
+    providers: [
+      CredentialsProvider({
+        name: "E-mail and password",
+        credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
+        async authorize(credentials, req) {
+          const parsed = signInSchema.safeParse({ email: credentials?.email ?? "", password: credentials?.password ?? "" });
+          if (!parsed.success) throw new Error("Enter your e-mail address and password.");
+          try {
+            const u = await checkCredentials(parsed.data.email, parsed.data.password, clientIp(req?.headers));
+            return { id: u.id, email: u.email, name: u.name };
+          } catch (err) {
+            if (err instanceof AppError) throw new Error(err.message);
+            throw new Error("Sign-in is unavailable right now; try again shortly.");
+          }
+        },
+      }),
+    ],
+    callbacks: {
+      async jwt({ token, user }) {
+        if (user) token.uid = user.id;
+        return token;
+      },
+      async session({ session, token }) {
+        if (session.user) session.user.id = token.uid as string;
+        return session;
+      },
+    },
+  };
+}

@@ -1,0 +1,32 @@
+import "server-only";
+// The environment, validated once. Nothing else in the app reads process.env.
+import { z } from "zod";
+
+const schema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  KW_DB_HOST: z.string().default("127.0.0.1"),
+  KW_DB_PORT: z.coerce.number().int().default(33061),
+  KW_DB_USER: z.string().default("kitwright"),
+  KW_DB_PASSWORD: z.string().default("kitwright-local"),
+  KW_DB_NAME: z.string().default("kitwright"),
+  KW_REDIS_URL: z.string().default("redis://127.0.0.1:63791"),
+  KW_STORAGE_DIR: z.string().default(".data/storage"),
+  KW_APP_URL: z.string().url().default("http://localhost:3000"),
+  NEXTAUTH_SECRET: z.string().min(16).default("kitwright-development-secret-change-me"),
+  SMTP_HOST: z.string().default("127.0.0.1"),
+  SMTP_PORT: z.coerce.number().int().default(2525),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  SMTP_SECURE: z.enum(["0", "1"]).default("0"),
+  MAIL_FROM: z.string().default("Kitwright <no-reply@kitwright.localhost>"),
+  /** Set when the local SMTP fake is in use: the folder it keeps mail in. The mail page exists only then. */
+  KW_MAIL_FAKE_DIR: z.string().optional(),
+});
+
+export type Env = z.infer<typeof schema>;
+
+let cached: Env | undefined;
+export function env(): Env {
+  if (!cached) cached = schema.parse(process.env);
+  return cached;
+}

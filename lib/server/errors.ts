@@ -1,0 +1,58 @@
+import "server-only";
+// One error class and one JSON shape for every failure: { error: { code, message } }.
+
+export type ErrorCode =
+  | "unauthenticated"
+  | "forbidden"
+  | "not-found"
+  | "invalid-input"
+  | "too-large"
+  | "conflict"
+  | "rate-limited"
+  | "unavailable"
+  | "internal";
+
+const STATUS: Record<ErrorCode, number> = {
+  unauthenticated: 401,
+  forbidden: 403,
+  "not-found": 404,
+  "invalid-input": 422,
+  "too-large": 413,
+  conflict: 409,
+  "rate-limited": 429,
+  unavailable: 503,
+  internal: 500,
+};
+
+export class AppError extends Error {
+  readonly status: number;
+  constructor(
+    readonly code: ErrorCode,
+    message: string,
+    readonly details?: unknown,
+  ) {
+    super(message);
+    this.status = STATUS[code];
+  }
+}
+
+export const notFound = (what = "That item") => new AppError("not-found", `${what} was not found.`);
+export const forbidden = (msg = "Your role in this studio does not allow that.") => new AppError("forbidden", msg);
+
+/** Database errors that mean "the database is not there" become a 503. */
+export function isDatabaseDown(e: unknown): boolean {
+  const code = (e as { code?: string })?.code;
+  return ["ECONNREFUSED", "PROTOCOL_CONNECTION_LOST", "ETIMEDOUT", "ER_CON_COUNT_ERROR", "EPIPE"].includes(code ?? "") ||
+    /Knex: Timeout acquiring a connection/.test((e as Error)?.message ?? "");
+}
+
+export function toErrorBody(e: unknown): { status: number; body: { error: { code: string; message: string; details?: unknown } } } {
+  if (e instanceof AppError) {
+    return { status: e.status, body: { error: { code: e.code, message: e.message, ...(e.details ? { details: e.details } : {}) } } };
+  }
+  if (isDatabaseDown(e)) {
+    return { status: 503, body: { error: { code: "unavailable", message: "The database is not reachable right now; try again shortly." } } };
+  }
+  console.error(e);
+  return { status: 500, body: { error: { code: "internal", message: "Something went wrong on our side." } } };
+}

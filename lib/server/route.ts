@@ -1,0 +1,140 @@
+import "server-only";
+// The one wrapper for every route handler: session -> studio membership -> permission -> zod parsing of
+// params, query and body -> handler -> errors mapped to { error: { code, message } }.
+// Each wrapped handler carries `meta` (access kind and permission) so the role-matrix test can find routes
+// without a rule.
+import { NextResponse, type NextRequest } from "next/server";
+import { getToken } from "next-auth/jwt";
+import { z } from "zod";
+import { env } from "./env";
+import { AppError, forbidden, notFound, toErrorBody } from "./errors";
+import { findUserById } from "./auth/accounts";
+import { getMembershipRole } from "./studios";
+import { can, type Permission, type Role } from "@/lib/permissions";
+
+export const MAX_JSON_BYTES = 256 * 1024;
+
+export type Access =
+  | { kind: "public" }
+  | { kind: "user" }
+  | { kind: "studio"; permission: Permission };
+
+export interface RouteMeta { access: Access }
+
+type AnySchema = z.ZodType;
+type Out<S> = S extends AnySchema ? z.infer<S> : undefined;
+
+export interface Ctx<P, Q, B> {
+  req: NextRequest;
+  params: P;
+  query: Q;
+  body: B;
+  user: { id: string; email: string; name: string } | null;
+  studio: { id: string; role: Role } | null;
+}
+
+interface Spec<A extends Access, PS, QS, BS> {
+  access: A;
+  params?: PS;
+  query?: QS;
+  body?: BS;
+}
+
+type Handler<A extends Access, P, Q, B> = (
+  ctx: Ctx<P, Q, B> & (A extends { kind: "public" } ? unknown : { user: NonNullable<Ctx<P, Q, B>["user"]> }) &
+    (A extends { kind: "studio" } ? { studio: NonNullable<Ctx<P, Q, B>["studio"]> } : unknown),
+) => Promise<Response | object | null>;
+
+export type WrappedHandler = ((req: NextRequest, ctx: { params: Promise<Record<string, string | string[]>> }) => Promise<Response>) & { meta: RouteMeta };
+
+function zodMessage(err: z.ZodError, where: string): AppError {
+  const issues = err.issues.map((i) => ({ path: [where, ...i.path.map(String)].join("."), message: i.message }));
+  const first = issues[0];
+  return new AppError("invalid-input", first ? `${first.path}: ${first.message}` : `Invalid ${where}.`, { issues });
+}
+
+function parseWith<S extends AnySchema | undefined>(schema: S, value: unknown, where: string): Out<S> {
+  if (!schema) return undefined as Out<S>;
+  const r = schema.safeParse(value);
+  if (!r.success) throw zodMessage(r.error, where);
+  return r.data as Out<S>;
+}
+
+/** State-changing requests must come from our own origin (the Origin header, else Sec-Fetch-Site). */
+export function checkSameOrigin(req: NextRequest): void {
+  if (["GET", "HEAD", "OPTIONS"].includes(req.method)) return;
+  const origin = req.headers.get("origin");
+  const host = req.headers.get("x-forwarded-host") ?? req.headers.get("host");
+  if (origin) {
+    let originHost: string;
+    try {
+      originHost = new URL(origin).host;
+    } catch {
+      throw new AppError("forbidden", "Requests from another site are refused.");
+    }
+    if (originHost !== host && origin !== new URL(env().KW_APP_URL).origin) throw new AppError("forbidden", "Requests from another site are refused.");
+    return;
+  }
+  const site = req.headers.get("sec-fetch-site");
+  if (site && site !== "same-origin" && site !== "none") throw new AppError("forbidden", "Requests from another site are refused.");
+}
+
+async function readJson(req: NextRequest): Promise<unknown> {
+  const len = Number(req.headers.get("content-length") ?? "0");
+  if (len > MAX_JSON_BYTES) throw new AppError("too-large", `The request body is larger than ${MAX_JSON_BYTES / 1024} KB.`);
+  const text = await req.text();
+  if (Buffer.byteLength(text) > MAX_JSON_BYTES) throw new AppError("too-large", `The request body is larger than ${MAX_JSON_BYTES / 1024} KB.`);
+  if (!text.trim()) return {};
+  const type = req.headers.get("content-type") ?? "";
+  if (!type.includes("application/json")) throw new AppError("invalid-input", "Send the body as JSON (Content-Type: application/json).");
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new AppError("invalid-input", "The request body is not valid JSON.");
+  }
+}
+
+export async function sessionUser(req: NextRequest): Promise<{ id: string; email: string; name: string } | null> {
+  const e = env();
+  const token = await getToken({ req, secret: e.NEXTAUTH_SECRET, secureCookie: e.KW_APP_URL.startsWith("https://") });
+  if (!token?.uid) return null;
+  const u = await findUserById(token.uid);
+  return u ? { id: u.id, email: u.email, name: u.name } : null;
+}
+
+export function route<A extends Access, PS extends AnySchema | undefined = undefined, QS extends AnySchema | undefined = undefined, BS extends AnySchema | undefined = undefined>(
+  spec: Spec<A, PS, QS, BS>,
+  handler: Handler<A, Out<PS>, Out<QS>, Out<BS>>,
+): WrappedHandler {
+  const wrapped = async (req: NextRequest, ctx: { params: Promise<Record<string, string | string[]>> }) => {
+    try {
+      checkSameOrigin(req);
+      const rawParams = (await ctx?.params) ?? {};
+      let user: Ctx<unknown, unknown, unknown>["user"] = null;
+      let studio: Ctx<unknown, unknown, unknown>["studio"] = null;
+      if (spec.access.kind !== "public") {
+        user = await sessionUser(req);
+        if (!user) throw new AppError("unauthenticated", "Sign in first.");
+      }
+      if (spec.access.kind === "studio") {
+        const studioId = typeof rawParams.studioId === "string" ? rawParams.studioId : "";
+        const role = /^[0-9a-f-]{36}$/i.test(studioId) ? await getMembershipRole({ studioId, userId: user!.id }) : null;
+        // Not a member: the studio's existence is not admitted (404, not 403).
+        if (!role) throw notFound("The studio");
+        if (!can(role, spec.access.permission)) throw forbidden();
+        studio = { id: studioId, role };
+      }
+      const params = parseWith(spec.params, rawParams, "params");
+      const query = parseWith(spec.query, Object.fromEntries(req.nextUrl.searchParams), "query");
+      const body = spec.body ? parseWith(spec.body, await readJson(req), "body") : (undefined as Out<BS>);
+      const out = await (handler as (c: Ctx<unknown, unknown, unknown>) => Promise<Response | object | null>)({ req, params, query, body, user, studio });
+      if (out instanceof Response) return out;
+      if (out === null) return new NextResponse(null, { status: 204 });
+      return NextResponse.json(out, { status: req.method === "POST" ? 201 : 200 });
+    } catch (e) {
+      const { status, body } = toErrorBody(e);
+      return NextResponse.json(body, { status, headers: { "cache-control": "no-store" } });
+    }
+  };
+  return Object.assign(wrapped, { meta: { access: spec.access } });
+}
