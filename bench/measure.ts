@@ -6,14 +6,14 @@
 // also written to bench/MEASURE-RESULTS.md. Workers are child processes (fork), one per core.
 import { fork, spawn, type ChildProcess } from "node:child_process";
 import { mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
-import { availableParallelism, cpus, tmpdir } from "node:os";
+import { availableParallelism, cpus, loadavg, tmpdir } from "node:os";
 import path from "node:path";
 import { decodeWav, encodeWav, measure } from "../lib/audio/index";
 import { hit, lcg } from "../lib/audio/signals";
 
 type Mode = "measure" | "decode";
 type ToChild = { paths: string[] } | { done: true };
-type FromChild = { ready: true } | { finished: number; maxRssKb: number };
+type FromChild = { ready: true } | { finished: number; maxRssKb: number; cpuMs: number };
 
 const FS = 48000;
 const SECONDS = 1.5;
@@ -21,20 +21,20 @@ const BATCH = 5;
 
 // ---------------------------------------------------------------- worker side
 async function child(mode: Mode): Promise<void> {
-  let processed = 0;
   const send = (m: FromChild) => process.send!(m);
+  let cpu: NodeJS.CpuUsage | null = null;
   process.on("message", async (msg: ToChild) => {
     if ("done" in msg) { process.exit(0); }
+    cpu ??= process.cpuUsage();
     for (const p of msg.paths) {
       const bytes = new Uint8Array(await readFile(p));
       const d = decodeWav(bytes);
       if (mode === "measure") measure(d);
-      processed++;
     }
-    send({ finished: msg.paths.length, maxRssKb: process.resourceUsage().maxRSS });
+    const used = process.cpuUsage(cpu);
+    send({ finished: msg.paths.length, maxRssKb: process.resourceUsage().maxRSS, cpuMs: (used.user + used.system) / 1000 });
   });
   send({ ready: true });
-  void processed;
 }
 
 // ---------------------------------------------------------------- generator
@@ -54,7 +54,7 @@ function oneShot(k: number): Float32Array[] {
 }
 
 // ---------------------------------------------------------------- runners
-interface PassResult { seconds: number; rssEarlyMb: number; rssEndMb: number }
+interface PassResult { seconds: number; rssEarlyMb: number; rssEndMb: number; cpuMsPerFile: number }
 
 async function runPass(mode: Mode, files: string[], workers: number): Promise<PassResult> {
   const self = process.argv[1];
@@ -63,7 +63,7 @@ async function runPass(mode: Mode, files: string[], workers: number): Promise<Pa
   await Promise.all(kids.map((k) => new Promise<void>((res) => k.once("message", () => res()))));
   let next = 0, done = 0;
   const earlyAt = Math.ceil(files.length / 5);
-  const rss = new Map<ChildProcess, { early: number; end: number; seen: number }>();
+  const rss = new Map<ChildProcess, { early: number; end: number; seen: number; cpuMs: number }>();
   const t0 = performance.now();
   await new Promise<void>((resolve, reject) => {
     const feed = (k: ChildProcess) => {
@@ -73,13 +73,14 @@ async function runPass(mode: Mode, files: string[], workers: number): Promise<Pa
       k.send({ paths } satisfies ToChild);
     };
     for (const k of kids) {
-      rss.set(k, { early: 0, end: 0, seen: 0 });
+      rss.set(k, { early: 0, end: 0, seen: 0, cpuMs: 0 });
       k.on("message", (m: FromChild) => {
         if (!("finished" in m)) return;
         done += m.finished;
         const r = rss.get(k)!;
         r.seen += m.finished;
         r.end = m.maxRssKb;
+        r.cpuMs = m.cpuMs;
         if (r.seen <= earlyAt / workers + BATCH) r.early = m.maxRssKb;
         if (done === files.length) resolve();
         else feed(k);
@@ -91,7 +92,7 @@ async function runPass(mode: Mode, files: string[], workers: number): Promise<Pa
   const seconds = (performance.now() - t0) / 1000;
   for (const k of kids) if (k.connected) k.send({ done: true } satisfies ToChild);
   const vals = [...rss.values()];
-  return { seconds, rssEarlyMb: Math.max(...vals.map((v) => v.early)) / 1024, rssEndMb: Math.max(...vals.map((v) => v.end)) / 1024 };
+  return { seconds, rssEarlyMb: Math.max(...vals.map((v) => v.early)) / 1024, rssEndMb: Math.max(...vals.map((v) => v.end)) / 1024, cpuMsPerFile: vals.reduce((a, v) => a + v.cpuMs, 0) / files.length };
 }
 
 async function runSox(files: string[], workers: number): Promise<number> {
@@ -125,23 +126,26 @@ async function main(): Promise<void> {
       bytes += wav.length;
     }
     const mb = bytes / 1e6;
+    const loadStart = loadavg().map((v) => v.toFixed(2)).join(" ");
     process.stdout.write(`running on ${workers} worker process(es), ${mb.toFixed(1)} MB ...\n`);
     const full = await runPass("measure", files, workers);
     const dec = await runPass("decode", files, workers);
     const soxSec = await runSox(files, workers);
-    const row = (name: string, s: number, extra: string) => `| ${name} | ${(count / s).toFixed(1)} | ${(mb / s).toFixed(1)} | ${(s * 1000 / count * workers).toFixed(2)} | ${extra} |`;
+    const row = (name: string, s: number, cpuMs: number | null, extra: string) =>
+      `| ${name} | ${(count / s).toFixed(1)} | ${(mb / s).toFixed(1)} | ${cpuMs === null ? "-" : cpuMs.toFixed(2)} | ${cpuMs === null ? "-" : ((workers * 1000) / cpuMs).toFixed(0)} | ${extra} |`;
     const table = [
-      `| pass (${count} files, ${workers} cores) | files/s | MB/s | ms per file per core | notes |`,
-      "|---|---:|---:|---:|---|",
-      row("full measurement (read + decode + measure)", full.seconds, `peak RSS per worker ${full.rssEarlyMb.toFixed(0)} MB after ${Math.ceil(count / 5)} files, ${full.rssEndMb.toFixed(0)} MB at the end`),
-      row("decode only (read + convert to floats)", dec.seconds, `peak RSS per worker ${dec.rssEarlyMb.toFixed(0)} MB early, ${dec.rssEndMb.toFixed(0)} MB at the end`),
-      row("sox FILE -n stats (Debian sox)", soxSec, "one process per file"),
+      `| pass (${count} files, ${workers} worker processes) | files/s | MB/s | CPU ms per file | files/s if the ${workers} cores were ours alone | notes |`,
+      "|---|---:|---:|---:|---:|---|",
+      row("full measurement (read + decode + measure)", full.seconds, full.cpuMsPerFile, `peak RSS per worker ${full.rssEarlyMb.toFixed(0)} MB after ${Math.ceil(count / 5)} files, ${full.rssEndMb.toFixed(0)} MB at the end`),
+      row("decode only (read + convert to floats)", dec.seconds, dec.cpuMsPerFile, `peak RSS per worker ${dec.rssEarlyMb.toFixed(0)} MB early, ${dec.rssEndMb.toFixed(0)} MB at the end`),
+      row("sox FILE -n stats (Debian sox)", soxSec, null, "one sox process per file"),
       "",
-      `Ratios: full measurement takes ${(full.seconds / dec.seconds).toFixed(2)}x the decode-only time and ${(full.seconds / soxSec).toFixed(2)}x the sox stats time (decode-only vs sox: ${(dec.seconds / soxSec).toFixed(2)}x).`,
+      `Ratios (wall time): full measurement takes ${(full.seconds / dec.seconds).toFixed(2)}x the decode-only time and ${(full.seconds / soxSec).toFixed(2)}x the sox stats time (decode-only vs sox: ${(dec.seconds / soxSec).toFixed(2)}x).`,
+      `Load average when the run started: ${loadStart}; at the end: ${loadavg().map((v) => v.toFixed(2)).join(" ")} (other work on the machine lowers the wall-time figures; CPU ms per file does not depend on it much).`,
     ].join("\n");
     process.stdout.write("\n" + table + "\n");
     const when = new Date().toISOString().slice(0, 16).replace("T", " ");
-    const md = `# Measurement benchmark\n\nProduced by \`npm run bench:measure\` (bench/measure.ts) on ${when} UTC, Node ${process.version}, ${cpus()[0]?.model ?? "unknown CPU"}.\nTarget: at least 100 files/s for the full measurement on 2 cores; peak RSS flat as the file count grows.\n\n${table}\n`;
+    const md = `# Measurement benchmark\n\nProduced by \`npm run bench:measure\` (bench/measure.ts) on ${when} UTC, Node ${process.version}, ${cpus()[0]?.model ?? "unknown CPU"}.\nTarget: at least 100 files/s for the full measurement on 2 cores; peak RSS flat as the file count grows.\nThe machine is shared: the wall-time columns include other users' load; \"files/s if the cores were ours alone\" is cores x 1000 / CPU ms per file.\n\n${table}\n`;
     await writeFile(path.join(path.dirname(process.argv[1]), "MEASURE-RESULTS.md"), md);
   } finally {
     await rm(dir, { recursive: true, force: true });

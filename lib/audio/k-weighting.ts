@@ -74,6 +74,29 @@ export function kWeightInto(x: ArrayLike<number>, fs: number, out: Float64Array,
   }
 }
 
+/**
+ * Add ga * ya^2 + gb * yb^2 to `out` for two channels filtered in one loop: the recursions of the two
+ * channels are independent, so the processor overlaps them (the one-channel loop is latency-bound).
+ */
+export function kWeightPairInto(xa: ArrayLike<number>, xb: ArrayLike<number>, fs: number, out: Float64Array, ga: number, gb: number): void {
+  const s = shelfCoefficients(fs);
+  const h = highpassCoefficients(fs);
+  const sb0 = s.b0, sb1 = s.b1, sb2 = s.b2, sa1 = s.a1, sa2 = s.a2, ha1 = h.a1, ha2 = h.a2;
+  const n = Math.min(xa.length, xb.length);
+  let ax1 = 0, ax2 = 0, am1 = 0, am2 = 0, ay1 = 0, ay2 = 0;
+  let bx1 = 0, bx2 = 0, bm1 = 0, bm2 = 0, by1 = 0, by2 = 0;
+  for (let i = 0; i < n; i++) {
+    const a = xa[i], b = xb[i];
+    const am = sb0 * a + sb1 * ax1 + sb2 * ax2 - sa1 * am1 - sa2 * am2;
+    const bm = sb0 * b + sb1 * bx1 + sb2 * bx2 - sa1 * bm1 - sa2 * bm2;
+    const ay = am - 2 * am1 + am2 - ha1 * ay1 - ha2 * ay2;
+    const by = bm - 2 * bm1 + bm2 - ha1 * by1 - ha2 * by2;
+    ax2 = ax1; ax1 = a; am2 = am1; am1 = am; ay2 = ay1; ay1 = ay;
+    bx2 = bx1; bx1 = b; bm2 = bm1; bm1 = bm; by2 = by1; by1 = by;
+    out[i] += ga * ay * ay + gb * by * by;
+  }
+}
+
 /** Magnitude response in dB of the cascade at frequency f (for checks such as +0.691 dB at 997 Hz). */
 export function kWeightingGainDb(f: number, fs: number): number {
   const w = (2 * Math.PI * f) / fs;

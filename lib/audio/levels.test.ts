@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { levels, stereoCorrelation, toDb } from "./levels";
+import { correlationAndMono, levels, stereoCorrelation, toDb } from "./levels";
 import { sine } from "./signals";
 
 const fs = 48000;
@@ -40,5 +40,10 @@ describe("levels against handbook facts", () => {
     expect(stereoCorrelation([s, s.map((v) => -v)])).toBeCloseTo(-1, 9);
     expect(stereoCorrelation([s, sine(fs, 1, 1000, 0.5, Math.PI / 2)])).toBeCloseTo(0, 3);
     expect(stereoCorrelation([s])).toBeNull();
+    const q = sine(fs, 1, 1000, 0.5, Math.PI / 3);
+    const fused = correlationAndMono([s, q]);
+    expect(fused.correlation).toBeCloseTo(stereoCorrelation([s, q])!, 9);
+    expect(fused.correlation).toBeCloseTo(Math.cos(Math.PI / 3), 3); // two sines 60 deg apart: cos 60 = 0.5
+    expect(fused.mono[100]).toBeCloseTo((s[100] + q[100]) / 2, 7);
   });
 });

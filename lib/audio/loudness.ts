@@ -1,7 +1,7 @@
 // Loudness per ITU-R BS.1770-4 Annex 1 (K-weighting, channel weights, 400 ms blocks) and EBU Tech 3341:
 // the maximum momentary loudness (our "strike loudness") and the gated integrated loudness
 // (blocks of 400 ms with 75 % overlap, absolute gate -70 LKFS, relative gate -10 LU).
-import { kWeightInto } from "./k-weighting";
+import { kWeightInto, kWeightPairInto } from "./k-weighting";
 
 export const ABSOLUTE_GATE_LUFS = -70;
 export const RELATIVE_GATE_LU = -10;
@@ -35,10 +35,10 @@ export function weightedPowerPrefix(channels: ArrayLike<number>[], fs: number, w
   const n = channels[0]?.length ?? 0;
   const P = new Float64Array(n + 1); // P[i + 1] first collects the power of sample i, then is summed in place
   const acc = P.subarray(1);
-  channels.forEach((x, c) => {
-    const g = weights[c] ?? 1;
-    if (g !== 0) kWeightInto(x, fs, acc, g);
-  });
+  const live = channels.map((x, c) => ({ x, g: weights[c] ?? 1 })).filter((c) => c.g !== 0);
+  let c = 0;
+  for (; c + 1 < live.length; c += 2) kWeightPairInto(live[c].x, live[c + 1].x, fs, acc, live[c].g, live[c + 1].g);
+  if (c < live.length) kWeightInto(live[c].x, fs, acc, live[c].g);
   for (let i = 1; i <= n; i++) P[i] += P[i - 1];
   return P;
 }

@@ -7,7 +7,7 @@ import type { Measurement, SpectralSummary } from "./types";
 import { decodeWav, type DecodedWav, type DecodeOptions } from "./decode";
 import type { WavMetadata } from "./chunks";
 import { MEASURE_VERSION } from "./version";
-import { levels, stereoCorrelation, toDb, SILENCE_DB } from "./levels";
+import { levels, correlationAndMono, toDb, SILENCE_DB } from "./levels";
 import { truePeaks } from "./true-peak";
 import { loudness } from "./loudness";
 import { onsetIndex, attackMs } from "./onset";
@@ -38,6 +38,7 @@ export function measure(decoded: DecodedWav): Measurement {
   const n = format.frames;
   const warnings = [...decoded.warnings];
   const lv = levels(channels, decoded.clipLevel);
+  const { correlation, mono } = correlationAndMono(channels);
   const base = {
     measureVersion: MEASURE_VERSION,
     format,
@@ -45,7 +46,7 @@ export function measure(decoded: DecodedWav): Measurement {
     clippedRuns: lv.clippedRuns,
     clippedSamples: lv.clippedSamples,
     truncated: decoded.truncated,
-    stereoCorrelation: stereoCorrelation(channels),
+    stereoCorrelation: correlation,
   };
   if (lv.samplePeak === 0) {
     warnings.push("silent: every sample is zero");
@@ -58,7 +59,7 @@ export function measure(decoded: DecodedWav): Measurement {
     };
   }
   if (lv.clippedRuns > 0) warnings.push(`clipped: ${lv.clippedRuns} run(s) of full-scale samples (${lv.clippedSamples} samples)`);
-  const tps = truePeaks(channels, fs);
+  const tps = truePeaks(channels, fs, lv.perChannel.map((c) => c.blockMax));
   const tp = Math.max(...tps);
   const ld = loudness(channels, fs, decoded.channelMask);
   const onset = onsetIndex(channels, fs, lv.samplePeak);
@@ -66,7 +67,6 @@ export function measure(decoded: DecodedWav): Measurement {
   const dec = analyseDecay(channels, fs, onset);
   if (dec.tail === "cut") warnings.push("tail cut off while still sounding");
 
-  const mono = monoMix(channels);
   const N = frameSizeFor(fs);
   const hop = N / 2;
   const an = analyzerFor(N, fs);

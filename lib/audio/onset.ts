@@ -55,7 +55,7 @@ export function hilbertEnvelope(x: ArrayLike<number>, start: number, len: number
   const out = new Float64Array(2 * N);
   f.inverseTransform(out, spec);
   const env = new Float64Array(len);
-  for (let i = 0; i < len; i++) env[i] = Math.hypot(out[2 * i], out[2 * i + 1]);
+  for (let i = 0; i < len; i++) { const re = out[2 * i], im = out[2 * i + 1]; env[i] = Math.sqrt(re * re + im * im); }
   return env;
 }
 

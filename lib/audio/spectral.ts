@@ -98,7 +98,7 @@ export class SpectralAnalyzer {
     for (let i = 0; i < avail; i++) input[i] = x[start + i] * window[i];
     input.fill(0, avail);
     this.fft.realTransform(out, input);
-    for (let k = 0; k < N / 2; k++) amp[k] = Math.hypot(out[2 * k], out[2 * k + 1]);
+    for (let k = 0; k < N / 2; k++) { const re = out[2 * k], im = out[2 * k + 1]; amp[k] = Math.sqrt(re * re + im * im); }
     return amp;
   }
 

@@ -9,7 +9,7 @@
 
 export const TAPS_PER_PHASE = 12;
 const KAISER_BETA = 6;
-const BLOCK = 64;
+export const BLOCK = 64; // must equal levels.ts PEAK_BLOCK for its block maxima to be used
 
 function besselI0(x: number): number {
   let sum = 1, term = 1;
@@ -70,7 +70,7 @@ function getPhases(L: number): PhaseSet {
 }
 
 /** Largest absolute interpolated value of one channel (linear; 1.0 = 0 dBTP). */
-export function truePeakChannel(x: ArrayLike<number>, fs: number): number {
+export function truePeakChannel(x: ArrayLike<number>, fs: number, blockMaxima?: Float64Array): number {
   const n = x.length;
   const L = oversamplingFactor(fs);
   const { phases, l1, near, rest } = getPhases(L);
@@ -78,18 +78,21 @@ export function truePeakChannel(x: ArrayLike<number>, fs: number): number {
   const T = TAPS_PER_PHASE;
   const half = T / 2;
   const nb = Math.ceil(n / BLOCK);
-  const bmax = new Float64Array(nb);
-  let best = 0;
-  for (let b = 0; b < nb; b++) {
-    let m = 0;
-    const end = Math.min(n, (b + 1) * BLOCK);
-    for (let i = b * BLOCK; i < end; i++) {
-      const a = Math.abs(x[i]);
-      if (a > m) m = a;
+  let bmax = blockMaxima && blockMaxima.length === nb ? blockMaxima : null;
+  if (!bmax) {
+    bmax = new Float64Array(nb);
+    for (let b = 0; b < nb; b++) {
+      let m = 0;
+      const end = Math.min(n, (b + 1) * BLOCK);
+      for (let i = b * BLOCK; i < end; i++) {
+        const a = Math.abs(x[i]);
+        if (a > m) m = a;
+      }
+      bmax[b] = m;
     }
-    bmax[b] = m;
-    if (m > best) best = m;
   }
+  let best = 0;
+  for (let b = 0; b < nb; b++) if (bmax[b] > best) best = bmax[b];
   // Neighbourhood bound per block (filter span is shorter than a block).
   const bound = new Float64Array(nb);
   for (let b = 0; b < nb; b++) bound[b] = Math.max(bmax[b], b > 0 ? bmax[b - 1] : 0, b + 1 < nb ? bmax[b + 1] : 0) * l1;
@@ -122,6 +125,6 @@ export function truePeak(channels: ArrayLike<number>[], fs: number): number {
 }
 
 /** True peak of each channel (linear). */
-export function truePeaks(channels: ArrayLike<number>[], fs: number): number[] {
-  return channels.map((ch) => truePeakChannel(ch, fs));
+export function truePeaks(channels: ArrayLike<number>[], fs: number, blockMaxima?: Float64Array[]): number[] {
+  return channels.map((ch, i) => truePeakChannel(ch, fs, blockMaxima?.[i]));
 }
