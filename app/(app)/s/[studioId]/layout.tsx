@@ -8,6 +8,10 @@ export default async function StudioLayout({ children, params }: { children: Rea
   const { studio } = await requireStudio(studioId);
   const tabs = [
     { href: `/s/${studio.id}`, label: "Overview", show: true },
+    { href: `/s/${studio.id}/libraries`, label: "Libraries", show: true },
+    { href: `/s/${studio.id}/kits`, label: "Kits", show: true },
+    { href: `/s/${studio.id}/layouts`, label: "Layouts", show: true },
+    { href: `/s/${studio.id}/audits`, label: "Audits", show: true },
     { href: `/s/${studio.id}/members`, label: "Members", show: true },
     { href: `/s/${studio.id}/activity`, label: "Activity", show: can(studio.role, "activity:read") },
   ];

@@ -1,0 +1,49 @@
+// Browser-test helpers: Debian's Chromium driven by playwright-core (never a downloaded browser), the
+// running app of the test profile (scripts/test.sh starts it), and the SMTP fake's mail folder.
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { chromium, type Browser, type Page } from "playwright-core";
+
+export const BASE = process.env.KW_APP_URL ?? "http://localhost:3100";
+const MAIL_DIR = process.env.KW_MAIL_FAKE_DIR ?? "";
+
+export async function launch(): Promise<Browser> {
+  const profile = fs.mkdtempSync(path.join(os.tmpdir(), "kw-chromium-"));
+  process.env.XDG_CONFIG_HOME = profile;
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+    headless: true,
+    args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync", `--user-data-dir=${profile}`],
+  });
+}
+
+export async function screenshot(page: Page, name: string): Promise<void> {
+  const dir = path.resolve("test-results/screens");
+  fs.mkdirSync(dir, { recursive: true });
+  await page.screenshot({ path: path.join(dir, `${name}.png`), fullPage: true });
+}
+
+export async function signIn(page: Page, email: string, password: string): Promise<void> {
+  await page.goto(`${BASE}/sign-in`);
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"), { timeout: 20_000 });
+}
+
+/** The newest mail to an address whose text matches, waiting up to timeoutMs; returns its first link. */
+export async function waitForMailLink(to: string, pattern: RegExp, timeoutMs = 15_000): Promise<string> {
+  const end = Date.now() + timeoutMs;
+  while (Date.now() < end) {
+    const files = fs.existsSync(MAIL_DIR) ? fs.readdirSync(MAIL_DIR).filter((f) => f.endsWith(".eml")).sort().reverse() : [];
+    for (const f of files) {
+      const raw = fs.readFileSync(path.join(MAIL_DIR, f), "utf8").replace(/=\r?\n/g, "").replace(/=3D/g, "=");
+      if (!raw.toLowerCase().includes(to.toLowerCase())) continue;
+      const m = raw.match(/https?:\/\/[^\s]+/g)?.find((l) => pattern.test(l));
+      if (m) return m;
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`no mail to ${to} with a link matching ${pattern}`);
+}
