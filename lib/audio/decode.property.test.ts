@@ -3,6 +3,8 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { decodeWav } from "./decode";
+import { measure } from "./measure";
+import { WavRefusal } from "./refusal";
 import { WaveFile } from "./wavefile-check";
 
 type Writer = { fromScratch(ch: number, fs: number, depth: string, s: number[][] | number[]): void; toBuffer(): Uint8Array };
@@ -47,6 +49,35 @@ describe("round trip through wavefile's writer and our reader (property test, fa
         }
       }),
       { numRuns: 300 },
+    );
+  });
+});
+
+describe("damaged files never crash or hang (fuzz with fast-check)", () => {
+  const base = new WaveFile() as unknown as Writer;
+  base.fromScratch(2, 48000, "24", [Array.from({ length: 300 }, (_, i) => Math.round(4e6 * Math.sin(i / 7))), Array.from({ length: 300 }, (_, i) => Math.round(-3e6 * Math.sin(i / 5)))]);
+  const good = base.toBuffer();
+  it("random byte changes in the headers and random truncation: a decoded file or a WavRefusal, and measure() copes", () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ at: fc.integer({ min: 0, max: 60 }), v: fc.integer({ min: 0, max: 255 }) }), { maxLength: 6 }),
+        fc.integer({ min: 0, max: good.length }),
+        (edits, cut) => {
+          const b = good.slice(0, cut);
+          for (const e of edits) if (e.at < b.length) b[e.at] = e.v;
+          let decoded;
+          try {
+            decoded = decodeWav(b, { maxSeconds: 5 });
+          } catch (err) {
+            expect(err).toBeInstanceOf(WavRefusal);
+            expect((err as WavRefusal).message.length).toBeGreaterThan(10);
+            return;
+          }
+          const m = measure(decoded);
+          expect(JSON.parse(JSON.stringify(m))).toEqual(m);
+        },
+      ),
+      { numRuns: 400 },
     );
   });
 });

@@ -62,7 +62,7 @@ export function measure(decoded: DecodedWav): Measurement {
   const tps = truePeaks(channels, fs, lv.perChannel.map((c) => c.blockMax));
   const tp = Math.max(...tps);
   const ld = loudness(channels, fs, decoded.channelMask);
-  const onset = onsetIndex(channels, fs, lv.samplePeak);
+  const onset = onsetIndex(channels, fs, lv.samplePeak, lv.perChannel.map((c) => c.dc));
   const attack = attackMs(channels, fs, onset, lv.loudestChannel);
   const dec = analyseDecay(channels, fs, onset);
   if (dec.tail === "cut") warnings.push("tail cut off while still sounding");

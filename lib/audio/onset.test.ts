@@ -16,6 +16,11 @@ describe("onset (leading silence): threshold -50 dB re peak, guarded against lea
     const x = hit(fs, 0.5, { leadSec: 0.04, noiseDb: -70, f: 300 });
     expect(Math.abs((onsetIndex([x], fs) / fs) * 1000 - 40)).toBeLessThanOrEqual(1);
   });
+  it("a DC offset of -30 dB re peak does not pass for the strike (offset removed, or caught by the lead-in guard)", () => {
+    const x = Float32Array.from(hit(fs, 0.5, { leadSec: 0.03, amp: 0.5 }), (v) => v + 0.016);
+    expect(Math.abs((onsetIndex([x], fs, undefined, [0.016]) / fs) * 1000 - 30)).toBeLessThanOrEqual(1);
+    expect(Math.abs((onsetIndex([x], fs) / fs) * 1000 - 30)).toBeLessThanOrEqual(1);
+  });
   it("uses the earliest channel", () => {
     const a = hit(fs, 0.5, { leadSec: 0.02 });
     const b = hit(fs, 0.5, { leadSec: 0.01 });

@@ -1,7 +1,8 @@
 // Onset (leading silence) and attack time of a one-shot.
 // Onset: the first sample whose magnitude (any channel) reaches a threshold of -50 dB re the sample peak,
 // raised to twice the largest magnitude of the first millisecond when the file starts in noise (so a noisy
-// lead-in is not mistaken for the strike) and never above -20 dB re peak. (Thresholds: common practice in
+// lead-in is not mistaken for the strike) and never above -20 dB re peak; each channel's DC offset is
+// removed first. (Thresholds: common practice in
 // trimming tools, no published source.)
 // Attack: 10 % to 90 % of the amplitude envelope peak (common rise-time definition), on the Hilbert
 // envelope (magnitude of the analytic signal, computed with one FFT over the first 120 ms after onset)
@@ -18,17 +19,19 @@ export function peakOf(channels: ArrayLike<number>[]): number {
 }
 
 /** Index of the first sample of the strike, or 0 for silence. */
-export function onsetIndex(channels: ArrayLike<number>[], fs: number, peak = peakOf(channels)): number {
+export function onsetIndex(channels: ArrayLike<number>[], fs: number, peak = peakOf(channels), dcOffsets?: number[]): number {
   if (peak === 0) return 0;
   const n = channels[0].length;
+  const dc = (c: number) => dcOffsets?.[c] ?? 0; // a DC offset must not pass for the strike
   const lead = Math.min(n, Math.max(1, Math.round(fs / 1000)));
   let leadMax = 0;
-  for (const x of channels) for (let i = 0; i < lead; i++) leadMax = Math.max(leadMax, Math.abs(x[i]));
+  channels.forEach((x, c) => { const d = dc(c); for (let i = 0; i < lead; i++) leadMax = Math.max(leadMax, Math.abs(x[i] - d)); });
   const thr = Math.min(peak * 10 ** (-20 / 20), Math.max(peak * 10 ** (ONSET_THRESHOLD_DB / 20), 2 * leadMax));
   let first = n;
-  for (const x of channels) {
-    for (let i = 0; i < first; i++) if (Math.abs(x[i]) >= thr) { first = i; break; }
-  }
+  channels.forEach((x, c) => {
+    const d = dc(c);
+    for (let i = 0; i < first; i++) if (Math.abs(x[i] - d) >= thr) { first = i; break; }
+  });
   return first === n ? 0 : first;
 }
 
