@@ -24,6 +24,7 @@ describe("measure(): the whole record on generated one-shots", () => {
     expect(m.tail).toBe("decayed");
     expect(Math.abs(m.t20Sec! / (6.9078 * 0.12) - 1)).toBeLessThan(0.05);
     expect(Math.abs(m.noiseFloorDbfs + 78)).toBeLessThan(2);
+    expect(m.noiseFloorMeasured).toBe(true);
   });
   it("levels are consistent: true peak >= sample peak, crest = peak - RMS, correlation 1 for scaled copies", () => {
     expect(m.truePeakDbtp).toBeGreaterThanOrEqual(m.samplePeakDbfs - 1e-9);

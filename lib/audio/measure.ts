@@ -108,6 +108,7 @@ export function measure(decoded: DecodedWav): Measurement {
     t20Sec: dec.t20Sec,
     tail: dec.tail,
     noiseFloorDbfs: dec.noiseFloorDbfs,
+    noiseFloorMeasured: dec.noiseFloorKnown,
     pitchHz,
     strike: strikeFrames.length ? summarize(strikeFrames, N, fs) : emptySummary(),
     body,

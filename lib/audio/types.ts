@@ -51,6 +51,7 @@ export interface Measurement {
   truncated: boolean; // data chunk shorter than its header claimed (measured what was there)
   warnings: string[];
   perChannel?: ChannelLevels[]; // added in MEASURE_VERSION 1: the level figures of each channel, in file order
+  noiseFloorMeasured?: boolean; // true when the floor was measured on a lead-in or a stationary tail; false: an upper bound (quietest 10 ms)
 }
 
 export interface ChannelLevels {
