@@ -11,7 +11,7 @@ import path from "node:path";
 import { decodeWav, encodeWav, measure } from "../lib/audio/index";
 import { hit, lcg } from "../lib/audio/signals";
 
-type Mode = "measure" | "decode";
+type Mode = "measure" | "decode" | "meyda";
 type ToChild = { paths: string[] } | { done: true };
 type FromChild = { ready: true } | { finished: number; maxRssKb: number; cpuMs: number };
 
@@ -21,6 +21,7 @@ const BATCH = 5;
 
 // ---------------------------------------------------------------- worker side
 async function child(mode: Mode): Promise<void> {
+  if (mode === "meyda") meydaLib = ((await import("meyda")) as unknown as { default: typeof meydaLib }).default;
   const send = (m: FromChild) => process.send!(m);
   let cpu: NodeJS.CpuUsage | null = null;
   process.on("message", async (msg: ToChild) => {
@@ -30,11 +31,25 @@ async function child(mode: Mode): Promise<void> {
       const bytes = new Uint8Array(await readFile(p));
       const d = decodeWav(bytes);
       if (mode === "measure") measure(d);
+      else if (mode === "meyda") meydaNaive(d.channels);
     }
     const used = process.cpuUsage(cpu);
     send({ finished: msg.paths.length, maxRssKb: process.resourceUsage().maxRSS, cpuMs: (used.user + used.system) / 1000 });
   });
   send({ ready: true });
+}
+
+/** Reference point only: meyda as commonly used, every 1024/512 frame of the mono mix, seven features. */
+let meydaLib: { bufferSize: number; sampleRate: number; windowingFunction: string; extract: (f: string[], s: Float32Array) => unknown } | null = null;
+function meydaNaive(channels: Float32Array[]): void {
+  const n = channels[0].length;
+  const mono = new Float32Array(n);
+  for (const x of channels) for (let i = 0; i < n; i++) mono[i] += x[i] / channels.length;
+  const m = meydaLib!;
+  m.bufferSize = 1024;
+  m.sampleRate = FS;
+  m.windowingFunction = "hanning";
+  for (let s = 0; s + 1024 <= n; s += 512) m.extract(["rms", "zcr", "spectralCentroid", "spectralFlatness", "spectralRolloff", "mfcc", "loudness"], mono.subarray(s, s + 1024));
 }
 
 // ---------------------------------------------------------------- generator
@@ -131,6 +146,8 @@ async function main(): Promise<void> {
     const full = await runPass("measure", files, workers);
     const dec = await runPass("decode", files, workers);
     const soxSec = await runSox(files, workers);
+    const meydaFiles = files.slice(0, Math.min(files.length, 100));
+    const naive = await runPass("meyda", meydaFiles, workers);
     const row = (name: string, s: number, cpuMs: number | null, extra: string) =>
       `| ${name} | ${(count / s).toFixed(1)} | ${(mb / s).toFixed(1)} | ${cpuMs === null ? "-" : cpuMs.toFixed(2)} | ${cpuMs === null ? "-" : ((workers * 1000) / cpuMs).toFixed(0)} | ${extra} |`;
     const table = [
@@ -139,9 +156,10 @@ async function main(): Promise<void> {
       row("full measurement (read + decode + measure)", full.seconds, full.cpuMsPerFile, `peak RSS per worker ${full.rssEarlyMb.toFixed(0)} MB after ${Math.ceil(count / 5)} files, ${full.rssEndMb.toFixed(0)} MB at the end`),
       row("decode only (read + convert to floats)", dec.seconds, dec.cpuMsPerFile, `peak RSS per worker ${dec.rssEarlyMb.toFixed(0)} MB early, ${dec.rssEndMb.toFixed(0)} MB at the end`),
       row("sox FILE -n stats (Debian sox)", soxSec, null, "one sox process per file"),
+      `| reference: meyda used naively (every 1024/512 frame, 7 features; first ${meydaFiles.length} files) | ${(meydaFiles.length / naive.seconds).toFixed(1)} | ${((mb * meydaFiles.length) / count / naive.seconds).toFixed(1)} | ${naive.cpuMsPerFile.toFixed(2)} | ${((workers * 1000) / naive.cpuMsPerFile).toFixed(0)} | what the spectrum-once-per-frame design avoids |`,
       "",
       `Ratios (wall time): full measurement takes ${(full.seconds / dec.seconds).toFixed(2)}x the decode-only time and ${(full.seconds / soxSec).toFixed(2)}x the sox stats time (decode-only vs sox: ${(dec.seconds / soxSec).toFixed(2)}x).`,
-      `Load average when the run started: ${loadStart}; at the end: ${loadavg().map((v) => v.toFixed(2)).join(" ")} (other work on the machine lowers the wall-time figures; CPU ms per file does not depend on it much).`,
+      `Load average when the run started: ${loadStart}; at the end: ${loadavg().map((v) => v.toFixed(2)).join(" ")} (other work on the machine lowers the wall-time figures; CPU ms per file depends on it less, though shared caches still slow it).`,
     ].join("\n");
     process.stdout.write("\n" + table + "\n");
     const when = new Date().toISOString().slice(0, 16).replace("T", " ");
