@@ -1,7 +1,7 @@
 import { defineConfig } from "vitest/config";
 import path from "node:path";
 
-const alias = { "@": path.resolve(__dirname), "server-only": path.resolve(__dirname, "tests/server-only-stub.ts") };
+const alias = { "@": path.resolve(import.meta.dirname), "server-only": path.resolve(import.meta.dirname, "tests/server-only-stub.ts") };
 
 export default defineConfig({
   resolve: { alias },

@@ -10,11 +10,12 @@ const MAIL_DIR = process.env.KW_MAIL_FAKE_DIR ?? "";
 
 export async function launch(): Promise<Browser> {
   const profile = fs.mkdtempSync(path.join(os.tmpdir(), "kw-chromium-"));
-  process.env.XDG_CONFIG_HOME = profile;
+  // playwright gives Chromium a fresh temporary profile itself; XDG_CONFIG_HOME keeps it out of $HOME.
   return chromium.launch({
+    env: { ...process.env, XDG_CONFIG_HOME: profile, HOME: profile } as Record<string, string>,
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
     headless: true,
-    args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync", `--user-data-dir=${profile}`],
+    args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
   });
 }
 
