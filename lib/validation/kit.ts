@@ -1,0 +1,105 @@
+// Shared zod schemas for kits, layouts and audits (forms and route handlers use the same ones).
+// Bodies are strict (unknown fields are refused with 422); the document shapes follow lib/audit/schema.ts
+// (kitwright.kit/v1, kitwright.layout/v1), whose own refinements (grid cells, duplicate ids) run on top.
+import { z } from "zod";
+import { ARTICULATIONS, FAMILIES } from "@/lib/catalog/taxonomy";
+import { KIT_SCHEMA, LAYOUT_SCHEMA, kitBodySchema, layoutBodySchema, MAX_GRID_PADS } from "@/lib/audit/schema";
+import { TEMPLATE_NAMES } from "@/lib/audit/templates";
+import { idParam } from "./studio";
+
+const name = z.string().trim().min(1, "Give it a name.").max(160);
+const sid = z.string().min(1).max(128);
+const articulation = z.enum(ARTICULATIONS);
+const family = z.enum(FAMILIES);
+const midi7 = z.number().int().min(0).max(127);
+const channel = z.number().int().min(1).max(16);
+
+/** Forward the issues of a lib/audit schema (its cross-field checks) onto a strict schema. */
+function alsoCheck<T>(schema: z.ZodType<T>) {
+  return (value: unknown, ctx: z.RefinementCtx) => {
+    const r = schema.safeParse(value);
+    if (!r.success) for (const i of r.error.issues) ctx.addIssue({ code: "custom", path: i.path as (string | number)[], message: i.message });
+  };
+}
+
+export const kitSlotSchema = z.strictObject({
+  id: sid,
+  name: z.string().trim().min(1, "Name the slot.").max(200),
+  family,
+  instrumentId: sid.nullable(),
+  standIns: z.partialRecord(articulation, articulation).optional(),
+});
+export const kitSlotsSchema = z.array(kitSlotSchema).max(256);
+
+export const kitDocSchema = z.strictObject({ id: sid, name: z.string().min(1).max(200), slots: kitSlotsSchema }).superRefine(alsoCheck(kitBodySchema));
+export const kitFileStrictSchema = z.strictObject({ schema: z.literal(KIT_SCHEMA), kit: kitDocSchema });
+
+export const createKitSchema = z
+  .strictObject({ name, slots: kitSlotsSchema.optional(), template: z.enum(TEMPLATE_NAMES as [string, ...string[]]).optional() })
+  .refine((b) => !(b.slots && b.template), { message: "Give slots or a template, not both." })
+  .superRefine((b, ctx) => {
+    if (b.slots) alsoCheck(kitBodySchema)({ id: "x", name: "x", slots: b.slots }, ctx);
+  });
+export const updateKitSchema = z
+  .strictObject({ name: name.optional(), slots: kitSlotsSchema.optional() })
+  .refine((b) => b.name !== undefined || b.slots !== undefined, { message: "Send a name or slots." })
+  .superRefine((b, ctx) => {
+    if (b.slots) alsoCheck(kitBodySchema)({ id: "x", name: "x", slots: b.slots }, ctx);
+  });
+export const copySchema = z.strictObject({ name: name.optional() });
+
+const padSchema = z.strictObject({
+  id: sid,
+  label: z.string().max(200),
+  row: z.number().int().min(1).max(64).optional(),
+  col: z.number().int().min(1).max(64).optional(),
+  zone: z.string().max(200).optional(),
+  note: midi7,
+  channel,
+  target: z.strictObject({ slotId: sid, articulation }).nullable(),
+});
+const pedalSchema = z.strictObject({
+  controller: z.number().int().min(0).max(119),
+  channel,
+  slotId: sid,
+  closedAt: z.enum(["low", "high"]),
+  zones: z.array(z.strictObject({ low: midi7, high: midi7, articulation })).min(1).max(16),
+  chickNote: midi7.nullable(),
+});
+const surfaceSchema = z.discriminatedUnion("kind", [
+  z.strictObject({ kind: z.literal("grid"), rows: z.number().int().min(1).max(64), cols: z.number().int().min(1).max(64) }),
+  z.strictObject({ kind: z.literal("zones") }),
+]);
+const layoutFields = {
+  name: z.string().min(1).max(200),
+  surface: surfaceSchema,
+  pads: z.array(padSchema).min(1).max(128),
+  hiHatPedal: pedalSchema.nullable(),
+  slots: z.array(z.strictObject({ id: sid, name: z.string().min(1).max(200), family })).optional(),
+};
+export const layoutDocSchema = z.strictObject({ id: sid, ...layoutFields }).superRefine(alsoCheck(layoutBodySchema));
+export const layoutFileStrictSchema = z.strictObject({ schema: z.literal(LAYOUT_SCHEMA), layout: layoutDocSchema });
+/** The editor saves the whole layout (the server keeps the row id). */
+export const layoutContentSchema = z.strictObject(layoutFields).superRefine((v, ctx) => alsoCheck(layoutBodySchema)({ id: "x", ...v }, ctx));
+
+export const createLayoutSchema = z
+  .strictObject({
+    name,
+    template: z.enum(TEMPLATE_NAMES as [string, ...string[]]).optional(),
+    grid: z.strictObject({ rows: z.number().int().min(1).max(64), cols: z.number().int().min(1).max(64) }).optional(),
+    zones: z.number().int().min(1).max(128).optional(),
+  })
+  .refine((b) => [b.template, b.grid, b.zones].filter((x) => x !== undefined).length === 1, { message: "Choose one of: a template, a blank grid, or a list of trigger zones." })
+  .refine((b) => !b.grid || b.grid.rows * b.grid.cols <= MAX_GRID_PADS, { message: `A grid holds 1 to ${MAX_GRID_PADS} pads.`, path: ["grid"] });
+export const updateLayoutSchema = z
+  .strictObject({ name: name.optional(), layout: layoutContentSchema.optional() })
+  .refine((b) => b.name !== undefined || b.layout !== undefined, { message: "Send a name or a layout." });
+
+export const runAuditSchema = z.strictObject({ layoutId: idParam, kitId: idParam });
+export const auditListQuery = z.strictObject({ layoutId: idParam.optional() });
+export const compareQuery = z.strictObject({ before: idParam, after: idParam });
+export const exportQuery = z.strictObject({ format: z.enum(["csv", "json", "midi"]) });
+
+export const kitParams = z.strictObject({ studioId: idParam, kitId: idParam });
+export const layoutParams = z.strictObject({ studioId: idParam, layoutId: idParam });
+export const auditParams = z.strictObject({ studioId: idParam, auditId: idParam });
