@@ -49,9 +49,10 @@ describe("platform flow in Chromium", () => {
     await page.getByText(/Confirm your e-mail address first/).waitFor();
 
     // The caught-mail page shows the link; follow it like a person would
-    await page.goto(`${BASE}/mail`);
-    await screenshot(page, "platform-02-mail");
     const verifyLink = await waitForMailLink(owner.email, /\/verify\?token=/);
+    await page.goto(`${BASE}/mail`);
+    await page.getByTestId("mail-list").waitFor();
+    await screenshot(page, "platform-02-mail");
     await page.getByRole("link", { name: verifyLink }).first().click();
     await page.waitForURL(/\/sign-in\?notice=verified/);
     await page.getByText("Your address is confirmed").waitFor();

@@ -1,5 +1,5 @@
 // A studio's area: its name, my role, and the studio's sections.
-import Link from "next/link";
+import { StudioTabs } from "@/components/studio-tabs";
 import { requireStudio } from "@/lib/server/session";
 import { can } from "@/lib/permissions";
 
@@ -21,13 +21,7 @@ export default async function StudioLayout({ children, params }: { children: Rea
         <h1 data-testid="studio-name">{studio.name}</h1>
         <span className="tag border-brand/30 bg-brand-soft text-brand" data-testid="my-role">you: {studio.role}</span>
       </div>
-      <nav aria-label="Studio sections" className="no-print flex gap-1 border-b border-line">
-        {tabs.filter((t) => t.show).map((t) => (
-          <Link key={t.href} href={t.href} className="-mb-px rounded-t-md border border-transparent px-3 py-2 text-sm text-ink hover:border-line hover:bg-card hover:no-underline">
-            {t.label}
-          </Link>
-        ))}
-      </nav>
+      <StudioTabs base={`/s/${studio.id}`} tabs={tabs.filter((t) => t.show).map(({ href, label }) => ({ href, label }))} />
       {children}
     </div>
   );
