@@ -17,6 +17,16 @@ function describe(action: string, d: Record<string, unknown> | null): string {
     case "invitation.accepted": return `joined as ${s("role")} (${s("email")})`;
     case "member.role-changed": return `changed a member's role from ${s("from")} to ${s("to")}`;
     case "member.removed": return `removed ${s("email")} (${s("role")})`;
+    case "kit.created": return `created the kit "${s("name")}"`;
+    case "kit.renamed": return `renamed the kit "${s("from")}" to "${s("to")}"`;
+    case "kit.updated": return `changed the slots of the kit "${s("name")}"`;
+    case "kit.deleted": return `deleted the kit "${s("name")}"`;
+    case "layout.created": return `created the layout "${s("name")}"`;
+    case "layout.imported": return `imported the layout "${s("name")}"`;
+    case "layout.renamed": return `renamed the layout "${s("from")}" to "${s("to")}"`;
+    case "layout.updated": return `edited the pads of the layout "${s("name")}"`;
+    case "layout.deleted": return `deleted the layout "${s("name")}"`;
+    case "audit.run": return `audited "${s("layout")}" against "${s("kit")}" (score ${s("score")}, ${s("silent")} silent pads)`;
     default: return `${action}${d ? ` ${JSON.stringify(d)}` : ""}`;
   }
 }
