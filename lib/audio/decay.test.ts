@@ -48,6 +48,10 @@ describe("tail state and noise floor (our rule, see decay.ts; no published sourc
     const x = hit(fs, 0.6, { tau: 0.5, noiseDb: -80 });
     expect(analyseDecay([x], fs, 0).tail).toBe("cut");
   });
+  it("a sustained tone cut off (no decay at all, no lead-in) is 'cut', not mistaken for a noise floor", () => {
+    const x = Float32Array.from({ length: Math.round(0.8 * fs) }, (_, i) => 0.5 * Math.sin((2 * Math.PI * 440 * i) / fs));
+    expect(analyseDecay([x], fs, 0).tail).toBe("cut");
+  });
   it("a long cymbal-like tail (T60 about 4 s) cut at 1.2 s is 'cut'", () => {
     const rnd = lcg(7);
     const x = Float32Array.from({ length: Math.round(1.2 * fs) }, (_, i) => 0.5 * Math.exp(-i / fs / 0.6) * rnd());

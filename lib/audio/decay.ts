@@ -4,7 +4,8 @@
 //
 // Noise floor (our rule; common practice, no published source): the mean power of the lead-in before the
 // onset (when there are at least 2 ms of it) and of the last 300 ms when that stretch is stationary (its two
-// halves within 1 dB, i.e. decaying slower than about 7 dB/s); the lower of the two. With neither, the
+// halves within 1 dB, i.e. decaying slower than about 7 dB/s, and at least 20 dB under the loudest 10 ms);
+// the lower of the two. With neither, the
 // quietest 10 ms after the strike is reported (an upper bound) and the tail test falls back to a 60 dB range.
 // Tail: 'decayed' when the last 10 ms are digital silence, within 6 dB of the noise floor, or 60 dB or more
 // below the loudest 10 ms; otherwise 'cut'. Schroeder integration stops where the 10 ms level first falls
@@ -87,7 +88,9 @@ export function analyseDecay(channels: ArrayLike<number>[], fs: number, onset: n
   if (n - tailLen > onset + Math.round(0.05 * fs)) {
     const a = dbPow(meanPower(channels, n - tailLen, n - tailLen / 2));
     const b = dbPow(meanPower(channels, n - tailLen / 2, n));
-    if (Math.abs(a - b) < 1 || (a === SILENCE_DB && b === SILENCE_DB)) floors.push(dbPow(meanPower(channels, n - tailLen, n)));
+    const tail = dbPow(meanPower(channels, n - tailLen, n));
+    // a stationary tail within 20 dB of the loudest 10 ms is a sustained sound, not a noise floor
+    if ((Math.abs(a - b) < 1 && tail <= loudest - 20) || (a === SILENCE_DB && b === SILENCE_DB)) floors.push(tail);
   }
   const noiseFloorKnown = floors.length > 0;
   let noiseFloor = noiseFloorKnown ? Math.min(...floors) : SILENCE_DB;
