@@ -82,12 +82,18 @@ function main(argv: string[]): void {
     process.exit(2);
   }
   const outdir = path.resolve(rest[0]);
-  const s = generateDemoLibrary(outdir, {
-    seed,
-    onFile: (_f, i, n) => {
-      if ((i + 1) % 25 === 0 || i + 1 === n) process.stderr.write(`  ${i + 1}/${n}\r`);
-    },
-  });
+  let s: GenerateDemoSummary;
+  try {
+    s = generateDemoLibrary(outdir, {
+      seed,
+      onFile: (_f, i, n) => {
+        if ((i + 1) % 25 === 0 || i + 1 === n) process.stderr.write(`  ${i + 1}/${n}\r`);
+      },
+    });
+  } catch (e) {
+    console.error(`could not write the demo library to ${outdir}: ${(e as Error).message}`);
+    process.exit(1);
+  }
   process.stderr.write("\n");
   console.log(`${s.studio} / ${s.library} (seed ${seed}) -> ${s.outdir}`);
   console.log(`${s.files} files, ${(s.bytes / 1048576).toFixed(1)} MiB, ${s.seconds.toFixed(1)} s`);
