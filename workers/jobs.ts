@@ -1,15 +1,56 @@
 // Job definitions: queue names, job names and versions, shared by producers (the app) and the worker.
-import { Queue } from "bullmq";
+import { Queue, type JobsOptions } from "bullmq";
 import { env } from "@/lib/server/env";
+import { MEASURE_VERSION } from "@/lib/audio/version";
 
 export const MAINTENANCE_QUEUE = "kw-maintenance";
+export const MEASURE_QUEUE = "kw-measure";
+export const REGROUP_QUEUE = "kw-regroup";
 
 export const JOBS = {
   purgeExpired: { name: "purge-expired", version: 1 },
+  measure: { name: "measure", version: MEASURE_VERSION },
+  regroup: { name: "regroup", version: 1 },
 } as const;
 
-let q: Queue | undefined;
-export function maintenanceQueue(): Queue {
-  if (!q) q = new Queue(MAINTENANCE_QUEUE, { connection: { url: env().KW_REDIS_URL, maxRetriesPerRequest: null } });
+export interface MeasureJobData { sampleId: string; studioId: string; libraryId: string }
+export interface RegroupJobData { studioId: string; libraryId: string }
+
+/** Attempts and backoff of a measure job: 3 tries, 2 s then 4 s apart. */
+export const MEASURE_ATTEMPTS = 3;
+export const MEASURE_JOB_OPTS: JobsOptions = {
+  attempts: MEASURE_ATTEMPTS,
+  backoff: { type: "exponential", delay: 2000 },
+  removeOnComplete: { age: 3600, count: 20_000 },
+  removeOnFail: { age: 7 * 24 * 3600 },
+};
+
+/** Idempotent key: one job per sample and measuring version. */
+export const measureJobId = (sampleId: string) => `measure:${sampleId}:${MEASURE_VERSION}`;
+
+/** Regroups are debounced per library: all requests inside one window share one job, run after it closes. */
+export const REGROUP_WINDOW_MS = 1500;
+export function regroupJob(libraryId: string, now = Date.now()): { jobId: string; delay: number } {
+  const bucket = Math.floor(now / REGROUP_WINDOW_MS);
+  return { jobId: `regroup-${libraryId}-${bucket}`, delay: (bucket + 1) * REGROUP_WINDOW_MS - now + 100 };
+}
+
+const connection = () => ({ url: env().KW_REDIS_URL, maxRetriesPerRequest: null });
+const queues = new Map<string, Queue>();
+function queue(name: string): Queue {
+  let q = queues.get(name);
+  if (!q) {
+    q = new Queue(name, { connection: connection() });
+    queues.set(name, q);
+  }
   return q;
+}
+export const maintenanceQueue = (): Queue => queue(MAINTENANCE_QUEUE);
+export const measureQueue = (): Queue => queue(MEASURE_QUEUE);
+export const regroupQueue = (): Queue => queue(REGROUP_QUEUE);
+
+export async function closeQueues(): Promise<void> {
+  const all = [...queues.values()];
+  queues.clear();
+  await Promise.all(all.map((q) => q.close()));
 }

@@ -11,6 +11,16 @@ const schema = z.object({
   KW_DB_NAME: z.string().default("kitwright"),
   KW_REDIS_URL: z.string().default("redis://127.0.0.1:63791"),
   KW_STORAGE_DIR: z.string().default(".data/storage"),
+  /** Set KW_S3_BUCKET to keep samples in an S3-compatible store instead of the local disk. */
+  KW_S3_BUCKET: z.string().optional(),
+  KW_S3_ENDPOINT: z.string().optional(),
+  KW_S3_REGION: z.string().default("us-east-1"),
+  KW_S3_ACCESS_KEY: z.string().optional(),
+  KW_S3_SECRET_KEY: z.string().optional(),
+  KW_UPLOAD_MAX_FILE_BYTES: z.coerce.number().int().positive().default(200 * 1024 * 1024),
+  KW_UPLOAD_MAX_BATCH_BYTES: z.coerce.number().int().positive().default(4 * 1024 * 1024 * 1024),
+  /** Worker threads that measure in parallel (0 = measure on the worker's main thread). Default: one per core. */
+  KW_MEASURE_THREADS: z.coerce.number().int().min(0).optional(),
   KW_APP_URL: z.string().url().default("http://localhost:3000"),
   NEXTAUTH_SECRET: z.string().min(16).default("kitwright-development-secret-change-me"),
   SMTP_HOST: z.string().default("127.0.0.1"),

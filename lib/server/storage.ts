@@ -1,27 +1,196 @@
 import "server-only";
-// Sample storage behind one interface. Local disk under the data folder by default.
-import fs from "node:fs/promises";
+// Sample storage behind one interface: local disk under the data folder by default, or an S3-compatible
+// object store (AWS SDK v3) when KW_S3_BUCKET is set. Keys are relative paths with "/" separators
+// ("libraries/<libraryId>/<sampleId>.wav"). Writes are all-or-nothing: an aborted stream leaves no object.
+import fs from "node:fs";
+import fsp from "node:fs/promises";
 import path from "node:path";
+import crypto from "node:crypto";
+import { Readable } from "node:stream";
+import { pipeline } from "node:stream/promises";
+import { DeleteObjectCommand, DeleteObjectsCommand, GetObjectCommand, HeadObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client, type S3ClientConfig } from "@aws-sdk/client-s3";
+import os from "node:os";
 import { env } from "./env";
+
+/** Byte range, both ends inclusive (as in HTTP Range). */
+export interface ByteRange { start: number; end: number }
 
 export interface Storage {
   kind: string;
   check(): Promise<void>;
+  /** Stores a stream under key; resolves with the bytes written. On error nothing is left under key. */
+  put(key: string, body: Readable | Uint8Array): Promise<{ bytes: number }>;
+  /** Whole object as bytes. */
+  getBytes(key: string): Promise<Uint8Array>;
+  /** A stream of the object or of one byte range of it. */
+  getStream(key: string, range?: ByteRange): Promise<Readable>;
+  /** Size in bytes, or null when there is no such object. */
+  size(key: string): Promise<number | null>;
+  exists(key: string): Promise<boolean>;
+  delete(key: string): Promise<void>;
+  /** Deletes every object whose key starts with prefix (a "folder" ending in "/"). */
+  deletePrefix(prefix: string): Promise<number>;
 }
 
-class LocalStorage implements Storage {
+function safeKey(key: string): string {
+  const parts = key.split("/");
+  if (!key || key.startsWith("/") || parts.some((p) => p === "" || p === "." || p === "..") || key.includes("\\") || key.includes("\0")) {
+    throw new Error(`invalid storage key "${key}"`);
+  }
+  return key;
+}
+
+export class LocalStorage implements Storage {
   readonly kind = "local";
   constructor(private readonly root: string) {}
+  private file(key: string): string {
+    return path.join(this.root, ...safeKey(key).split("/"));
+  }
   async check(): Promise<void> {
-    await fs.mkdir(this.root, { recursive: true });
+    await fsp.mkdir(this.root, { recursive: true });
     const probe = path.join(this.root, `.probe-${process.pid}`);
-    await fs.writeFile(probe, "ok");
-    await fs.unlink(probe);
+    await fsp.writeFile(probe, "ok");
+    await fsp.unlink(probe);
+  }
+  async put(key: string, body: Readable | Uint8Array): Promise<{ bytes: number }> {
+    const target = this.file(key);
+    await fsp.mkdir(path.dirname(target), { recursive: true });
+    const tmp = `${target}.part-${crypto.randomBytes(6).toString("hex")}`;
+    let bytes = 0;
+    const src = body instanceof Uint8Array ? Readable.from([Buffer.from(body.buffer, body.byteOffset, body.byteLength)]) : body;
+    src.on("data", (c: Buffer) => (bytes += c.length));
+    try {
+      await pipeline(src, fs.createWriteStream(tmp));
+      await fsp.rename(tmp, target);
+    } catch (e) {
+      await fsp.rm(tmp, { force: true });
+      throw e;
+    }
+    return { bytes };
+  }
+  async getBytes(key: string): Promise<Uint8Array> {
+    const b = await fsp.readFile(this.file(key));
+    return new Uint8Array(b.buffer, b.byteOffset, b.byteLength);
+  }
+  async getStream(key: string, range?: ByteRange): Promise<Readable> {
+    const f = this.file(key);
+    await fsp.access(f);
+    return fs.createReadStream(f, range ? { start: range.start, end: range.end } : undefined);
+  }
+  async size(key: string): Promise<number | null> {
+    try {
+      return (await fsp.stat(this.file(key))).size;
+    } catch {
+      return null;
+    }
+  }
+  async exists(key: string): Promise<boolean> {
+    return (await this.size(key)) !== null;
+  }
+  async delete(key: string): Promise<void> {
+    await fsp.rm(this.file(key), { force: true });
+  }
+  async deletePrefix(prefix: string): Promise<number> {
+    const dir = this.file(prefix.replace(/\/+$/, ""));
+    let n = 0;
+    try {
+      n = (await fsp.readdir(dir, { recursive: true })).length;
+    } catch {
+      return 0;
+    }
+    await fsp.rm(dir, { recursive: true, force: true });
+    return n;
+  }
+}
+
+export interface S3Options {
+  bucket: string;
+  endpoint?: string;
+  region?: string;
+  accessKeyId?: string;
+  secretAccessKey?: string;
+  /** Path-style URLs (needed by most self-hosted S3-compatible stores and local fakes). */
+  forcePathStyle?: boolean;
+}
+
+export class S3Storage implements Storage {
+  readonly kind = "s3";
+  readonly client: S3Client;
+  readonly bucket: string;
+  constructor(o: S3Options) {
+    const cfg: S3ClientConfig = { region: o.region ?? "us-east-1", forcePathStyle: o.forcePathStyle ?? !!o.endpoint };
+    if (o.endpoint) cfg.endpoint = o.endpoint;
+    if (o.accessKeyId && o.secretAccessKey) cfg.credentials = { accessKeyId: o.accessKeyId, secretAccessKey: o.secretAccessKey };
+    this.client = new S3Client(cfg);
+    this.bucket = o.bucket;
+  }
+  async check(): Promise<void> {
+    await this.client.send(new ListObjectsV2Command({ Bucket: this.bucket, MaxKeys: 1 }));
+  }
+  async put(key: string, body: Readable | Uint8Array): Promise<{ bytes: number }> {
+    safeKey(key);
+    if (body instanceof Uint8Array) {
+      await this.client.send(new PutObjectCommand({ Bucket: this.bucket, Key: key, Body: body, ContentLength: body.byteLength, ContentType: "audio/wav" }));
+      return { bytes: body.byteLength };
+    }
+    // A plain PUT needs the length first: spool the stream to a temporary file (never to memory).
+    const tmp = path.join(os.tmpdir(), `kw-s3-${crypto.randomBytes(8).toString("hex")}`);
+    try {
+      await pipeline(body, fs.createWriteStream(tmp));
+      const bytes = (await fsp.stat(tmp)).size;
+      await this.client.send(new PutObjectCommand({ Bucket: this.bucket, Key: key, Body: fs.createReadStream(tmp), ContentLength: bytes, ContentType: "audio/wav" }));
+      return { bytes };
+    } finally {
+      await fsp.rm(tmp, { force: true });
+    }
+  }
+  async getBytes(key: string): Promise<Uint8Array> {
+    const out = await this.client.send(new GetObjectCommand({ Bucket: this.bucket, Key: safeKey(key) }));
+    return await out.Body!.transformToByteArray();
+  }
+  async getStream(key: string, range?: ByteRange): Promise<Readable> {
+    const out = await this.client.send(new GetObjectCommand({ Bucket: this.bucket, Key: safeKey(key), Range: range ? `bytes=${range.start}-${range.end}` : undefined }));
+    return out.Body as Readable;
+  }
+  async size(key: string): Promise<number | null> {
+    try {
+      const h = await this.client.send(new HeadObjectCommand({ Bucket: this.bucket, Key: safeKey(key) }));
+      return h.ContentLength ?? 0;
+    } catch (e) {
+      const status = (e as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
+      if (status === 404 || (e as Error).name === "NotFound" || (e as Error).name === "NoSuchKey") return null;
+      throw e;
+    }
+  }
+  async exists(key: string): Promise<boolean> {
+    return (await this.size(key)) !== null;
+  }
+  async delete(key: string): Promise<void> {
+    await this.client.send(new DeleteObjectCommand({ Bucket: this.bucket, Key: safeKey(key) }));
+  }
+  async deletePrefix(prefix: string): Promise<number> {
+    let n = 0;
+    let token: string | undefined;
+    do {
+      const page = await this.client.send(new ListObjectsV2Command({ Bucket: this.bucket, Prefix: prefix, ContinuationToken: token }));
+      const keys = (page.Contents ?? []).map((c) => ({ Key: c.Key! }));
+      if (keys.length) {
+        await this.client.send(new DeleteObjectsCommand({ Bucket: this.bucket, Delete: { Objects: keys, Quiet: true } }));
+        n += keys.length;
+      }
+      token = page.IsTruncated ? page.NextContinuationToken : undefined;
+    } while (token);
+    return n;
   }
 }
 
 let cached: Storage | undefined;
 export function storage(): Storage {
-  if (!cached) cached = new LocalStorage(path.resolve(env().KW_STORAGE_DIR));
+  if (!cached) {
+    const e = env();
+    cached = e.KW_S3_BUCKET
+      ? new S3Storage({ bucket: e.KW_S3_BUCKET, endpoint: e.KW_S3_ENDPOINT, region: e.KW_S3_REGION, accessKeyId: e.KW_S3_ACCESS_KEY, secretAccessKey: e.KW_S3_SECRET_KEY })
+      : new LocalStorage(path.resolve(e.KW_STORAGE_DIR));
+  }
   return cached;
 }

@@ -1,0 +1,129 @@
+import "server-only";
+// Libraries of a studio: create, rename, describe, delete (with their stored files), and counts per state.
+import { db } from "../db";
+import { logActivity } from "../activity";
+import { AppError, notFound } from "../errors";
+import { newId } from "../ids";
+import { storage } from "../storage";
+
+export type StateCounts = { queued: number; measuring: number; catalogued: number; rejected: number; total: number };
+
+export interface LibrarySummary {
+  id: string;
+  name: string;
+  description: string | null;
+  createdAt: string;
+  updatedAt: string;
+  counts: StateCounts;
+  instruments: number;
+  healthComputedAt: string | null;
+}
+
+/** Storage folder of a library's files. */
+export const libraryPrefix = (studioId: string, libraryId: string) => `studios/${studioId}/libraries/${libraryId}/`;
+export const sampleKey = (studioId: string, libraryId: string, sampleId: string) => `${libraryPrefix(studioId, libraryId)}${sampleId}.wav`;
+
+const emptyCounts = (): StateCounts => ({ queued: 0, measuring: 0, catalogued: 0, rejected: 0, total: 0 });
+
+async function countsFor(studioId: string, libraryIds: string[]): Promise<Map<string, StateCounts>> {
+  const out = new Map<string, StateCounts>(libraryIds.map((id) => [id, emptyCounts()]));
+  if (!libraryIds.length) return out;
+  const rows = await db()("samples").where({ studio_id: studioId }).whereIn("library_id", libraryIds).groupBy("library_id", "state").select("library_id", "state").count({ n: "*" });
+  for (const r of rows as { library_id: string; state: keyof StateCounts; n: number | string }[]) {
+    const c = out.get(r.library_id)!;
+    c[r.state] = Number(r.n);
+    c.total += Number(r.n);
+  }
+  return out;
+}
+
+function toSummary(r: Record<string, any>, counts: StateCounts, instruments: number): LibrarySummary {
+  return {
+    id: r.id,
+    name: r.name,
+    description: r.description ?? null,
+    createdAt: new Date(r.created_at).toISOString(),
+    updatedAt: new Date(r.updated_at).toISOString(),
+    counts,
+    instruments,
+    healthComputedAt: r.computed_at ? new Date(r.computed_at).toISOString() : null,
+  };
+}
+
+export async function listLibraries({ studioId }: { studioId: string }): Promise<LibrarySummary[]> {
+  const rows = await db()("libraries as l").leftJoin("library_health as h", "h.library_id", "l.id").where("l.studio_id", studioId).orderBy("l.name").select("l.*", "h.computed_at");
+  const ids = rows.map((r) => r.id as string);
+  const counts = await countsFor(studioId, ids);
+  const inst = ids.length ? await db()("instruments").where({ studio_id: studioId }).whereIn("library_id", ids).groupBy("library_id").select("library_id").count({ n: "*" }) : [];
+  const instBy = new Map((inst as { library_id: string; n: number | string }[]).map((r) => [r.library_id, Number(r.n)]));
+  return rows.map((r) => toSummary(r, counts.get(r.id)!, instBy.get(r.id) ?? 0));
+}
+
+export async function getLibrary({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<LibrarySummary> {
+  const r = await db()("libraries as l").leftJoin("library_health as h", "h.library_id", "l.id").where({ "l.studio_id": studioId, "l.id": libraryId }).first("l.*", "h.computed_at");
+  if (!r) throw notFound("The library");
+  const counts = (await countsFor(studioId, [libraryId])).get(libraryId)!;
+  const inst = await db()("instruments").where({ studio_id: studioId, library_id: libraryId }).count({ n: "*" }).first();
+  return toSummary(r, counts, Number(inst?.n ?? 0));
+}
+
+/** Throws 404 unless the library belongs to the studio. */
+export async function assertLibrary({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<{ id: string; name: string }> {
+  const r = await db()("libraries").where({ studio_id: studioId, id: libraryId }).first("id", "name");
+  if (!r) throw notFound("The library");
+  return r;
+}
+
+export async function libraryProgress({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<StateCounts & { pending: number; healthComputedAt: string | null }> {
+  await assertLibrary({ studioId, libraryId });
+  const c = (await countsFor(studioId, [libraryId])).get(libraryId)!;
+  const h = await db()("library_health").where({ library_id: libraryId, studio_id: studioId }).first("computed_at");
+  return { ...c, pending: c.queued + c.measuring, healthComputedAt: h ? new Date(h.computed_at).toISOString() : null };
+}
+
+export async function createLibrary({ studioId, actorId, name, description }: { studioId: string; actorId: string; name: string; description?: string | null }): Promise<{ id: string; name: string }> {
+  const id = newId();
+  await db().transaction(async (trx) => {
+    const clash = await trx("libraries").where({ studio_id: studioId, name }).first("id");
+    if (clash) throw new AppError("conflict", `This studio already has a library named "${name}".`);
+    await trx("libraries").insert({ id, studio_id: studioId, name, description: description || null, created_by: actorId });
+    await logActivity(trx, { studioId, actorId, action: "library.created", subjectType: "library", subjectId: id, details: { name } });
+  });
+  return { id, name };
+}
+
+export async function updateLibrary({ studioId, actorId, libraryId, name, description }: { studioId: string; actorId: string; libraryId: string; name?: string; description?: string | null }): Promise<void> {
+  await db().transaction(async (trx) => {
+    const lib = await trx("libraries").where({ studio_id: studioId, id: libraryId }).forUpdate().first();
+    if (!lib) throw notFound("The library");
+    const patch: Record<string, unknown> = { updated_at: db().fn.now(3) };
+    const details: Record<string, unknown> = {};
+    if (name !== undefined && name !== lib.name) {
+      const clash = await trx("libraries").where({ studio_id: studioId, name }).whereNot({ id: libraryId }).first("id");
+      if (clash) throw new AppError("conflict", `This studio already has a library named "${name}".`);
+      patch.name = name;
+      details.from = lib.name;
+      details.to = name;
+    }
+    if (description !== undefined) {
+      patch.description = description || null;
+      details.description = true;
+    }
+    await trx("libraries").where({ id: libraryId }).update(patch);
+    await logActivity(trx, { studioId, actorId, action: name !== undefined && name !== lib.name ? "library.renamed" : "library.described", subjectType: "library", subjectId: libraryId, details: { name: name ?? lib.name, ...details } });
+  });
+}
+
+/** Deletes a library, its rows and its stored files. The caller confirmed by typing the name. */
+export async function deleteLibrary({ studioId, actorId, libraryId, confirmName }: { studioId: string; actorId: string; libraryId: string; confirmName: string }): Promise<{ files: number }> {
+  const lib = await db()("libraries").where({ studio_id: studioId, id: libraryId }).first();
+  if (!lib) throw notFound("The library");
+  if (confirmName.trim() !== lib.name) throw new AppError("invalid-input", "Type the library's name exactly to confirm deleting it.");
+  const count = await db()("samples").where({ studio_id: studioId, library_id: libraryId }).count({ n: "*" }).first();
+  await db().transaction(async (trx) => {
+    await trx("libraries").where({ studio_id: studioId, id: libraryId }).delete();
+    await logActivity(trx, { studioId, actorId, action: "library.deleted", subjectType: "library", subjectId: libraryId, details: { name: lib.name, samples: Number(count?.n ?? 0) } });
+  });
+  const files = await storage().deletePrefix(libraryPrefix(studioId, libraryId));
+  return { files };
+}

@@ -1,0 +1,87 @@
+import "server-only";
+// Regroup of a library: every catalogued sample + its confirmed labels + the studio's label model through
+// lib/catalog's catalogueSamples(); then, in one transaction, the per-sample labels, layers and round robins,
+// the instruments (upserted by key so ids stay stable; gone ones deleted), the layer groups and the health.
+import { buildLabelModel, catalogueSamples, featureVector, isArticulation, isFamily, MIC_POSITIONS, type CatalogueSampleInput, type LabelModel, type MicPosition } from "@/lib/catalog";
+import type { Measurement } from "@/lib/audio";
+import { db } from "../db";
+import { newId } from "../ids";
+
+const parse = <T,>(v: unknown): T => (typeof v === "string" ? JSON.parse(v) : v) as T;
+const isMic = (s: unknown): s is MicPosition => typeof s === "string" && (MIC_POSITIONS as readonly string[]).includes(s);
+
+/** The studio's nearest-neighbour model from the samples members labelled (family_source = person). */
+export async function studioLabelModel(studioId: string): Promise<LabelModel | undefined> {
+  const rows = await db()("samples").where({ studio_id: studioId, family_source: "person", state: "catalogued" }).whereNotNull("measurement").orderBy("confirmed_at", "desc").limit(5000).select("measurement", "family", "articulation");
+  const examples = rows
+    .filter((r) => isFamily(r.family) && isArticulation(r.articulation))
+    .map((r) => ({ features: featureVector(parse<Measurement>(r.measurement)), family: r.family, articulation: r.articulation }));
+  return examples.length ? buildLabelModel(examples) : undefined;
+}
+
+export interface RegroupOutcome { samples: number; instruments: number; groups: number; findings: number }
+
+export async function regroupLibrary({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<RegroupOutcome | null> {
+  const labelModel = await studioLabelModel(studioId);
+  return db().transaction(async (trx) => {
+    const lib = await trx("libraries").where({ id: libraryId, studio_id: studioId }).forUpdate().first("id");
+    if (!lib) return null;
+    const rows = await trx("samples")
+      .where({ library_id: libraryId, studio_id: studioId, state: "catalogued" })
+      .select("id", "rel_path", "file_name", "sha256", "size_bytes", "storage_key", "measurement", "confirmed_family", "confirmed_articulation", "confirmed_mic", "confirmed_instrument_key");
+    const inputs: CatalogueSampleInput[] = rows.map((r) => {
+      const confirmed: CatalogueSampleInput["confirmed"] = {};
+      if (r.confirmed_family && isFamily(r.confirmed_family)) confirmed.family = r.confirmed_family;
+      if (r.confirmed_articulation && isArticulation(r.confirmed_articulation)) confirmed.articulation = r.confirmed_articulation;
+      if (r.confirmed_mic === "-") confirmed.mic = null;
+      else if (isMic(r.confirmed_mic)) confirmed.mic = r.confirmed_mic;
+      if (r.confirmed_instrument_key) confirmed.instrumentKey = r.confirmed_instrument_key;
+      return { id: r.id, path: r.rel_path, sha256: r.sha256, measurement: parse<Measurement>(r.measurement), confirmed };
+    });
+    const cat = catalogueSamples(inputs, { labelModel });
+    const byId = new Map(rows.map((r) => [r.id as string, r]));
+
+    // per-sample columns, in bulk (INSERT ... ON DUPLICATE KEY UPDATE on the primary key)
+    const cols = ["family", "family_source", "articulation", "articulation_source", "confidence", "mic", "instrument_key", "layer_index", "layer_count", "round_robin", "velocity_low", "velocity_high", "conflict", "reasons"];
+    const upd = cat.samples.map((e) => {
+      const r = byId.get(e.id)!;
+      return {
+        id: e.id, studio_id: studioId, library_id: libraryId, rel_path: r.rel_path, file_name: r.file_name, sha256: r.sha256, size_bytes: r.size_bytes, storage_key: r.storage_key,
+        family: e.family, family_source: e.familySource, articulation: e.articulation, articulation_source: e.articulationSource,
+        confidence: e.confidence, mic: e.mic, instrument_key: e.instrumentKey, layer_index: e.layerIndex, layer_count: e.layerCount || null,
+        round_robin: e.roundRobin, velocity_low: e.velocityLow, velocity_high: e.velocityHigh, conflict: e.conflict, reasons: JSON.stringify(e.reasons),
+      };
+    });
+    for (let i = 0; i < upd.length; i += 500) await trx("samples").insert(upd.slice(i, i + 500)).onConflict("id").merge(cols);
+
+    // instruments: stable ids per key; a member's name is kept
+    const existing = await trx("instruments").where({ library_id: libraryId }).select("id", "key", "name_source");
+    const exByKey = new Map(existing.map((x) => [x.key as string, x]));
+    const pitch = new Map<string, number[]>();
+    for (const s of inputs) {
+      const e = cat.samples.find((x) => x.id === s.id);
+      if (e && s.measurement.pitchHz) (pitch.get(e.instrumentKey) ?? pitch.set(e.instrumentKey, []).get(e.instrumentKey)!).push(s.measurement.pitchHz);
+    }
+    const median = (xs: number[]) => (xs.length ? [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]! : null);
+    for (const inst of cat.instruments) {
+      const ex = exByKey.get(inst.key);
+      const row = { family: inst.family, sample_count: inst.sampleIds.length, pitch_hz: median(pitch.get(inst.key) ?? []), updated_at: trx.fn.now(3) };
+      if (ex) await trx("instruments").where({ id: ex.id }).update(ex.name_source === "person" ? row : { ...row, name: inst.displayName.slice(0, 160) });
+      else await trx("instruments").insert({ id: newId(), studio_id: studioId, library_id: libraryId, key: inst.key, name: inst.displayName.slice(0, 160), ...row });
+    }
+    const keep = new Set(cat.instruments.map((i) => i.key));
+    const gone = existing.filter((x) => !keep.has(x.key)).map((x) => x.id);
+    if (gone.length) await trx("instruments").whereIn("id", gone).delete();
+
+    await trx("layer_groups").where({ library_id: libraryId }).delete();
+    const groups = cat.groups.map((g) => ({
+      studio_id: studioId, library_id: libraryId, group_key: g.key.slice(0, 255), instrument_key: g.instrumentKey, articulation: g.articulation, mic: g.mic,
+      label: g.label.slice(0, 255), count_from: g.countFrom, criterion: g.criterion, layers: JSON.stringify(g.layers),
+    }));
+    for (let i = 0; i < groups.length; i += 200) await trx("layer_groups").insert(groups.slice(i, i + 200));
+
+    const health = { library_id: libraryId, studio_id: studioId, findings: JSON.stringify(cat.health), curve: cat.curve.kind, sample_count: inputs.length, computed_at: trx.fn.now(3) };
+    await trx("library_health").insert(health).onConflict("library_id").merge(["findings", "curve", "sample_count", "computed_at"]);
+    return { samples: inputs.length, instruments: cat.instruments.length, groups: cat.groups.length, findings: cat.health.length };
+  });
+}

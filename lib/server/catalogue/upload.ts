@@ -1,0 +1,374 @@
+import "server-only";
+// Upload of WAV files, folders and .zip packs into a library. The multipart body is streamed with busboy
+// straight to storage (never held in memory): each file's first bytes are checked (RIFF....WAVE; RF64
+// refused; PK\x03\x04 for packs), its SHA-256 and size computed on the way, and it is recorded `queued` and
+// enqueued for measuring. A file already in the library (same hash) is a duplicate and not stored twice.
+// One bad file never fails its batch: every file gets its own outcome.
+import crypto from "node:crypto";
+import fs from "node:fs";
+import fsp from "node:fs/promises";
+import os from "node:os";
+import path from "node:path";
+import { Readable, Transform, type TransformCallback } from "node:stream";
+import { pipeline } from "node:stream/promises";
+import busboy from "busboy";
+import yauzl from "yauzl";
+import { db } from "../db";
+import { env } from "../env";
+import { AppError } from "../errors";
+import { logActivity } from "../activity";
+import { newId } from "../ids";
+import { storage } from "../storage";
+import { assertLibrary, sampleKey } from "./libraries";
+import { enqueueMeasure } from "./queue";
+
+export type UploadStatus = "queued" | "duplicate" | "refused";
+export interface UploadFileResult {
+  name: string;
+  status: UploadStatus;
+  reason?: string;
+  /** Stable code of the refusal: not-wav, rf64, too-large, bad-path, zip-*, empty, interrupted, error. */
+  code?: string;
+  sampleId?: string;
+}
+export interface UploadSummary {
+  files: UploadFileResult[];
+  counts: { queued: number; duplicate: number; refused: number };
+}
+
+/** Limits of .zip packs (zip-bomb guards). */
+export const ZIP_LIMITS = {
+  maxEntries: 20_000,
+  maxTotalUncompressed: 8 * 1024 ** 3,
+  /** Uncompressed / compressed size above which an entry (of at least 1 MB) is refused. */
+  maxEntryRatio: 200,
+  /** Whole-pack ratio above which the pack is refused. */
+  maxPackRatio: 100,
+};
+
+class Refusal extends Error {
+  constructor(readonly code: string, message: string) {
+    super(message);
+  }
+}
+
+const mb = (n: number) => `${Math.round((n / 1024 / 1024) * 10) / 10} MB`;
+
+/**
+ * Relative path of an uploaded file: "/" separators, no empty, "." or ".." parts, not absolute, no drive
+ * letters. Returns null when the path tries to leave its folder.
+ */
+export function cleanRelPath(raw: string): string | null {
+  const p = raw.replace(/\\/g, "/");
+  if (p.startsWith("/") || /^[a-zA-Z]:/.test(p) || p.includes("\0")) return null;
+  const parts = p.split("/").filter((x) => x !== "" && x !== ".");
+  if (!parts.length || parts.some((x) => x === "..")) return null;
+  const out = parts.join("/");
+  return out.length > 1000 ? null : out;
+}
+
+/** What the first bytes say: a WAV, an RF64/BW64 container, a zip pack, or something else. */
+export function sniff(head: Uint8Array): "wav" | "rf64" | "zip" | "other" {
+  const s = (a: number, b: number) => String.fromCharCode(...head.subarray(a, b));
+  if (head.length >= 12 && s(0, 4) === "RIFF" && s(8, 12) === "WAVE") return "wav";
+  if (head.length >= 4 && (s(0, 4) === "RF64" || s(0, 4) === "BW64")) return "rf64";
+  if (head.length >= 4 && head[0] === 0x50 && head[1] === 0x4b && head[2] === 0x03 && head[3] === 0x04) return "zip";
+  return "other";
+}
+
+/** Passes bytes through while hashing, counting, enforcing a size limit and checking the magic bytes. */
+class Inspect extends Transform {
+  readonly hash = crypto.createHash("sha256");
+  bytes = 0;
+  private head = Buffer.alloc(0);
+  private checked = false;
+  constructor(private readonly want: "wav" | "zip", private readonly maxBytes: number, private readonly onBytes: (n: number) => void) {
+    super();
+  }
+  private check(final: boolean): Error | null {
+    if (this.checked || (!final && this.head.length < 12)) return null;
+    this.checked = true;
+    const kind = sniff(this.head);
+    if (this.want === "zip") return kind === "zip" ? null : new Refusal("not-zip", "not a zip pack (its first bytes are not PK\\x03\\x04)");
+    if (kind === "wav") return null;
+    if (kind === "rf64") return new Refusal("rf64", "RF64/BW64 (64-bit RIFF, EBU Tech 3306) files are not supported; export as a plain RIFF WAVE");
+    if (this.head.length === 0) return new Refusal("empty", "the file is empty");
+    return new Refusal("not-wav", "not a WAV file (its first bytes are not RIFF....WAVE)");
+  }
+  _transform(chunk: Buffer, _enc: BufferEncoding, cb: TransformCallback): void {
+    this.bytes += chunk.length;
+    this.onBytes(chunk.length);
+    if (this.bytes > this.maxBytes) return cb(new Refusal("too-large", `larger than the ${mb(this.maxBytes)} limit per file`));
+    if (!this.checked) {
+      this.head = Buffer.concat([this.head, chunk.subarray(0, 12)]);
+      const err = this.check(false);
+      if (err) return cb(err);
+    }
+    this.hash.update(chunk);
+    cb(null, chunk);
+  }
+  _flush(cb: TransformCallback): void {
+    cb(this.check(true));
+  }
+}
+
+interface Ctx {
+  studioId: string;
+  libraryId: string;
+  userId: string;
+  maxFile: number;
+  results: UploadFileResult[];
+  queued: { sampleId: string }[];
+  active: Set<Inspect>;
+  addBytes: (n: number) => void;
+}
+
+/** Streams one WAV (from the request or a zip entry) to storage and records it. Never throws. */
+async function storeWav(ctx: Ctx, src: Readable, relPath: string, drain: () => void): Promise<void> {
+  const sampleId = newId();
+  const key = sampleKey(ctx.studioId, ctx.libraryId, sampleId);
+  const inspect = new Inspect("wav", ctx.maxFile, ctx.addBytes);
+  ctx.active.add(inspect);
+  src.on("error", (e) => inspect.destroy(e));
+  inspect.on("error", () => {
+    src.unpipe(inspect);
+    drain();
+  });
+  src.pipe(inspect);
+  const result: UploadFileResult = { name: relPath, status: "refused" };
+  ctx.results.push(result);
+  try {
+    const { bytes } = await storage().put(key, inspect);
+    const sha256 = inspect.hash.digest("hex");
+    const dup = await db()("samples").where({ library_id: ctx.libraryId, sha256 }).first("id", "rel_path");
+    if (dup) {
+      await storage().delete(key);
+      Object.assign(result, { status: "duplicate", sampleId: dup.id, reason: `same content as ${dup.rel_path}` });
+      return;
+    }
+    try {
+      await db()("samples").insert({
+        id: sampleId,
+        studio_id: ctx.studioId,
+        library_id: ctx.libraryId,
+        rel_path: relPath,
+        file_name: path.posix.basename(relPath).slice(0, 255),
+        sha256,
+        size_bytes: bytes,
+        storage_key: key,
+        state: "queued",
+        uploaded_by: ctx.userId,
+      });
+    } catch (e) {
+      if ((e as { errno?: number }).errno === 1062) {
+        await storage().delete(key);
+        const other = await db()("samples").where({ library_id: ctx.libraryId, sha256 }).first("id", "rel_path");
+        Object.assign(result, { status: "duplicate", sampleId: other?.id, reason: `same content as ${other?.rel_path ?? "another file"}` });
+        return;
+      }
+      if ((e as { errno?: number }).errno === 1452) {
+        await storage().delete(key); // the library was deleted meanwhile
+        Object.assign(result, { code: "error", reason: "the library no longer exists" });
+        return;
+      }
+      throw e;
+    }
+    Object.assign(result, { status: "queued", sampleId });
+    ctx.queued.push({ sampleId });
+  } catch (e) {
+    await storage().delete(key).catch(() => undefined);
+    if (e instanceof Refusal) Object.assign(result, { code: e.code, reason: e.message });
+    else if (e instanceof AppError) Object.assign(result, { code: "error", reason: e.message });
+    else {
+      const msg = (e as Error)?.message ?? String(e);
+      const interrupted = /aborted|premature|unexpected end|ECONNRESET/i.test(msg);
+      Object.assign(result, { code: interrupted ? "interrupted" : "error", reason: interrupted ? "the upload was interrupted" : `could not store the file: ${msg}` });
+      if (!interrupted) console.error(e);
+    }
+  } finally {
+    ctx.active.delete(inspect);
+  }
+}
+
+function decodeEntryName(entry: yauzl.Entry): string {
+  const raw = entry.fileName as unknown as Buffer;
+  // bit 11: UTF-8 names; otherwise IBM437, read as latin1 (close enough for ASCII names)
+  return Buffer.isBuffer(raw) ? ((entry.generalPurposeBitFlag & 0x800) !== 0 ? raw.toString("utf8") : raw.toString("latin1")) : String(raw);
+}
+
+/** Reads a zip pack from a temporary file and stores its WAV entries (each with its own outcome). */
+async function storeZip(ctx: Ctx, zipPath: string, zipName: string, zipBytes: number): Promise<void> {
+  const base = path.posix.dirname(zipName) === "." ? "" : `${path.posix.dirname(zipName)}/`;
+  const refuse = (name: string, code: string, reason: string) => ctx.results.push({ name, status: "refused", code, reason });
+  let zip: yauzl.ZipFile;
+  try {
+    zip = await new Promise<yauzl.ZipFile>((res, rej) => yauzl.open(zipPath, { lazyEntries: true, decodeStrings: false, validateEntrySizes: true, autoClose: true }, (e, z) => (e || !z ? rej(e ?? new Error("no zip")) : res(z))));
+  } catch (e) {
+    refuse(zipName, "zip-unreadable", `the zip pack could not be read: ${(e as Error).message}`);
+    return;
+  }
+  try {
+    if (zip.entryCount > ZIP_LIMITS.maxEntries) {
+      refuse(zipName, "zip-too-many", `the zip pack holds ${zip.entryCount} entries; at most ${ZIP_LIMITS.maxEntries} are accepted`);
+      return;
+    }
+    // First pass over the central directory: sizes and ratios before anything is inflated.
+    const entries: yauzl.Entry[] = [];
+    await new Promise<void>((res, rej) => {
+      zip.on("entry", (e: yauzl.Entry) => {
+        entries.push(e);
+        zip.readEntry();
+      });
+      zip.on("end", () => res());
+      zip.on("error", rej);
+      zip.readEntry();
+    });
+    const total = entries.reduce((s, e) => s + e.uncompressedSize, 0);
+    if (total > ZIP_LIMITS.maxTotalUncompressed) {
+      refuse(zipName, "zip-too-large", `the zip pack would unpack to ${mb(total)}; at most ${mb(ZIP_LIMITS.maxTotalUncompressed)} are accepted`);
+      return;
+    }
+    if (zipBytes > 0 && total / zipBytes > ZIP_LIMITS.maxPackRatio && total > 16 * 1024 * 1024) {
+      refuse(zipName, "zip-ratio", `the zip pack unpacks to ${Math.round(total / zipBytes)} times its size (more than ${ZIP_LIMITS.maxPackRatio}); refused as a possible zip bomb`);
+      return;
+    }
+    for (const entry of entries) {
+      const rawName = decodeEntryName(entry);
+      if (rawName.endsWith("/")) continue; // a folder
+      const rel = cleanRelPath(rawName);
+      const shown = `${zipName}: ${rawName}`;
+      if (!rel || yauzl.validateFileName(rawName.replace(/\\/g, "/")) !== null) {
+        refuse(shown, "bad-path", "the entry's path leaves the pack (absolute or with '..'); refused");
+        continue;
+      }
+      if (!/\.wave?$/i.test(rel)) {
+        refuse(`${base}${rel}`, "not-wav", "not a .wav file; skipped");
+        continue;
+      }
+      if (entry.uncompressedSize > ctx.maxFile) {
+        refuse(`${base}${rel}`, "too-large", `larger than the ${mb(ctx.maxFile)} limit per file`);
+        continue;
+      }
+      if (entry.uncompressedSize > 1024 * 1024 && entry.compressedSize > 0 && entry.uncompressedSize / entry.compressedSize > ZIP_LIMITS.maxEntryRatio) {
+        refuse(`${base}${rel}`, "zip-ratio", `compressed ${Math.round(entry.uncompressedSize / entry.compressedSize)} to 1 (more than ${ZIP_LIMITS.maxEntryRatio}); refused as a possible zip bomb`);
+        continue;
+      }
+      if ((entry.generalPurposeBitFlag & 0x1) !== 0) {
+        refuse(`${base}${rel}`, "zip-encrypted", "the entry is encrypted; refused");
+        continue;
+      }
+      let stream: Readable;
+      try {
+        stream = await new Promise<Readable>((res, rej) => zip.openReadStream(entry, (e, s) => (e || !s ? rej(e ?? new Error("no stream")) : res(s))));
+      } catch (e) {
+        refuse(`${base}${rel}`, "zip-unreadable", `the entry could not be read: ${(e as Error).message}`);
+        continue;
+      }
+      await storeWav(ctx, stream, `${base}${rel}`, () => stream.resume());
+    }
+  } finally {
+    zip.close();
+  }
+}
+
+/** Receives a multipart upload into a library (the body is read here; the route declares no body). */
+export async function receiveUpload({ studioId, libraryId, userId, req }: { studioId: string; libraryId: string; userId: string; req: Request }): Promise<UploadSummary> {
+  const lib = await assertLibrary({ studioId, libraryId });
+  const e = env();
+  const maxFile = e.KW_UPLOAD_MAX_FILE_BYTES;
+  const maxBatch = e.KW_UPLOAD_MAX_BATCH_BYTES;
+  const type = req.headers.get("content-type") ?? "";
+  if (!type.toLowerCase().startsWith("multipart/form-data")) throw new AppError("invalid-input", "Send the files as multipart/form-data.");
+  const declared = Number(req.headers.get("content-length") ?? "0");
+  if (declared > maxBatch) throw new AppError("too-large", `This upload is ${mb(declared)}; one batch may hold at most ${mb(maxBatch)}. Send the files in smaller batches.`);
+  if (!req.body) throw new AppError("invalid-input", "The upload is empty.");
+
+  let total = 0;
+  let batchTooLarge = false;
+  const ctx: Ctx = {
+    studioId,
+    libraryId,
+    userId,
+    maxFile,
+    results: [],
+    queued: [],
+    active: new Set(),
+    addBytes: (n) => {
+      total += n;
+      if (total > maxBatch && !batchTooLarge) {
+        batchTooLarge = true;
+        for (const a of ctx.active) a.destroy(new Refusal("too-large", `the batch went over its ${mb(maxBatch)} limit`));
+      }
+    },
+  };
+  const tasks: Promise<void>[] = [];
+  const tmpFiles: string[] = [];
+  const bb = busboy({ headers: { "content-type": type }, preservePath: true, limits: { fileSize: Number.MAX_SAFE_INTEGER, files: 50_000, fields: 50, parts: 50_100 } });
+  bb.on("file", (_field, file, info) => {
+    const rel = cleanRelPath(info.filename ?? "");
+    if (!rel) {
+      ctx.results.push({ name: info.filename || "(no name)", status: "refused", code: "bad-path", reason: "the file's path leaves its folder (absolute or with '..'); refused" });
+      file.resume();
+      return;
+    }
+    if (batchTooLarge) {
+      ctx.results.push({ name: rel, status: "refused", code: "too-large", reason: `the batch went over its ${mb(maxBatch)} limit` });
+      file.resume();
+      return;
+    }
+    if (/\.zip$/i.test(rel)) {
+      const tmp = path.join(os.tmpdir(), `kw-zip-${crypto.randomBytes(8).toString("hex")}.zip`);
+      tmpFiles.push(tmp);
+      const inspect = new Inspect("zip", maxBatch, ctx.addBytes);
+      ctx.active.add(inspect);
+      file.on("error", (err) => inspect.destroy(err));
+      inspect.on("error", () => {
+        file.unpipe(inspect);
+        file.resume();
+      });
+      file.pipe(inspect);
+      tasks.push(
+        pipeline(inspect, fs.createWriteStream(tmp))
+          .then(() => storeZip(ctx, tmp, rel, inspect.bytes))
+          .catch((err) => {
+            ctx.results.push({ name: rel, status: "refused", code: err instanceof Refusal ? err.code : "interrupted", reason: err instanceof Refusal ? err.message : "the upload was interrupted" });
+          })
+          .finally(() => {
+            ctx.active.delete(inspect);
+            return fsp.rm(tmp, { force: true });
+          }),
+      );
+      return;
+    }
+    tasks.push(storeWav(ctx, file, rel, () => file.resume()));
+  });
+  let failed: Error | null = null;
+  try {
+    await new Promise<void>((resolve, reject) => {
+      bb.on("close", resolve);
+      bb.on("error", reject);
+      const body = Readable.fromWeb(req.body as import("node:stream/web").ReadableStream<Uint8Array>);
+      body.on("error", reject);
+      body.pipe(bb);
+    });
+  } catch (err) {
+    failed = err as Error;
+    for (const a of ctx.active) a.destroy(err as Error);
+  }
+  await Promise.allSettled(tasks);
+  await Promise.all(tmpFiles.map((t) => fsp.rm(t, { force: true })));
+
+  if (ctx.queued.length) await enqueueMeasure(ctx.queued.map((q) => ({ sampleId: q.sampleId, studioId, libraryId })));
+  const counts = { queued: 0, duplicate: 0, refused: 0 };
+  for (const r of ctx.results) counts[r.status]++;
+  if (ctx.results.length) {
+    await logActivity(db(), { studioId, actorId: userId, action: "samples.uploaded", subjectType: "library", subjectId: libraryId, details: { library: lib.name, ...counts } });
+  }
+  if (failed && ctx.results.every((r) => r.status === "refused")) throw new AppError("invalid-input", "The upload was interrupted or malformed; nothing was stored.");
+  if (!ctx.results.length) throw new AppError("invalid-input", "The upload holds no files.");
+  const tooLarge = ctx.results.filter((r) => r.code === "too-large");
+  if (tooLarge.length && counts.queued === 0 && counts.duplicate === 0) {
+    throw new AppError("too-large", `${tooLarge[0]!.name} is ${tooLarge[0]!.reason}; nothing was stored.`, { files: ctx.results, counts });
+  }
+  return { files: ctx.results, counts };
+}

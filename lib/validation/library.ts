@@ -1,0 +1,53 @@
+// Shared zod schemas for libraries, samples, instruments (used by the API routes and the forms).
+import { z } from "zod";
+import { ARTICULATIONS, FAMILIES } from "@/lib/catalog/taxonomy";
+import { MIC_POSITIONS } from "@/lib/catalog/names";
+import { idParam } from "./studio";
+
+export const libraryNameSchema = z.string().trim().min(1, "Name the library.").max(160, "At most 160 characters.");
+export const libraryDescriptionSchema = z.string().trim().max(4000, "At most 4000 characters.");
+export const createLibrarySchema = z.strictObject({ name: libraryNameSchema, description: libraryDescriptionSchema.optional() });
+export const updateLibrarySchema = z
+  .strictObject({ name: libraryNameSchema.optional(), description: libraryDescriptionSchema.nullable().optional() })
+  .refine((v) => v.name !== undefined || v.description !== undefined, "Change the name or the description.");
+/** Deleting asks for the library's name typed again. */
+export const deleteLibrarySchema = z.strictObject({ confirmName: z.string() });
+
+export const libraryParams = z.strictObject({ studioId: idParam, libraryId: idParam });
+export const sampleParams = z.strictObject({ studioId: idParam, libraryId: idParam, sampleId: idParam });
+export const instrumentParams = z.strictObject({ studioId: idParam, libraryId: idParam, instrumentId: idParam });
+
+export const SAMPLE_STATES = ["queued", "measuring", "catalogued", "rejected"] as const;
+export type SampleState = (typeof SAMPLE_STATES)[number];
+export const SAMPLE_SORTS = ["name", "path", "instrument", "articulation", "family", "layer", "roundRobin", "mic", "strike", "truePeak", "duration", "confidence", "state", "added"] as const;
+export type SampleSort = (typeof SAMPLE_SORTS)[number];
+
+export const samplesQuery = z.strictObject({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+  sort: z.enum(SAMPLE_SORTS).default("path"),
+  dir: z.enum(["asc", "desc"]).default("asc"),
+  q: z.string().trim().max(200).optional(),
+  family: z.enum(FAMILIES).optional(),
+  articulation: z.enum(ARTICULATIONS).optional(),
+  state: z.enum(SAMPLE_STATES).optional(),
+  instrument: z.string().max(191).optional(),
+  flag: z.enum(["conflict"]).optional(),
+});
+export type SamplesQuery = z.infer<typeof samplesQuery>;
+
+/** Bulk relabel: the given labels become the members' confirmed labels (source "person"). */
+export const relabelSchema = z
+  .strictObject({
+    sampleIds: z.array(idParam).min(1, "Select at least one sample.").max(5000),
+    family: z.enum(FAMILIES).optional(),
+    articulation: z.enum(ARTICULATIONS).optional(),
+    mic: z.enum(MIC_POSITIONS).nullable().optional(),
+    instrumentKey: z.string().trim().min(1).max(191).optional(),
+  })
+  .refine((v) => v.family !== undefined || v.articulation !== undefined || v.mic !== undefined || v.instrumentKey !== undefined, "Choose at least one label to set.");
+/** Confirm the current suggestions of the selected samples as they are. */
+export const confirmSchema = z.strictObject({ sampleIds: z.array(idParam).min(1, "Select at least one sample.").max(5000) });
+
+export const renameInstrumentSchema = z.strictObject({ name: z.string().trim().min(1, "Name the instrument.").max(160) });
+export const mergeInstrumentsSchema = z.strictObject({ sourceIds: z.array(idParam).min(1).max(100), targetId: idParam });
