@@ -93,7 +93,8 @@ start_smtp_fake() {
   local dir="$1/mail" run="$2" port="$3"
   mkdir -p "$dir" "$run"
   if [ -f "$run/smtp.pid" ] && kill -0 "$(cat "$run/smtp.pid")" 2>/dev/null; then return 0; fi
-  nohup node --import "$KW_ROOT/node_modules/tsx/dist/esm/index.mjs" "$KW_ROOT/scripts/smtp-fake.ts" --port "$port" --dir "$dir" \
+  cd "$KW_ROOT"
+  nohup node --import tsx scripts/smtp-fake.ts --port "$port" --dir "$dir" \
     >"$run/smtp.log" 2>&1 </dev/null &
   echo $! >"$run/smtp.pid"
   for _ in $(seq 1 100); do (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null && return 0; sleep 0.1; done
