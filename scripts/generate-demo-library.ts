@@ -30,6 +30,7 @@ export interface GenerateDemoSummary {
 
 export function generateDemoLibrary(outdir: string, opts: GenerateDemoOptions = {}): GenerateDemoSummary {
   const t0 = Date.now();
+  mkdirSync(outdir, { recursive: true }); // fail before any rendering if the folder cannot be made
   const all = demoScenario({ seed: opts.seed ?? 1 });
   const files = opts.filter ? all.filter(opts.filter) : all;
   const byPath = new Map(all.map((f) => [f.path, f]));

@@ -134,6 +134,9 @@ interface MembraneOpts {
   start?: number;
   /** resonant-head detune for the (0,1) and (1,1) pair; 0 for a single head */
   secondHead?: number;
+  /** statistical high modes above the table: how many, and up to which ratio to f0 */
+  highModes?: number;
+  highRatio?: number;
 }
 
 function membrane(s: Src, o: MembraneOpts): void {
@@ -162,6 +165,25 @@ function membrane(s: Src, o: MembraneOpts): void {
         start: common.start + Math.round(s.sr * 0.0006),
       });
     }
+  }
+  // Above the tabulated modes: a statistical set whose density grows in proportion to frequency, as Weyl's law
+  // gives for a two-dimensional membrane (mode count ~ area * k^2 / 4 pi; from memory). Weak, short-lived and
+  // mostly reached by hard, short contacts: the "stick" brightness of the head.
+  const r0 = MEMBRANE_MODES[MEMBRANE_MODES.length - 1].j / MEMBRANE_MODES[0].j;
+  const rMax = o.highRatio ?? 24;
+  const count = o.highModes ?? 40;
+  for (let i = 0; i < count; i++) {
+    const ratio = Math.sqrt(r0 * r0 + s.rng.next() * (rMax * rMax - r0 * r0));
+    const f = o.f0 * ((ratio - a) / (1 - a));
+    const m = s.rng.int(12);
+    const rayleigh = Math.sqrt(-2 * Math.log(1 - s.rng.next() * 0.999));
+    const part = Math.abs(besselJ(Math.min(m, 8), 14 * Math.max(0.05, rDither))) + 0.05;
+    const amp = (o.gain * 0.35 * rayleigh * part * contactWeight(f, o.contactT)) / (1 + 0.35 * m) / 2.3;
+    const [gl, gr] = pan(s.rng, 0.5);
+    addMode(s.L, s.R, s.sr, {
+      freq: f, amp, tau: o.tau0 * Math.pow(o.f0 / f, o.tauExp) * (0.7 + 0.6 * s.rng.next()), gainL: gl, gainR: gr,
+      start: s.pre + (o.start ?? 0), phase: s.rng.gauss() * 0.05,
+    });
   }
 }
 
@@ -298,7 +320,7 @@ function renderTom(s: Src, t: TomSpec, art: TomArticulation): number {
     gain: 1, maxRatio: 5.2, secondHead: 0.03,
   });
   partials(s, [1, 1.52, 2.24].map((r, i) => ({ f: f0 * 4.3 * r, a: 0.03 / (i + 1), tau: 0.05 })), 1);
-  noiseBurst(s, { lo: 400, hi: 1500 + 7000 * vn, tau: 0.0015, gain: 0.12 * vn });
+  noiseBurst(s, { lo: 400, hi: 2000 + 9000 * vn, tau: 0.0015, gain: 0.05 + 0.2 * vn });
   if (rim) {
     partials(s, [1, 1.63, 2.41, 3.36].map((r, i) => ({ f: 1250 * r, a: 0.2 / (1 + i * 0.5), tau: 0.05 / (1 + i * 0.3) })), 0.6 + 0.6 * vn);
     noiseBurst(s, { lo: 900, hi: 11000, tau: 0.003, gain: 0.45 * vn + 0.15 });
