@@ -1,0 +1,171 @@
+"use client";
+// The kit editor: an ordered list of named slots, each expecting a family and holding one catalogued instrument
+// (from any library of the studio, any family), with per-slot stand-in overrides; toms can be ordered by
+// measured pitch, high to low.
+import { useMemo, useState } from "react";
+import { useRouter } from "next/navigation";
+import { api, ApiError } from "@/components/api";
+import { Message } from "@/components/form-bits";
+import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalog/taxonomy";
+import { orderTomsByPitch } from "@/lib/audit/kits";
+import type { Kit, KitSlot } from "@/lib/audit/types";
+
+export interface InstrumentChoice { id: string; name: string; family: Family; libraryId: string; libraryName: string; pitchHz: number | null; sampleCount: number; articulations: string[] }
+
+/** Assign the instruments held by tom slots to those slots from high to low measured pitch (slot order kept). */
+export function orderTomSlots(slots: KitSlot[], instruments: InstrumentChoice[]): KitSlot[] {
+  const byId = new Map(instruments.map((i) => [i.id, i]));
+  const tomIdx = slots.map((s, i) => (s.family === "tom" ? i : -1)).filter((i) => i >= 0);
+  const held = tomIdx.map((i) => slots[i]!.instrumentId).filter((x): x is string => !!x && byId.has(x));
+  const ordered = orderTomsByPitch(held.map((id) => ({ ...byId.get(id)!, articulations: [] })));
+  const out = slots.map((s) => ({ ...s }));
+  let k = 0;
+  for (const i of tomIdx) {
+    if (!out[i]!.instrumentId || !byId.has(out[i]!.instrumentId!)) continue;
+    out[i]!.instrumentId = ordered[k++]!.id;
+  }
+  return out;
+}
+
+export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: string; kit: Kit; instruments: InstrumentChoice[]; canWrite: boolean }) {
+  const router = useRouter();
+  const [slots, setSlots] = useState<KitSlot[]>(kit.slots);
+  const [dirty, setDirty] = useState(false);
+  const [msg, setMsg] = useState<{ kind: "error" | "ok"; text: string } | null>(null);
+  const [busy, setBusy] = useState(false);
+  const byId = useMemo(() => new Map(instruments.map((i) => [i.id, i])), [instruments]);
+  const byFamily = useMemo(() => {
+    const m = new Map<Family, InstrumentChoice[]>();
+    for (const i of instruments) m.set(i.family, [...(m.get(i.family) ?? []), i]);
+    return m;
+  }, [instruments]);
+
+  const change = (next: KitSlot[]) => { setSlots(next); setDirty(true); setMsg(null); };
+  const patch = (i: number, p: Partial<KitSlot>) => change(slots.map((s, j) => (j === i ? { ...s, ...p } : s)));
+  const move = (i: number, d: number) => {
+    const j = i + d;
+    if (j < 0 || j >= slots.length) return;
+    const next = [...slots];
+    [next[i], next[j]] = [next[j]!, next[i]!];
+    change(next);
+  };
+  const addSlot = () => {
+    const ids = new Set(slots.map((s) => s.id));
+    let n = slots.length + 1;
+    while (ids.has(`slot-${n}`)) n++;
+    change([...slots, { id: `slot-${n}`, name: `Slot ${n}`, family: "snare", instrumentId: null }]);
+  };
+
+  async function save() {
+    setBusy(true);
+    try {
+      await api(`/api/studios/${studioId}/kits/${kit.id}`, { method: "PATCH", body: { slots } });
+      setDirty(false);
+      setMsg({ kind: "ok", text: "Kit saved." });
+      router.refresh();
+    } catch (e) {
+      setMsg({ kind: "error", text: e instanceof ApiError ? e.message : String(e) });
+    } finally { setBusy(false); }
+  }
+
+  const instLabel = (i: InstrumentChoice) => `${i.name} — ${i.libraryName} · ${i.sampleCount} samples${i.pitchHz ? ` · ${Math.round(i.pitchHz)} Hz` : ""}`;
+
+  return (
+    <div className="space-y-4">
+      {instruments.length === 0 && (
+        <Message kind="info">This studio has no catalogued instruments yet. Upload samples to a library; once they are measured and sorted, their instruments appear here.</Message>
+      )}
+      <ol className="space-y-3" data-testid="kit-slots">
+        {slots.map((s, i) => {
+          const inst = s.instrumentId ? byId.get(s.instrumentId) : undefined;
+          const otherFamily = inst && inst.family !== s.family;
+          const overrides = Object.entries(s.standIns ?? {}) as Array<[Articulation, Articulation]>;
+          const fam = inst?.family ?? s.family;
+          return (
+            <li key={i} className="card space-y-3 p-4" data-testid="kit-slot">
+              <div className="grid gap-3 md:grid-cols-[3rem_1fr_10rem_2fr]">
+                <span className="num self-center text-muted">{i + 1}.</span>
+                <div>
+                  <label className="label" htmlFor={`slot-name-${i}`}>Slot name</label>
+                  <input id={`slot-name-${i}`} className="field" value={s.name} disabled={!canWrite} onChange={(e) => patch(i, { name: e.target.value })} />
+                  <p className="mt-1 text-xs text-muted">id <span className="num">{s.id}</span></p>
+                </div>
+                <div>
+                  <label className="label" htmlFor={`slot-family-${i}`}>Expects</label>
+                  <select id={`slot-family-${i}`} className="field" value={s.family} disabled={!canWrite} onChange={(e) => patch(i, { family: e.target.value as Family })}>
+                    {FAMILIES.map((f) => <option key={f} value={f}>{f}</option>)}
+                  </select>
+                </div>
+                <div>
+                  <label className="label" htmlFor={`slot-inst-${i}`}>Instrument</label>
+                  <select id={`slot-inst-${i}`} className="field" value={s.instrumentId ?? ""} disabled={!canWrite} onChange={(e) => patch(i, { instrumentId: e.target.value || null })}>
+                    <option value="">— empty slot (its pads stay silent) —</option>
+                    {s.instrumentId && !inst && <option value={s.instrumentId}>missing instrument {s.instrumentId}</option>}
+                    {[s.family, ...FAMILIES.filter((f) => f !== s.family)].map((f) => {
+                      const list = byFamily.get(f);
+                      return list?.length ? (
+                        <optgroup key={f} label={f === s.family ? `${f} (expected)` : f}>
+                          {list.map((x) => <option key={x.id} value={x.id}>{instLabel(x)}</option>)}
+                        </optgroup>
+                      ) : null;
+                    })}
+                  </select>
+                  {inst && <p className="mt-1 text-xs text-muted">Recorded: {inst.articulations.join(", ") || "nothing yet"}</p>}
+                  {otherFamily && <p className="mt-1 text-xs text-warn">⚠ holds a {inst.family} in a {s.family} slot: the audit uses the {inst.family}’s own articulations.</p>}
+                  {s.instrumentId && !inst && <p className="mt-1 text-xs text-bad">✕ this instrument is no longer in the catalogue.</p>}
+                </div>
+              </div>
+              <details>
+                <summary className="cursor-pointer text-sm">Stand-in overrides ({overrides.length})</summary>
+                <div className="mt-2 space-y-2">
+                  <p className="text-xs text-muted">When the requested articulation is missing, play this one instead (used only when it is recorded; otherwise the family’s closeness graph decides).</p>
+                  {overrides.map(([req, play], k) => (
+                    <div key={k} className="flex flex-wrap items-center gap-2 text-sm">
+                      <select aria-label="Requested articulation" className="field w-auto" value={req} disabled={!canWrite} onChange={(e) => {
+                        const next = { ...(s.standIns ?? {}) };
+                        delete next[req];
+                        next[e.target.value as Articulation] = play;
+                        patch(i, { standIns: next });
+                      }}>
+                        {ARTICULATIONS.map((a) => <option key={a} value={a}>{a}</option>)}
+                      </select>
+                      <span aria-hidden>→</span>
+                      <select aria-label="Plays instead" className="field w-auto" value={play} disabled={!canWrite} onChange={(e) => patch(i, { standIns: { ...(s.standIns ?? {}), [req]: e.target.value as Articulation } })}>
+                        {[...FAMILY_ARTICULATIONS[fam], ...ARTICULATIONS.filter((a) => !FAMILY_ARTICULATIONS[fam].includes(a))].map((a) => <option key={a} value={a}>{a}</option>)}
+                      </select>
+                      {canWrite && <button type="button" className="btn-quiet py-1" onClick={() => { const next = { ...(s.standIns ?? {}) }; delete next[req]; patch(i, { standIns: Object.keys(next).length ? next : undefined }); }}>Remove</button>}
+                    </div>
+                  ))}
+                  {canWrite && (
+                    <button type="button" className="btn-quiet py-1" onClick={() => {
+                      const used = new Set(Object.keys(s.standIns ?? {}));
+                      const req = FAMILY_ARTICULATIONS[fam].find((a) => !used.has(a) && !inst?.articulations.includes(a)) ?? ARTICULATIONS.find((a) => !used.has(a))!;
+                      patch(i, { standIns: { ...(s.standIns ?? {}), [req]: FAMILY_ARTICULATIONS[fam][0]! } });
+                    }}>Add override</button>
+                  )}
+                </div>
+              </details>
+              {canWrite && (
+                <div className="flex flex-wrap gap-2">
+                  <button type="button" className="btn-quiet py-1" onClick={() => move(i, -1)} disabled={i === 0} aria-label={`Move ${s.name} up`}>↑ Up</button>
+                  <button type="button" className="btn-quiet py-1" onClick={() => move(i, 1)} disabled={i === slots.length - 1} aria-label={`Move ${s.name} down`}>↓ Down</button>
+                  <button type="button" className="btn-danger py-1" onClick={() => change(slots.filter((_, j) => j !== i))}>Remove slot</button>
+                </div>
+              )}
+            </li>
+          );
+        })}
+      </ol>
+      {slots.length === 0 && <p className="text-sm text-muted">No slots yet.</p>}
+      {canWrite && (
+        <div className="no-print sticky bottom-0 flex flex-wrap items-center gap-2 border-t border-line bg-paper py-3">
+          <button type="button" className="btn-quiet" onClick={addSlot}>Add slot</button>
+          <button type="button" className="btn-quiet" onClick={() => change(orderTomSlots(slots, instruments))} title="Tom slots keep their places; the toms they hold are reordered from the highest measured pitch to the lowest">Order toms by pitch (high → low)</button>
+          <button type="button" className="btn-primary" onClick={save} disabled={busy || !dirty}>Save kit</button>
+          {dirty && <span className="text-sm text-warn">● unsaved changes</span>}
+          {msg && <Message kind={msg.kind}>{msg.text}</Message>}
+        </div>
+      )}
+    </div>
+  );
+}

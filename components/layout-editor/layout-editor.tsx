@@ -1,0 +1,277 @@
+"use client";
+// The layout editor: the pad grid (or trigger-zone list), the selected pad's settings, MIDI learn (select a
+// pad, hit the controller's pad: its note, channel and velocity are captured), the hi-hat pedal editor with
+// "learn pedal" (move the pedal: its controller number is captured) and a live MIDI monitor.
+import { useCallback, useMemo, useState } from "react";
+import { useRouter } from "next/navigation";
+import { api, ApiError } from "@/components/api";
+import { Message } from "@/components/form-bits";
+import { useMidi, type MidiEvent } from "@/components/midi/use-midi";
+import { MidiMonitor, MidiStatusLine } from "@/components/midi/midi-panel";
+import { MiddleCSetting, noteName, useMiddleC } from "@/components/midi/notes";
+import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalog/taxonomy";
+import type { HiHatPedal, Layout, LayoutSlot, Pad } from "@/lib/audit/types";
+import { PedalEditor } from "./pedal-editor";
+
+export interface KitSlotsChoice { id: string; name: string; slots: LayoutSlot[] }
+
+type Learn = null | "pad" | "pedal";
+
+export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { studioId: string; layout: Layout; kits: KitSlotsChoice[]; canWrite: boolean }) {
+  const router = useRouter();
+  const [layout, setLayout] = useState<Layout>(initial);
+  const [selected, setSelected] = useState<string | null>(initial.pads[0]?.id ?? null);
+  const [learn, setLearn] = useState<Learn>(null);
+  const [advance, setAdvance] = useState(true);
+  const [lastVelocity, setLastVelocity] = useState<Record<string, number>>({});
+  const [events, setEvents] = useState<MidiEvent[]>([]);
+  const [dirty, setDirty] = useState(false);
+  const [msg, setMsg] = useState<{ kind: "error" | "ok" | "info"; text: string } | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [middleC, setMiddleC] = useMiddleC();
+  const [kitForSlots, setKitForSlots] = useState<string>("");
+
+  const slots: LayoutSlot[] = useMemo(() => {
+    const m = new Map<string, LayoutSlot>();
+    for (const s of layout.slots ?? []) m.set(s.id, s);
+    const k = kits.find((x) => x.id === kitForSlots);
+    for (const s of k?.slots ?? []) if (!m.has(s.id)) m.set(s.id, s);
+    for (const p of layout.pads) if (p.target && !m.has(p.target.slotId)) m.set(p.target.slotId, { id: p.target.slotId, name: p.target.slotId, family: "other" });
+    return [...m.values()];
+  }, [layout, kits, kitForSlots]);
+
+  const update = useCallback((fn: (l: Layout) => Layout) => { setLayout((l) => fn(l)); setDirty(true); setMsg(null); }, []);
+  const patchPad = useCallback((id: string, p: Partial<Pad>) => update((l) => ({ ...l, pads: l.pads.map((x) => (x.id === id ? { ...x, ...p } : x)) })), [update]);
+
+  const onMidi = useCallback((e: MidiEvent) => {
+    setEvents((ev) => [e, ...ev].slice(0, 40));
+    if (learn === "pad" && e.kind === "note-on" && selected) {
+      patchPad(selected, { note: e.note!, channel: e.channel });
+      setLastVelocity((v) => ({ ...v, [selected]: e.velocity! }));
+      setMsg({ kind: "ok", text: `Learned note ${e.note} (${noteName(e.note!, middleC)}), channel ${e.channel}, velocity ${e.velocity}.` });
+      if (advance) {
+        const i = layout.pads.findIndex((p) => p.id === selected);
+        const next = layout.pads[i + 1];
+        if (next) setSelected(next.id);
+        else setLearn(null);
+      }
+    }
+    if (learn === "pedal" && e.kind === "cc" && layout.hiHatPedal) {
+      update((l) => ({ ...l, hiHatPedal: l.hiHatPedal ? { ...l.hiHatPedal, controller: e.controller!, channel: e.channel } : null }));
+      setLearn(null);
+      setMsg({ kind: "ok", text: `Learned the pedal: controller ${e.controller} on channel ${e.channel}.` });
+    }
+  }, [learn, selected, advance, layout.pads, layout.hiHatPedal, middleC, patchPad, update]);
+  const midi = useMidi(onMidi);
+
+  const pad = layout.pads.find((p) => p.id === selected) ?? null;
+  const slotOf = (id: string | undefined) => slots.find((s) => s.id === id);
+
+  async function save() {
+    setBusy(true);
+    try {
+      const { id: _id, ...content } = layout;
+      const body = { ...content, slots: slots.length ? slots : undefined };
+      await api(`/api/studios/${studioId}/layouts/${layout.id}`, { method: "PATCH", body: { layout: body } });
+      setDirty(false);
+      setMsg({ kind: "ok", text: "Layout saved." });
+      router.refresh();
+    } catch (e) {
+      setMsg({ kind: "error", text: e instanceof ApiError ? e.message : String(e) });
+    } finally { setBusy(false); }
+  }
+
+  const noteUse = useMemo(() => {
+    const m = new Map<string, number>();
+    for (const p of layout.pads) m.set(`${p.note}/${p.channel}`, (m.get(`${p.note}/${p.channel}`) ?? 0) + 1);
+    return m;
+  }, [layout.pads]);
+
+  const padButton = (p: Pad) => {
+    const s = slotOf(p.target?.slotId);
+    const shared = (noteUse.get(`${p.note}/${p.channel}`) ?? 0) > 1;
+    const isSel = p.id === selected;
+    return (
+      <button key={p.id} type="button" onClick={() => setSelected(p.id)} aria-pressed={isSel} data-testid="layout-pad" data-pad-id={p.id}
+        className={`flex min-h-20 flex-col items-start gap-0.5 rounded-md border p-2 text-left text-xs ${isSel ? "border-brand bg-brand-soft ring-2 ring-brand" : "border-line bg-card hover:bg-paper"}`}>
+        <span className="font-medium">{p.label || "(no label)"}</span>
+        <span className="num">{p.note} · {noteName(p.note, middleC)} · ch {p.channel}{shared && <span title="Several pads send this note" aria-label="shared note"> ⧉</span>}</span>
+        <span className="text-muted">{p.target ? `${s?.name ?? p.target.slotId}: ${p.target.articulation}` : "→ no target"}</span>
+        {lastVelocity[p.id] !== undefined && <span className="num text-muted">vel {lastVelocity[p.id]}</span>}
+      </button>
+    );
+  };
+
+  const grid = layout.surface.kind === "grid" ? layout.surface : null;
+  const fam: Family | undefined = pad?.target ? slotOf(pad.target.slotId)?.family : undefined;
+
+  return (
+    <div className="grid gap-6 xl:grid-cols-[1fr_360px]">
+      <div className="space-y-4">
+        <section className="card space-y-3">
+          <div className="flex flex-wrap items-center justify-between gap-3">
+            <h2>{grid ? `Pads (${grid.rows} × ${grid.cols} grid)` : `Trigger zones (${layout.pads.length})`}</h2>
+            <MiddleCSetting value={middleC} onChange={setMiddleC} />
+          </div>
+          {grid ? (
+            <div className="grid gap-2" style={{ gridTemplateColumns: `repeat(${grid.cols}, minmax(0, 1fr))` }} data-testid="layout-grid">
+              {Array.from({ length: grid.rows * grid.cols }, (_, i) => {
+                const r = Math.floor(i / grid.cols) + 1;
+                const c = (i % grid.cols) + 1;
+                const p = layout.pads.find((x) => x.row === r && x.col === c);
+                return p ? padButton(p) : (
+                  <button key={`e${r}-${c}`} type="button" disabled={!canWrite} className="min-h-20 rounded-md border border-dashed border-line text-xs text-muted"
+                    onClick={() => {
+                      const ids = new Set(layout.pads.map((x) => x.id));
+                      let id = `r${r}c${c}`;
+                      while (ids.has(id)) id += "x";
+                      update((l) => ({ ...l, pads: [...l.pads, { id, label: `Pad ${l.pads.length + 1}`, row: r, col: c, note: 36, channel: 10, target: null }] }));
+                      setSelected(id);
+                    }}>+ pad</button>
+                );
+              })}
+            </div>
+          ) : (
+            <div className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3" data-testid="layout-grid">{layout.pads.map(padButton)}</div>
+          )}
+          {!grid && canWrite && (
+            <button type="button" className="btn-quiet" disabled={layout.pads.length >= 128} onClick={() => {
+              const ids = new Set(layout.pads.map((x) => x.id));
+              let n = layout.pads.length + 1;
+              while (ids.has(`z${n}`)) n++;
+              update((l) => ({ ...l, pads: [...l.pads, { id: `z${n}`, label: `Zone ${n}`, zone: `zone ${n}`, note: 36, channel: 10, target: null }] }));
+              setSelected(`z${n}`);
+            }}>Add trigger zone</button>
+          )}
+        </section>
+
+        <section className="card space-y-3">
+          <h2>MIDI learn</h2>
+          <p className="text-sm text-muted">Connect your controller, select a pad above, press “Learn pads”, then hit the controller’s pad: its note, channel and velocity are captured{advance ? " and the next pad is selected" : ""}.</p>
+          <MidiStatusLine status={midi.status} message={midi.message} inputs={midi.inputs} onConnect={midi.connect} />
+          {canWrite && (
+            <div className="flex flex-wrap items-center gap-3">
+              <button type="button" className={learn === "pad" ? "btn-primary" : "btn-quiet"} disabled={midi.status !== "ready" || !pad} aria-pressed={learn === "pad"} onClick={() => setLearn(learn === "pad" ? null : "pad")}>
+                {learn === "pad" ? "● Learning pads — stop" : "Learn pads"}
+              </button>
+              <button type="button" className={learn === "pedal" ? "btn-primary" : "btn-quiet"} disabled={midi.status !== "ready" || !layout.hiHatPedal} aria-pressed={learn === "pedal"} onClick={() => setLearn(learn === "pedal" ? null : "pedal")}>
+                {learn === "pedal" ? "● Move the pedal…" : "Learn pedal"}
+              </button>
+              <label className="inline-flex items-center gap-2 text-sm"><input type="checkbox" checked={advance} onChange={(e) => setAdvance(e.target.checked)} /> then select the next pad</label>
+            </div>
+          )}
+          {learn === "pad" && pad && <p className="text-sm" role="status">Waiting for a hit for <strong>{pad.label}</strong>…</p>}
+          <MidiMonitor events={events} middleC={middleC} />
+        </section>
+
+        <PedalEditor pedal={layout.hiHatPedal} slots={slots} canWrite={canWrite} middleC={middleC}
+          onChange={(p: HiHatPedal | null) => update((l) => ({ ...l, hiHatPedal: p }))} />
+      </div>
+
+      <aside className="space-y-4">
+        <section className="card space-y-3" data-testid="pad-settings">
+          <h2>Selected pad</h2>
+          {!pad ? <p className="text-sm text-muted">Select a pad.</p> : (
+            <fieldset disabled={!canWrite} className="space-y-3">
+              <div>
+                <label className="label" htmlFor="pad-label">Label</label>
+                <input id="pad-label" className="field" value={pad.label} maxLength={200} onChange={(e) => patchPad(pad.id, { label: e.target.value })} />
+              </div>
+              {!grid && (
+                <div>
+                  <label className="label" htmlFor="pad-zone">Trigger zone</label>
+                  <input id="pad-zone" className="field" value={pad.zone ?? ""} maxLength={200} onChange={(e) => patchPad(pad.id, { zone: e.target.value || undefined })} placeholder="snare rim" />
+                </div>
+              )}
+              <div className="grid grid-cols-2 gap-3">
+                <div>
+                  <label className="label" htmlFor="pad-note">MIDI note</label>
+                  <input id="pad-note" type="number" min={0} max={127} className="field num" value={pad.note} onChange={(e) => patchPad(pad.id, { note: Math.max(0, Math.min(127, Math.round(Number(e.target.value) || 0))) })} />
+                  <p className="mt-1 text-xs text-muted" data-testid="pad-note-name">{noteName(pad.note, middleC)} (middle C = {middleC})</p>
+                </div>
+                <div>
+                  <label className="label" htmlFor="pad-channel">Channel</label>
+                  <input id="pad-channel" type="number" min={1} max={16} className="field num" value={pad.channel} onChange={(e) => patchPad(pad.id, { channel: Math.max(1, Math.min(16, Math.round(Number(e.target.value) || 1))) })} />
+                </div>
+              </div>
+              {(noteUse.get(`${pad.note}/${pad.channel}`) ?? 0) > 1 && <p className="text-xs text-muted">⧉ Other pads send this note too (fine when they aim at the same target; the audit flags two different targets).</p>}
+              <div>
+                <label className="label" htmlFor="pad-slot">Target slot</label>
+                <select id="pad-slot" className="field" value={pad.target?.slotId ?? ""} onChange={(e) => {
+                  const s = slots.find((x) => x.id === e.target.value);
+                  patchPad(pad.id, { target: s ? { slotId: s.id, articulation: pad.target && FAMILY_ARTICULATIONS[s.family].includes(pad.target.articulation) ? pad.target.articulation : FAMILY_ARTICULATIONS[s.family][0]! } : null });
+                }}>
+                  <option value="">— no target —</option>
+                  {slots.map((s) => <option key={s.id} value={s.id}>{s.name} ({s.family})</option>)}
+                </select>
+                {slots.length === 0 && <p className="mt-1 text-xs text-muted">Take the slot list from a kit below, or add a slot.</p>}
+              </div>
+              {pad.target && (
+                <div>
+                  <label className="label" htmlFor="pad-art">Articulation</label>
+                  <select id="pad-art" className="field" value={pad.target.articulation} onChange={(e) => patchPad(pad.id, { target: { slotId: pad.target!.slotId, articulation: e.target.value as Articulation } })}>
+                    {fam && <optgroup label={`${fam} articulations`}>{FAMILY_ARTICULATIONS[fam].map((a) => <option key={a} value={a}>{a}</option>)}</optgroup>}
+                    <optgroup label="other articulations">{ARTICULATIONS.filter((a) => !fam || !FAMILY_ARTICULATIONS[fam].includes(a)).map((a) => <option key={a} value={a}>{a}</option>)}</optgroup>
+                  </select>
+                </div>
+              )}
+              {lastVelocity[pad.id] !== undefined && <p className="text-xs text-muted">Last learned velocity: <span className="num">{lastVelocity[pad.id]}</span></p>}
+              {canWrite && <button type="button" className="btn-danger py-1" onClick={() => { update((l) => ({ ...l, pads: l.pads.filter((x) => x.id !== pad.id) })); setSelected(null); }} disabled={layout.pads.length <= 1}>Remove pad</button>}
+            </fieldset>
+          )}
+        </section>
+
+        <section className="card space-y-3">
+          <h2>Slots the pads aim at</h2>
+          <div>
+            <label className="label" htmlFor="slots-from-kit">Take slots from a kit</label>
+            <select id="slots-from-kit" className="field" value={kitForSlots} onChange={(e) => { setKitForSlots(e.target.value); const k = kits.find((x) => x.id === e.target.value); if (k) update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], k.slots) })); }} disabled={!canWrite}>
+              <option value="">—</option>
+              {kits.map((k) => <option key={k.id} value={k.id}>{k.name} ({k.slots.length} slots)</option>)}
+            </select>
+          </div>
+          <ul className="text-sm" data-testid="layout-slots">{slots.map((s) => <li key={s.id}>{s.name} <span className="text-muted">({s.family})</span></li>)}</ul>
+          {canWrite && <AddSlot onAdd={(s) => update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], [s]) }))} taken={new Set(slots.map((s) => s.id))} />}
+        </section>
+
+        {canWrite && (
+          <div className="no-print sticky bottom-0 space-y-2 border-t border-line bg-paper py-3">
+            <div className="flex items-center gap-2">
+              <button type="button" className="btn-primary" onClick={save} disabled={busy || !dirty}>Save layout</button>
+              {dirty && <span className="text-sm text-warn">● unsaved changes</span>}
+            </div>
+          </div>
+        )}
+        {msg && <Message kind={msg.kind}>{msg.text}</Message>}
+      </aside>
+    </div>
+  );
+}
+
+function mergeSlots(a: LayoutSlot[], b: LayoutSlot[]): LayoutSlot[] {
+  const m = new Map(a.map((s) => [s.id, s]));
+  for (const s of b) if (!m.has(s.id)) m.set(s.id, { id: s.id, name: s.name, family: s.family });
+  return [...m.values()];
+}
+
+function AddSlot({ onAdd, taken }: { onAdd: (s: LayoutSlot) => void; taken: Set<string> }) {
+  const [name, setName] = useState("");
+  const [family, setFamily] = useState<Family>("snare");
+  return (
+    <div className="flex flex-wrap items-end gap-2">
+      <div className="min-w-0 flex-1">
+        <label className="label" htmlFor="new-slot-name">New slot</label>
+        <input id="new-slot-name" className="field" value={name} onChange={(e) => setName(e.target.value)} placeholder="Snare B" />
+      </div>
+      <select aria-label="Family the slot expects" className="field w-auto" value={family} onChange={(e) => setFamily(e.target.value as Family)}>
+        {FAMILIES.map((f) => <option key={f} value={f}>{f}</option>)}
+      </select>
+      <button type="button" className="btn-quiet" disabled={!name.trim()} onClick={() => {
+        let id = name.trim().toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "slot";
+        while (taken.has(id)) id += "-2";
+        onAdd({ id, name: name.trim(), family });
+        setName("");
+      }}>Add</button>
+    </div>
+  );
+}
