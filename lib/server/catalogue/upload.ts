@@ -202,7 +202,7 @@ async function storeZip(ctx: Ctx, zipPath: string, zipName: string, zipBytes: nu
   const refuse = (name: string, code: string, reason: string) => ctx.results.push({ name, status: "refused", code, reason });
   let zip: yauzl.ZipFile;
   try {
-    zip = await new Promise<yauzl.ZipFile>((res, rej) => yauzl.open(zipPath, { lazyEntries: true, decodeStrings: false, validateEntrySizes: true, autoClose: true }, (e, z) => (e || !z ? rej(e ?? new Error("no zip")) : res(z))));
+    zip = await new Promise<yauzl.ZipFile>((res, rej) => yauzl.open(zipPath, { lazyEntries: true, decodeStrings: false, validateEntrySizes: true, autoClose: false }, (e, z) => (e || !z ? rej(e ?? new Error("no zip")) : res(z))));
   } catch (e) {
     refuse(zipName, "zip-unreadable", `the zip pack could not be read: ${(e as Error).message}`);
     return;
@@ -305,7 +305,8 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   const tmpFiles: string[] = [];
   const bb = busboy({ headers: { "content-type": type }, preservePath: true, limits: { fileSize: Number.MAX_SAFE_INTEGER, files: 50_000, fields: 50, parts: 50_100 } });
   bb.on("file", (_field, file, info) => {
-    const rel = cleanRelPath(info.filename ?? "");
+    // browsers and undici percent-encode quotes and line breaks in multipart file names
+    const rel = cleanRelPath((info.filename ?? "").replace(/%22/g, '"').replace(/%0D/gi, "").replace(/%0A/gi, ""));
     if (!rel) {
       ctx.results.push({ name: info.filename || "(no name)", status: "refused", code: "bad-path", reason: "the file's path leaves its folder (absolute or with '..'); refused" });
       file.resume();
@@ -366,6 +367,7 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   }
   if (failed && ctx.results.every((r) => r.status === "refused")) throw new AppError("invalid-input", "The upload was interrupted or malformed; nothing was stored.");
   if (!ctx.results.length) throw new AppError("invalid-input", "The upload holds no files.");
+  if (batchTooLarge) throw new AppError("too-large", `This upload went over ${mb(maxBatch)}; one batch may hold at most ${mb(maxBatch)}. Send the files in smaller batches.`, { files: ctx.results, counts });
   const tooLarge = ctx.results.filter((r) => r.code === "too-large");
   if (tooLarge.length && counts.queued === 0 && counts.duplicate === 0) {
     throw new AppError("too-large", `${tooLarge[0]!.name} is ${tooLarge[0]!.reason}; nothing was stored.`, { files: ctx.results, counts });
