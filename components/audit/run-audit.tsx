@@ -1,0 +1,60 @@
+"use client";
+// Run an audit: a layout against a kit, with the studio's current catalogue.
+import { useState } from "react";
+import { useRouter } from "next/navigation";
+import { api, ApiError } from "@/components/api";
+import { Message } from "@/components/form-bits";
+
+export function RunAuditForm({ studioId, layouts, kits, layoutId, kitId }: { studioId: string; layouts: Array<{ id: string; name: string }>; kits: Array<{ id: string; name: string }>; layoutId?: string; kitId?: string }) {
+  const router = useRouter();
+  const [l, setL] = useState(layoutId ?? layouts[0]?.id ?? "");
+  const [k, setK] = useState(kitId ?? kits[0]?.id ?? "");
+  const [err, setErr] = useState("");
+  const [busy, setBusy] = useState(false);
+  if (!layouts.length || !kits.length) return <p className="text-sm text-muted">Make a layout and a kit first.</p>;
+  return (
+    <form className="space-y-3" onSubmit={async (e) => {
+      e.preventDefault();
+      setBusy(true);
+      setErr("");
+      try {
+        const r = await api<{ audit: { id: string } }>(`/api/studios/${studioId}/audits`, { body: { layoutId: l, kitId: k } });
+        router.push(`/s/${studioId}/audits/${r.audit.id}`);
+      } catch (x) { setErr(x instanceof ApiError ? x.message : String(x)); setBusy(false); }
+    }}>
+      <div>
+        <label className="label" htmlFor="audit-layout">Layout</label>
+        <select id="audit-layout" className="field" value={l} onChange={(e) => setL(e.target.value)}>{layouts.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</select>
+      </div>
+      <div>
+        <label className="label" htmlFor="audit-kit">Kit</label>
+        <select id="audit-kit" className="field" value={k} onChange={(e) => setK(e.target.value)}>{kits.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</select>
+      </div>
+      <button className="btn-primary" disabled={busy}>{busy ? "Auditing…" : "Run audit"}</button>
+      {err && <Message kind="error">{err}</Message>}
+    </form>
+  );
+}
+
+export function CompareWith({ studioId, auditId, others }: { studioId: string; auditId: string; others: Array<{ id: string; label: string; older: boolean }> }) {
+  const router = useRouter();
+  if (!others.length) return <p className="text-xs text-muted">No other audit of this layout to compare with yet.</p>;
+  return (
+    <label className="inline-flex items-center gap-2 text-sm">
+      <span>Compare with</span>
+      <select className="field w-auto py-1" defaultValue="" aria-label="Compare with another audit" onChange={(e) => {
+        const o = others.find((x) => x.id === e.target.value);
+        if (!o) return;
+        const [before, after] = o.older ? [o.id, auditId] : [auditId, o.id];
+        router.push(`/s/${studioId}/audits/compare?before=${before}&after=${after}`);
+      }}>
+        <option value="" disabled>choose an audit…</option>
+        {others.map((o) => <option key={o.id} value={o.id}>{o.label}</option>)}
+      </select>
+    </label>
+  );
+}
+
+export function PrintButton() {
+  return <button type="button" className="btn-quiet" onClick={() => window.print()}>Print pad chart</button>;
+}
