@@ -19,7 +19,7 @@ export class MeasurePool {
     for (let i = 0; i < size; i++) this.slots.push(this.spawn());
   }
   private spawn(): Slot {
-    const worker = new Worker(path.join(here, "measure-thread.ts"), { execArgv: ["--conditions=react-server", "--import", "tsx"] });
+    const worker = new Worker(path.join(here, "measure-thread.mjs"));
     const slot: Slot = { worker, busy: new Map() };
     worker.on("message", (m: { id: number; result: MeasureResult }) => {
       const p = slot.busy.get(m.id);
@@ -34,7 +34,6 @@ export class MeasurePool {
     };
     worker.on("error", fail);
     worker.on("exit", (code) => code !== 0 && fail(new Error(`measuring thread exited with code ${code}`)));
-    worker.unref();
     return slot;
   }
   private closed = false;
