@@ -118,7 +118,8 @@ export class S3Storage implements Storage {
   readonly client: S3Client;
   readonly bucket: string;
   constructor(o: S3Options) {
-    const cfg: S3ClientConfig = { region: o.region ?? "us-east-1", forcePathStyle: o.forcePathStyle ?? !!o.endpoint };
+    // checksums only where S3 requires them: many S3-compatible stores do not read aws-chunked trailers
+    const cfg: S3ClientConfig = { region: o.region ?? "us-east-1", forcePathStyle: o.forcePathStyle ?? !!o.endpoint, requestChecksumCalculation: "WHEN_REQUIRED", responseChecksumValidation: "WHEN_REQUIRED" };
     if (o.endpoint) cfg.endpoint = o.endpoint;
     if (o.accessKeyId && o.secretAccessKey) cfg.credentials = { accessKeyId: o.accessKeyId, secretAccessKey: o.secretAccessKey };
     this.client = new S3Client(cfg);
