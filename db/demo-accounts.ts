@@ -1,8 +1,12 @@
-// The demo scenario's people (invented): printed by the demo command, used by the seed and the browser tests.
-export const DEMO_STUDIO = "Harbour Lane Studio";
+// The demo scenario's people (invented, from lib/synth/scenario.ts) with demo passwords: printed by the demo
+// command, used by the seed and the browser tests.
+import { DEMO_LIBRARY } from "../lib/synth/scenario";
 
-export const DEMO_ACCOUNTS = [
-  { email: "marguerite@harbourlane.test", name: "Marguerite Oduya", role: "owner", password: "harbour-owner-1" },
-  { email: "tobin@harbourlane.test", name: "Tobin Achterberg", role: "editor", password: "harbour-editor-1" },
-  { email: "priya@harbourlane.test", name: "Priya Ramaswamy-Holt", role: "viewer", password: "harbour-viewer-1" },
-] as const;
+export const DEMO_STUDIO = DEMO_LIBRARY.studio;
+
+export const DEMO_ACCOUNTS = DEMO_LIBRARY.people.map((p) => ({
+  email: p.email,
+  name: p.name,
+  role: p.role,
+  password: `harbour-${p.role}-1`,
+}));
