@@ -73,6 +73,23 @@ describe("platform flow in Chromium", () => {
     await page.getByText(`Invitation sent to ${guest.email}`).waitFor();
     await page.getByTestId("invitations").getByText(guest.email).waitFor();
     await screenshot(page, "platform-04-members");
+
+    // A second studio, then the switcher takes me back to the same section of the first
+    await page.goto(`${BASE}/studios`);
+    await page.getByLabel("Studio name").fill(`${studioName} B`);
+    await page.getByRole("button", { name: "Create studio" }).click();
+    await page.waitForURL((u) => /\/s\/[0-9a-f-]{36}$/.test(u.pathname) && u.toString() !== studioUrl);
+    await page.getByRole("link", { name: "Members" }).click();
+    await page.waitForURL(/\/members$/);
+    await page.getByLabel("Switch studio").selectOption({ label: studioName });
+    await page.waitForURL(`${studioUrl}/members`);
+    await page.getByTestId("invitations").getByText(guest.email).waitFor();
+
+    // Signing out ends the session: the studio list sends me to sign in
+    await page.getByRole("button", { name: "Sign out" }).click();
+    await page.waitForURL(/\/sign-in/);
+    await page.goto(`${BASE}/studios`);
+    await page.waitForURL(/\/sign-in\?next=/);
     await ctx.close();
 
     // The guest opens the invitation link in a fresh browser and creates an account from it
