@@ -27,6 +27,15 @@ function describe(action: string, d: Record<string, unknown> | null): string {
     case "layout.updated": return `edited the pads of the layout "${s("name")}"`;
     case "layout.deleted": return `deleted the layout "${s("name")}"`;
     case "audit.run": return `audited "${s("layout")}" against "${s("kit")}" (score ${s("score")}, ${s("silent")} silent pads)`;
+    case "library.created": return `created the library "${s("name")}"`;
+    case "library.renamed": return `renamed the library "${s("from")}" to "${s("to")}"`;
+    case "library.described": return `changed the description of the library "${s("name")}"`;
+    case "library.deleted": return `deleted the library "${s("name")}" (${s("samples")} samples)`;
+    case "samples.uploaded": return `uploaded to "${s("library")}": ${s("queued")} queued, ${s("duplicate")} duplicates, ${s("refused")} refused`;
+    case "samples.relabelled": return `relabelled ${s("count")} samples (${Object.entries((d?.set as Record<string, unknown>) ?? {}).map(([k, v]) => `${k}: ${v ?? "none"}`).join(", ")})`;
+    case "samples.confirmed": return `confirmed the labels of ${s("count")} samples`;
+    case "instrument.renamed": return `renamed the instrument "${s("from")}" to "${s("to")}"`;
+    case "instruments.merged": return `merged ${((d?.from as string[]) ?? []).join(", ")} into "${s("into")}" (${s("samples")} samples)`;
     default: return `${action}${d ? ` ${JSON.stringify(d)}` : ""}`;
   }
 }

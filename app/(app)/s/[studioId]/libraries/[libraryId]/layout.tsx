@@ -1,0 +1,50 @@
+// One library: its name, description, and sections (samples, instruments, plots, health, settings).
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { requireStudio } from "@/lib/server/session";
+import { getLibrary } from "@/lib/server/catalogue/libraries";
+import { can } from "@/lib/permissions";
+import { AppError } from "@/lib/server/errors";
+import { LibrarySettings } from "@/components/library/library-forms";
+
+export default async function LibraryLayout({ children, params }: { children: React.ReactNode; params: Promise<{ studioId: string; libraryId: string }> }) {
+  const { studioId, libraryId } = await params;
+  const { studio } = await requireStudio(studioId);
+  if (!/^[0-9a-f-]{36}$/i.test(libraryId)) notFound();
+  const lib = await getLibrary({ studioId: studio.id, libraryId }).catch((e) => {
+    if (e instanceof AppError && e.code === "not-found") notFound();
+    throw e;
+  });
+  const base = `/s/${studio.id}/libraries/${lib.id}`;
+  const tabs = [
+    { href: base, label: "Samples" },
+    { href: `${base}/instruments`, label: "Instruments" },
+    { href: `${base}/plots`, label: "Plots" },
+    { href: `${base}/health`, label: "Health" },
+  ];
+  return (
+    <div className="space-y-4">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <p className="text-sm"><Link href={`/s/${studio.id}/libraries`}>Libraries</Link> /</p>
+          <h2 className="text-xl" data-testid="library-name">{lib.name}</h2>
+          {lib.description && <p className="max-w-3xl text-sm text-muted">{lib.description}</p>}
+        </div>
+        {can(studio.role, "studio:write") && (
+          <details className="card w-full max-w-md p-3 text-sm sm:w-auto">
+            <summary className="cursor-pointer font-medium">Library settings</summary>
+            <div className="mt-3">
+              <LibrarySettings studioId={studio.id} libraryId={lib.id} name={lib.name} description={lib.description} canDelete={can(studio.role, "studio:manage")} />
+            </div>
+          </details>
+        )}
+      </div>
+      <nav aria-label="Library sections" className="flex gap-1 text-sm">
+        {tabs.map((t) => (
+          <Link key={t.href} href={t.href} className="rounded-md border border-line bg-card px-3 py-1.5 text-ink hover:bg-paper hover:no-underline">{t.label}</Link>
+        ))}
+      </nav>
+      {children}
+    </div>
+  );
+}

@@ -1,0 +1,30 @@
+import type { Metadata } from "next";
+import { Suspense } from "react";
+import { requireStudio } from "@/lib/server/session";
+import { getLibrary } from "@/lib/server/catalogue/libraries";
+import { listInstruments } from "@/lib/server/catalogue/views";
+import { can } from "@/lib/permissions";
+import { LibraryProgress } from "@/components/library/progress";
+import { Uploader } from "@/components/library/uploader";
+import { SamplesBrowser } from "@/components/library/samples-browser";
+
+export const metadata: Metadata = { title: "Library" };
+
+export default async function LibraryPage({ params }: { params: Promise<{ studioId: string; libraryId: string }> }) {
+  const { studioId, libraryId } = await params;
+  const { studio } = await requireStudio(studioId);
+  const lib = await getLibrary({ studioId: studio.id, libraryId });
+  const instruments = await listInstruments({ studioId: studio.id, libraryId });
+  const write = can(studio.role, "studio:write");
+  return (
+    <div className="space-y-4">
+      <div className={write ? "grid gap-4 lg:grid-cols-[1fr_1fr]" : ""}>
+        <LibraryProgress studioId={studio.id} libraryId={lib.id} initial={{ ...lib.counts, pending: lib.counts.queued + lib.counts.measuring, healthComputedAt: lib.healthComputedAt }} />
+        {write && <Uploader studioId={studio.id} libraryId={lib.id} />}
+      </div>
+      <Suspense fallback={<div className="card text-sm text-muted">Loading samples…</div>}>
+        <SamplesBrowser studioId={studio.id} libraryId={lib.id} canWrite={write} instruments={instruments.map((i) => ({ key: i.key, name: i.name, family: i.family }))} />
+      </Suspense>
+    </div>
+  );
+}

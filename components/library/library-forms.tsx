@@ -1,0 +1,98 @@
+"use client";
+// Library forms: create, rename and describe, delete (owners; the name typed again to confirm).
+import { useState } from "react";
+import { useRouter } from "next/navigation";
+import { useMutation } from "@tanstack/react-query";
+import { api, ApiError } from "../api";
+import { Field, Message, fieldErrors } from "../form-bits";
+import { createLibrarySchema, updateLibrarySchema } from "@/lib/validation/library";
+
+const errText = (e: unknown) => (e instanceof ApiError ? e.message : "Something went wrong; try again.");
+
+export function CreateLibraryForm({ studioId }: { studioId: string }) {
+  const router = useRouter();
+  const [fields, setFields] = useState<Record<string, string>>({});
+  const m = useMutation({
+    mutationFn: (body: { name: string; description?: string }) => api<{ id: string }>(`/api/studios/${studioId}/libraries`, { body }),
+    onSuccess: (out) => {
+      router.push(`/s/${studioId}/libraries/${out.id}`);
+      router.refresh();
+    },
+  });
+  return (
+    <form
+      className="space-y-3"
+      noValidate
+      data-testid="create-library"
+      onSubmit={(e) => {
+        e.preventDefault();
+        const fd = new FormData(e.currentTarget);
+        const parsed = createLibrarySchema.safeParse({ name: fd.get("name"), description: String(fd.get("description") ?? "") || undefined });
+        if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
+        setFields({});
+        m.mutate(parsed.data);
+      }}
+    >
+      <h2>New library</h2>
+      <Field label="Library name" name="name" required maxLength={160} error={fields.name} placeholder="e.g. Maple kit, March sessions" />
+      <div>
+        <label htmlFor="description" className="label">Description <span className="font-normal text-muted">(optional)</span></label>
+        <textarea id="description" name="description" rows={3} maxLength={4000} className="field" />
+      </div>
+      {m.isError && <Message kind="error">{errText(m.error)}</Message>}
+      <button className="btn-primary" disabled={m.isPending}>Create library</button>
+    </form>
+  );
+}
+
+export function LibrarySettings({ studioId, libraryId, name, description, canDelete }: { studioId: string; libraryId: string; name: string; description: string | null; canDelete: boolean }) {
+  const router = useRouter();
+  const [fields, setFields] = useState<Record<string, string>>({});
+  const [confirm, setConfirm] = useState("");
+  const save = useMutation({
+    mutationFn: (body: { name?: string; description?: string | null }) => api(`/api/studios/${studioId}/libraries/${libraryId}`, { method: "PATCH", body }),
+    onSuccess: () => router.refresh(),
+  });
+  const del = useMutation({
+    mutationFn: () => api(`/api/studios/${studioId}/libraries/${libraryId}`, { method: "DELETE", body: { confirmName: confirm } }),
+    onSuccess: () => {
+      router.push(`/s/${studioId}/libraries`);
+      router.refresh();
+    },
+  });
+  return (
+    <div className="space-y-6">
+      <form
+        className="space-y-3"
+        noValidate
+        onSubmit={(e) => {
+          e.preventDefault();
+          const fd = new FormData(e.currentTarget);
+          const parsed = updateLibrarySchema.safeParse({ name: fd.get("name"), description: String(fd.get("description") ?? "") });
+          if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
+          setFields({});
+          save.mutate(parsed.data);
+        }}
+      >
+        <Field label="Name" name="name" defaultValue={name} maxLength={160} error={fields.name} />
+        <div>
+          <label htmlFor="lib-description" className="label">Description</label>
+          <textarea id="lib-description" name="description" rows={3} maxLength={4000} defaultValue={description ?? ""} className="field" />
+        </div>
+        {save.isError && <Message kind="error">{errText(save.error)}</Message>}
+        {save.isSuccess && <Message kind="ok">Saved.</Message>}
+        <button className="btn-quiet" disabled={save.isPending}>Save name and description</button>
+      </form>
+      {canDelete && (
+        <div className="space-y-2 rounded-md border border-bad/30 p-3">
+          <h3 className="font-semibold text-bad">Delete this library</h3>
+          <p className="text-sm text-muted">Deletes every sample, its stored file, the instruments and the health report. This cannot be undone. Type the library&apos;s name to confirm.</p>
+          <label htmlFor="confirm-delete" className="label">Library name</label>
+          <input id="confirm-delete" className="field" value={confirm} onChange={(e) => setConfirm(e.target.value)} placeholder={name} autoComplete="off" />
+          {del.isError && <Message kind="error">{errText(del.error)}</Message>}
+          <button type="button" className="btn-danger" disabled={confirm.trim() !== name || del.isPending} onClick={() => del.mutate()}>Delete library and files</button>
+        </div>
+      )}
+    </div>
+  );
+}

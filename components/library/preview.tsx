@@ -1,0 +1,99 @@
+"use client";
+// Listening: Web Audio playback of the stored WAV through a gain (starts quiet, -24 dB) and an optional
+// limiter (a DynamicsCompressorNode with a high ratio and fast attack). A hearing-safety caution comes before
+// the first playback; accepting it is remembered in this browser.
+import { useEffect, useRef, useState } from "react";
+
+const CAUTION_KEY = "kw.hearing-caution.v1";
+const LEVEL_KEY = "kw.preview-level-db";
+
+export function Preview({ src }: { src: string }) {
+  const [accepted, setAccepted] = useState(false);
+  const [asking, setAsking] = useState(false);
+  const [levelDb, setLevelDb] = useState(-24);
+  const [limiter, setLimiter] = useState(true);
+  const [state, setState] = useState<"idle" | "loading" | "playing" | "error">("idle");
+  const ctxRef = useRef<AudioContext | null>(null);
+  const bufRef = useRef<AudioBuffer | null>(null);
+  const srcRef = useRef<AudioBufferSourceNode | null>(null);
+
+  useEffect(() => {
+    setAccepted(localStorage.getItem(CAUTION_KEY) === "yes");
+    const saved = Number(localStorage.getItem(LEVEL_KEY));
+    if (Number.isFinite(saved) && saved <= 0 && saved >= -60 && localStorage.getItem(LEVEL_KEY) !== null) setLevelDb(saved);
+    return () => {
+      srcRef.current?.stop();
+      ctxRef.current?.close();
+    };
+  }, []);
+
+  const play = async () => {
+    if (!accepted) return setAsking(true);
+    try {
+      srcRef.current?.stop();
+      const ctx = ctxRef.current ?? (ctxRef.current = new AudioContext());
+      await ctx.resume();
+      if (!bufRef.current) {
+        setState("loading");
+        const res = await fetch(src, { credentials: "same-origin" });
+        if (!res.ok) throw new Error(String(res.status));
+        bufRef.current = await ctx.decodeAudioData(await res.arrayBuffer());
+      }
+      const node = ctx.createBufferSource();
+      node.buffer = bufRef.current;
+      const gain = ctx.createGain();
+      gain.gain.value = 10 ** (levelDb / 20);
+      node.connect(gain);
+      if (limiter) {
+        const lim = ctx.createDynamicsCompressor();
+        lim.threshold.value = -12;
+        lim.knee.value = 0;
+        lim.ratio.value = 20;
+        lim.attack.value = 0.001;
+        lim.release.value = 0.1;
+        gain.connect(lim).connect(ctx.destination);
+      } else gain.connect(ctx.destination);
+      node.onended = () => setState((s) => (s === "playing" ? "idle" : s));
+      srcRef.current = node;
+      node.start();
+      setState("playing");
+    } catch {
+      setState("error");
+    }
+  };
+
+  return (
+    <div className="space-y-2 rounded-md border border-line p-2" data-testid="preview">
+      <div className="flex flex-wrap items-center gap-3">
+        <button type="button" className="btn-primary px-3 py-1.5" onClick={play} disabled={state === "loading"} data-testid="play">
+          ▶ {state === "loading" ? "Loading…" : state === "playing" ? "Play again" : "Play"}
+        </button>
+        <label className="flex items-center gap-2 text-xs">
+          Level
+          <input type="range" min={-60} max={0} step={1} value={levelDb} onChange={(e) => { const v = Number(e.target.value); setLevelDb(v); localStorage.setItem(LEVEL_KEY, String(v)); }} aria-label="Preview level in dB" />
+          <span className="num w-14">{levelDb} dB</span>
+        </label>
+        <label className="flex items-center gap-1 text-xs"><input type="checkbox" checked={limiter} onChange={(e) => setLimiter(e.target.checked)} /> Limiter</label>
+      </div>
+      {state === "error" && <p className="text-xs text-bad">This file could not be played in the browser.</p>}
+      <p className="text-xs text-muted">Playback starts quiet. Monitoring levels are your responsibility: turn your speakers or headphones down before raising the level.</p>
+      {asking && (
+        <div role="alertdialog" aria-modal="true" aria-labelledby="caution-title" className="fixed inset-0 z-50 flex items-center justify-center bg-ink/40 p-4" data-testid="hearing-caution">
+          <div className="card max-w-md space-y-3">
+            <h2 id="caution-title">Protect your hearing</h2>
+            <p className="text-sm">Drum one-shots are short, loud transients. A single hit at full level through headphones can be painful and can harm your hearing.</p>
+            <ul className="list-disc pl-5 text-sm">
+              <li>Turn your monitors or headphones down before the first playback.</li>
+              <li>Playback starts at {levelDb} dB; raise it slowly. Keep the limiter on unless you need the raw peaks.</li>
+              <li>Monitoring levels are your responsibility.</li>
+            </ul>
+            <div className="flex justify-end gap-2">
+              <button type="button" className="btn-quiet" onClick={() => setAsking(false)}>Not now</button>
+              <button type="button" className="btn-primary" onClick={() => { localStorage.setItem(CAUTION_KEY, "yes"); setAccepted(true); setAsking(false); }}>I understand, continue</button>
+            </div>
+          </div>
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,57 @@
+"use client";
+// Live progress of a library: counts per state, polled every 1.5 s while samples are queued or measuring.
+import { useEffect, useRef } from "react";
+import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { useRouter } from "next/navigation";
+import { api } from "../api";
+import { STATE_LOOK } from "./state-counts";
+
+export interface Progress { queued: number; measuring: number; catalogued: number; rejected: number; total: number; pending: number; healthComputedAt: string | null }
+
+export function useProgress(studioId: string, libraryId: string, initial?: Progress) {
+  return useQuery({
+    queryKey: ["progress", libraryId],
+    queryFn: () => api<Progress>(`/api/studios/${studioId}/libraries/${libraryId}/progress`),
+    initialData: initial,
+    refetchInterval: (q) => ((q.state.data?.pending ?? 1) > 0 ? 1500 : false),
+  });
+}
+
+export function LibraryProgress({ studioId, libraryId, initial }: { studioId: string; libraryId: string; initial: Progress }) {
+  const { data } = useProgress(studioId, libraryId, initial);
+  const qc = useQueryClient();
+  const router = useRouter();
+  const p = data ?? initial;
+  const done = p.catalogued + p.rejected;
+  const pct = p.total ? Math.round((done / p.total) * 100) : 0;
+  // when the work settles (or the catalogue is re-sorted), refresh the table and the server parts
+  const last = useRef(`${p.pending}|${p.healthComputedAt}`);
+  useEffect(() => {
+    const now = `${p.pending}|${p.healthComputedAt}`;
+    if (now !== last.current) {
+      last.current = now;
+      qc.invalidateQueries({ queryKey: ["samples", libraryId] });
+      if (p.pending === 0) router.refresh();
+    }
+  }, [p.pending, p.healthComputedAt, libraryId, qc, router]);
+  return (
+    <section className="card space-y-3" aria-live="polite" data-testid="progress">
+      <div className="flex items-baseline justify-between">
+        <h3 className="font-semibold">Measuring and sorting</h3>
+        <span className="text-sm" data-testid="progress-status">{p.total === 0 ? "no samples yet" : p.pending > 0 ? `working: ${p.pending} to go` : "all measured"}</span>
+      </div>
+      <div className="h-2 w-full overflow-hidden rounded bg-paper" role="progressbar" aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct} aria-label="Samples measured">
+        <div className="h-full bg-brand transition-all" style={{ width: `${pct}%` }} />
+      </div>
+      <dl className="grid grid-cols-4 gap-2 text-sm">
+        {(["queued", "measuring", "catalogued", "rejected"] as const).map((k) => (
+          <div key={k} className={`rounded border px-2 py-1 ${STATE_LOOK[k].cls}`} data-testid={`count-${k}`}>
+            <dt className="text-xs"><span aria-hidden>{STATE_LOOK[k].icon}</span> {STATE_LOOK[k].word}</dt>
+            <dd className="num text-lg">{p[k]}</dd>
+          </div>
+        ))}
+      </dl>
+      {p.healthComputedAt && <p className="text-xs text-muted">Sorted into instruments and layers at {p.healthComputedAt.replace("T", " ").slice(0, 19)} UTC.</p>}
+    </section>
+  );
+}

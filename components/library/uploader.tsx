@@ -1,0 +1,170 @@
+"use client";
+// Upload: drop files, whole folders (relative paths kept) or .zip packs, or pick them. Each file goes in its own
+// request (three at a time) so every file has its own progress bar; the batch bar sums the bytes sent. At the
+// end a summary: queued for measuring / duplicates / refused with reasons.
+import { useCallback, useRef, useState } from "react";
+import { useQueryClient } from "@tanstack/react-query";
+
+interface Item { id: number; file: File; path: string; loaded: number; state: "waiting" | "sending" | "done" | "failed"; results: { name: string; status: string; reason?: string }[] }
+
+const CONCURRENCY = 3;
+
+// File System Entry API (drag and drop of folders)
+interface FsEntry { isFile: boolean; isDirectory: boolean; fullPath: string; name: string }
+interface FsFileEntry extends FsEntry { file(ok: (f: File) => void, err: (e: unknown) => void): void }
+interface FsDirEntry extends FsEntry { createReader(): { readEntries(ok: (e: FsEntry[]) => void, err: (e: unknown) => void): void } }
+
+async function walk(entry: FsEntry, out: { file: File; path: string }[]): Promise<void> {
+  if (entry.isFile) {
+    const file = await new Promise<File>((res, rej) => (entry as FsFileEntry).file(res, rej));
+    out.push({ file, path: entry.fullPath.replace(/^\/+/, "") });
+  } else if (entry.isDirectory) {
+    const reader = (entry as FsDirEntry).createReader();
+    for (;;) {
+      const batch = await new Promise<FsEntry[]>((res, rej) => reader.readEntries(res, rej));
+      if (!batch.length) break;
+      for (const e of batch) await walk(e, out);
+    }
+  }
+}
+
+const wanted = (p: string) => /\.(wav|wave|zip)$/i.test(p) && !p.split("/").some((x) => x.startsWith("."));
+
+function send(url: string, item: Item, onProgress: (loaded: number) => void): Promise<{ status: number; body: any }> {
+  return new Promise((resolve) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open("POST", url);
+    xhr.responseType = "json";
+    xhr.upload.onprogress = (e) => onProgress(e.loaded);
+    xhr.onload = () => resolve({ status: xhr.status, body: xhr.response });
+    xhr.onerror = () => resolve({ status: 0, body: null });
+    const fd = new FormData();
+    fd.append("file", item.file, item.path);
+    xhr.send(fd);
+  });
+}
+
+export function Uploader({ studioId, libraryId }: { studioId: string; libraryId: string }) {
+  const [items, setItems] = useState<Item[]>([]);
+  const [over, setOver] = useState(false);
+  const [running, setRunning] = useState(false);
+  const seq = useRef(0);
+  const qc = useQueryClient();
+  const url = `/api/studios/${studioId}/libraries/${libraryId}/uploads`;
+
+  const start = useCallback(
+    async (picked: { file: File; path: string }[]) => {
+      const list: Item[] = picked.filter((p) => wanted(p.path)).map((p) => ({ id: ++seq.current, file: p.file, path: p.path, loaded: 0, state: "waiting", results: [] }));
+      const skipped: Item[] = picked.filter((p) => !wanted(p.path)).map((p) => ({ id: ++seq.current, file: p.file, path: p.path, loaded: 0, state: "done", results: [{ name: p.path, status: "refused", reason: "not a .wav file or .zip pack; not sent" }] }));
+      setItems([...list, ...skipped]);
+      if (!list.length) return;
+      setRunning(true);
+      const update = (id: number, patch: Partial<Item>) => setItems((xs) => xs.map((x) => (x.id === id ? { ...x, ...patch } : x)));
+      let next = 0;
+      const lane = async () => {
+        while (next < list.length) {
+          const item = list[next++]!;
+          update(item.id, { state: "sending" });
+          const r = await send(url, item, (loaded) => update(item.id, { loaded }));
+          if (r.status === 201 && r.body?.files) update(item.id, { state: "done", loaded: item.file.size, results: r.body.files });
+          else {
+            const reason = r.body?.error?.message ?? (r.status === 0 ? "the connection failed" : `the server answered ${r.status}`);
+            update(item.id, { state: "failed", results: [{ name: item.path, status: "refused", reason }] });
+          }
+          qc.invalidateQueries({ queryKey: ["progress", libraryId] });
+        }
+      };
+      await Promise.all(Array.from({ length: CONCURRENCY }, lane));
+      setRunning(false);
+      qc.invalidateQueries({ queryKey: ["progress", libraryId] });
+      qc.invalidateQueries({ queryKey: ["samples", libraryId] });
+    },
+    [url, qc, libraryId],
+  );
+
+  const onDrop = async (e: React.DragEvent) => {
+    e.preventDefault();
+    setOver(false);
+    if (running) return;
+    const out: { file: File; path: string }[] = [];
+    const entries = [...e.dataTransfer.items].map((i) => (i as DataTransferItem & { webkitGetAsEntry(): FsEntry | null }).webkitGetAsEntry?.()).filter(Boolean) as FsEntry[];
+    if (entries.length) for (const en of entries) await walk(en, out);
+    else for (const f of [...e.dataTransfer.files]) out.push({ file: f, path: f.name });
+    start(out);
+  };
+  const fromInput = (files: FileList | null) => {
+    if (!files) return;
+    start([...files].map((f) => ({ file: f, path: (f as File & { webkitRelativePath?: string }).webkitRelativePath || f.name })));
+  };
+
+  const total = items.reduce((s, i) => s + i.file.size, 0);
+  const loaded = items.reduce((s, i) => s + (i.state === "done" || i.state === "failed" ? i.file.size : Math.min(i.loaded, i.file.size)), 0);
+  const results = items.flatMap((i) => i.results);
+  const count = (s: string) => results.filter((r) => r.status === s).length;
+  const finished = items.length > 0 && !running;
+  const refused = results.filter((r) => r.status === "refused");
+
+  return (
+    <section className="card space-y-3" data-testid="uploader">
+      <h3 className="font-semibold">Add samples</h3>
+      <div
+        onDragOver={(e) => {
+          e.preventDefault();
+          setOver(true);
+        }}
+        onDragLeave={() => setOver(false)}
+        onDrop={onDrop}
+        className={`rounded-md border-2 border-dashed p-4 text-center text-sm ${over ? "border-brand bg-brand-soft" : "border-line"}`}
+      >
+        <p>Drop WAV files, whole folders or .zip packs here.</p>
+        <p className="mt-1 text-xs text-muted">Folder and file names are kept: they help sorting. At most 200 MB per file.</p>
+        <div className="mt-3 flex flex-wrap justify-center gap-2">
+          <label className="btn-quiet cursor-pointer">
+            Choose files
+            <input type="file" multiple accept=".wav,.wave,.zip,audio/wav" className="sr-only" data-testid="file-input" disabled={running} onChange={(e) => fromInput(e.target.files)} />
+          </label>
+          <label className="btn-quiet cursor-pointer">
+            Choose a folder
+            <input type="file" className="sr-only" data-testid="folder-input" disabled={running} onChange={(e) => fromInput(e.target.files)} {...({ webkitdirectory: "", directory: "" } as Record<string, string>)} />
+          </label>
+        </div>
+      </div>
+      {items.length > 0 && (
+        <div className="space-y-2">
+          <div className="flex justify-between text-xs">
+            <span>{running ? "Sending" : "Sent"} {items.filter((i) => i.state === "done" || i.state === "failed").length} of {items.length} files</span>
+            <span className="num">{(loaded / 1024 / 1024).toFixed(1)} / {(total / 1024 / 1024).toFixed(1)} MB</span>
+          </div>
+          <div className="h-2 w-full overflow-hidden rounded bg-paper" role="progressbar" aria-label="Batch upload" aria-valuemin={0} aria-valuemax={100} aria-valuenow={total ? Math.round((loaded / total) * 100) : 0}>
+            <div className="h-full bg-brand" style={{ width: `${total ? (loaded / total) * 100 : 0}%` }} />
+          </div>
+          <ul className="max-h-40 space-y-1 overflow-y-auto text-xs" data-testid="upload-files">
+            {items.slice(0, 300).map((i) => (
+              <li key={i.id} className="grid grid-cols-[1fr_90px_70px] items-center gap-2">
+                <span className="truncate" title={i.path}>{i.path}</span>
+                <span className="h-1.5 overflow-hidden rounded bg-paper" role="progressbar" aria-label={`Upload of ${i.path}`} aria-valuenow={i.file.size ? Math.round((Math.min(i.loaded, i.file.size) / i.file.size) * 100) : 100}>
+                  <span className="block h-full bg-brand" style={{ width: `${i.state === "done" || i.state === "failed" ? 100 : i.file.size ? (i.loaded / i.file.size) * 100 : 0}%` }} />
+                </span>
+                <span className="text-right">{i.state === "done" ? (i.results.some((r) => r.status === "refused") ? "✕ refused" : i.results.some((r) => r.status === "duplicate") ? "= duplicate" : "✓ sent") : i.state === "failed" ? "✕ failed" : i.state === "sending" ? "sending" : "waiting"}</span>
+              </li>
+            ))}
+            {items.length > 300 && <li className="text-muted">… and {items.length - 300} more</li>}
+          </ul>
+        </div>
+      )}
+      {finished && (
+        <div className="space-y-2 rounded-md border border-line bg-paper p-3 text-sm" data-testid="upload-summary" role="status">
+          <p>
+            <strong>Upload finished:</strong> <span className="num">{count("queued")}</span> queued for measuring, <span className="num">{count("duplicate")}</span> duplicates (already in the library, not stored twice),{" "}
+            <span className="num">{refused.length}</span> refused.
+          </p>
+          {refused.length > 0 && (
+            <ul className="max-h-32 list-disc overflow-y-auto pl-5 text-xs" data-testid="refused-list">
+              {refused.slice(0, 200).map((r, k) => <li key={k}><span className="font-medium">{r.name}</span>: {r.reason}</li>)}
+            </ul>
+          )}
+        </div>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,23 @@
+// Waveform drawn as SVG from the server's min/max peaks per bucket; the detected onset as a marker.
+export function Waveform({ peaks, durationSec, onsetMs, height = 80 }: { peaks: { min: number[]; max: number[] }; durationSec: number; onsetMs: number | null; height?: number }) {
+  const n = peaks.max.length;
+  const w = 400;
+  const mid = height / 2;
+  const top = peaks.max.map((v, i) => `${((i + 0.5) / n) * w},${mid - Math.max(0, Math.min(1, v)) * mid}`);
+  const bottom = peaks.min.map((v, i) => `${((i + 0.5) / n) * w},${mid - Math.max(-1, Math.min(0, v)) * mid}`).reverse();
+  const clipped = peaks.max.some((v) => v >= 0.999) || peaks.min.some((v) => v <= -0.999);
+  const onsetX = onsetMs !== null && durationSec > 0 ? (onsetMs / 1000 / durationSec) * w : null;
+  return (
+    <figure>
+      <svg viewBox={`0 0 ${w} ${height}`} className="h-20 w-full rounded border border-line bg-paper" role="img" aria-label={`Waveform, ${durationSec.toFixed(2)} s${clipped ? ", reaches full scale" : ""}`} data-testid="waveform">
+        <line x1={0} x2={w} y1={mid} y2={mid} stroke="currentColor" className="text-line" strokeWidth={0.5} />
+        <polygon points={[...top, ...bottom].join(" ")} className="fill-brand" />
+        {onsetX !== null && <line x1={onsetX} x2={onsetX} y1={0} y2={height} stroke="currentColor" className="text-warn" strokeDasharray="3 2" strokeWidth={1} />}
+      </svg>
+      <figcaption className="mt-1 flex justify-between text-xs text-muted">
+        <span>0 s{onsetX !== null ? " · dashed line: onset" : ""}</span>
+        <span className="num">{durationSec.toFixed(2)} s</span>
+      </figcaption>
+    </figure>
+  );
+}
