@@ -2,7 +2,7 @@
 // The layout editor: the pad grid (or trigger-zone list), the selected pad's settings, MIDI learn (select a
 // pad, hit the controller's pad: its note, channel and velocity are captured), the hi-hat pedal editor with
 // "learn pedal" (move the pedal: its controller number is captured) and a live MIDI monitor.
-import { useCallback, useMemo, useState } from "react";
+import { useCallback, useMemo, useRef, useState } from "react";
 import { useRouter } from "next/navigation";
 import { api, ApiError } from "@/components/api";
 import { Message } from "@/components/form-bits";
@@ -43,25 +43,35 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
   const update = useCallback((fn: (l: Layout) => Layout) => { setLayout((l) => fn(l)); setDirty(true); setMsg(null); }, []);
   const patchPad = useCallback((id: string, p: Partial<Pad>) => update((l) => ({ ...l, pads: l.pads.map((x) => (x.id === id ? { ...x, ...p } : x)) })), [update]);
 
+  // MIDI messages can arrive faster than React renders: the learn handler reads and advances refs.
+  const selRef = useRef(selected);
+  selRef.current = selected;
+  const learnRef = useRef(learn);
+  learnRef.current = learn;
+  const padsRef = useRef(layout.pads);
+  padsRef.current = layout.pads;
   const onMidi = useCallback((e: MidiEvent) => {
     setEvents((ev) => [e, ...ev].slice(0, 40));
-    if (learn === "pad" && e.kind === "note-on" && selected) {
-      patchPad(selected, { note: e.note!, channel: e.channel });
-      setLastVelocity((v) => ({ ...v, [selected]: e.velocity! }));
+    const sel = selRef.current;
+    if (learnRef.current === "pad" && e.kind === "note-on" && sel) {
+      patchPad(sel, { note: e.note!, channel: e.channel });
+      setLastVelocity((v) => ({ ...v, [sel]: e.velocity! }));
       setMsg({ kind: "ok", text: `Learned note ${e.note} (${noteName(e.note!, middleC)}), channel ${e.channel}, velocity ${e.velocity}.` });
       if (advance) {
-        const i = layout.pads.findIndex((p) => p.id === selected);
-        const next = layout.pads[i + 1];
+        const i = padsRef.current.findIndex((p) => p.id === sel);
+        const next = padsRef.current[i + 1];
+        selRef.current = next?.id ?? sel;
         if (next) setSelected(next.id);
-        else setLearn(null);
+        else { learnRef.current = null; setLearn(null); }
       }
     }
-    if (learn === "pedal" && e.kind === "cc" && layout.hiHatPedal) {
-      update((l) => ({ ...l, hiHatPedal: l.hiHatPedal ? { ...l.hiHatPedal, controller: e.controller!, channel: e.channel } : null }));
+    if (learnRef.current === "pedal" && e.kind === "cc") {
+      learnRef.current = null;
+      update((l) => ({ ...l, hiHatPedal: l.hiHatPedal ? { ...l.hiHatPedal, controller: Math.min(119, e.controller!), channel: e.channel } : null }));
       setLearn(null);
       setMsg({ kind: "ok", text: `Learned the pedal: controller ${e.controller} on channel ${e.channel}.` });
     }
-  }, [learn, selected, advance, layout.pads, layout.hiHatPedal, middleC, patchPad, update]);
+  }, [advance, middleC, patchPad, update]);
   const midi = useMidi(onMidi);
 
   const pad = layout.pads.find((p) => p.id === selected) ?? null;
