@@ -96,6 +96,12 @@ export function PadChart({ studioId, auditId, result }: { studioId: string; audi
             const p = result.pads.find((x) => x.row === r && x.col === c);
             return p ? <PadCell key={p.padId} p={p} middleC={middleC} active={active === p.padId} onPlay={(x) => play(x, velocity)} /> : <div key={i} className="rounded-md border border-dashed border-line" aria-hidden />;
           })}
+          {result.pedal?.chick && (
+            <div style={{ gridColumn: "1 / -1" }} className="max-w-xs">
+              <p className="mb-1 text-xs text-muted">Pedal chick note</p>
+              <PadCell p={result.pedal.chick} middleC={middleC} active={active === result.pedal.chick.padId} onPlay={(x) => play(x, velocity)} />
+            </div>
+          )}
         </div>
       ) : (
         <div className="grid gap-2 sm:grid-cols-3 lg:grid-cols-5 print:grid-cols-4" data-testid="pad-chart">

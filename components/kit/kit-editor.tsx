@@ -75,30 +75,30 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
       {instruments.length === 0 && (
         <Message kind="info">This studio has no catalogued instruments yet. Upload samples to a library; once they are measured and sorted, their instruments appear here.</Message>
       )}
-      <ol className="space-y-3" data-testid="kit-slots">
+      <div className="hidden grid-cols-[2rem_1fr_9rem_2fr_auto] gap-2 px-3 text-xs font-medium text-muted md:grid" aria-hidden><span>#</span><span>Slot</span><span>Expects</span><span>Instrument (family · library · samples)</span><span /></div>
+      <ol className="card p-0" data-testid="kit-slots">
         {slots.map((s, i) => {
           const inst = s.instrumentId ? byId.get(s.instrumentId) : undefined;
           const otherFamily = inst && inst.family !== s.family;
           const overrides = Object.entries(s.standIns ?? {}) as Array<[Articulation, Articulation]>;
           const fam = inst?.family ?? s.family;
           return (
-            <li key={i} className="card space-y-3 p-4" data-testid="kit-slot">
-              <div className="grid gap-3 md:grid-cols-[3rem_1fr_10rem_2fr]">
-                <span className="num self-center text-muted">{i + 1}.</span>
+            <li key={i} className="space-y-1 border-t border-line px-3 py-2" data-testid="kit-slot">
+              <div className="grid items-start gap-2 md:grid-cols-[2rem_1fr_9rem_2fr_auto]">
+                <span className="num pt-2 text-muted">{i + 1}.</span>
                 <div>
-                  <label className="label" htmlFor={`slot-name-${i}`}>Slot name</label>
-                  <input id={`slot-name-${i}`} className="field" value={s.name} disabled={!canWrite} onChange={(e) => patch(i, { name: e.target.value })} />
-                  <p className="mt-1 text-xs text-muted">id <span className="num">{s.id}</span></p>
+                  <label className="sr-only" htmlFor={`slot-name-${i}`}>Slot name</label>
+                  <input id={`slot-name-${i}`} className="field py-1.5" value={s.name} disabled={!canWrite} onChange={(e) => patch(i, { name: e.target.value })} />
                 </div>
                 <div>
-                  <label className="label" htmlFor={`slot-family-${i}`}>Expects</label>
-                  <select id={`slot-family-${i}`} className="field" value={s.family} disabled={!canWrite} onChange={(e) => patch(i, { family: e.target.value as Family })}>
+                  <label className="sr-only" htmlFor={`slot-family-${i}`}>Expects</label>
+                  <select id={`slot-family-${i}`} className="field py-1.5" value={s.family} disabled={!canWrite} onChange={(e) => patch(i, { family: e.target.value as Family })}>
                     {FAMILIES.map((f) => <option key={f} value={f}>{f}</option>)}
                   </select>
                 </div>
                 <div>
-                  <label className="label" htmlFor={`slot-inst-${i}`}>Instrument</label>
-                  <select id={`slot-inst-${i}`} className="field" value={s.instrumentId ?? ""} disabled={!canWrite} onChange={(e) => patch(i, { instrumentId: e.target.value || null })}>
+                  <label className="sr-only" htmlFor={`slot-inst-${i}`}>Instrument</label>
+                  <select id={`slot-inst-${i}`} className="field py-1.5" value={s.instrumentId ?? ""} disabled={!canWrite} onChange={(e) => patch(i, { instrumentId: e.target.value || null })}>
                     <option value="">— empty slot (its pads stay silent) —</option>
                     {s.instrumentId && !inst && <option value={s.instrumentId}>missing instrument {s.instrumentId}</option>}
                     {[s.family, ...FAMILIES.filter((f) => f !== s.family)].map((f) => {
@@ -110,13 +110,20 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
                       ) : null;
                     })}
                   </select>
-                  {inst && <p className="mt-1 text-xs text-muted">Recorded: {inst.articulations.join(", ") || "nothing yet"}</p>}
-                  {otherFamily && <p className="mt-1 text-xs text-warn">⚠ holds a {inst.family} in a {s.family} slot: the audit uses the {inst.family}’s own articulations.</p>}
-                  {s.instrumentId && !inst && <p className="mt-1 text-xs text-bad">✕ this instrument is no longer in the catalogue.</p>}
+                  {inst && <p className="mt-0.5 text-xs text-muted">Recorded: {inst.articulations.join(", ") || "nothing yet"}</p>}
+                  {otherFamily && <p className="mt-0.5 text-xs text-warn">⚠ holds a {inst.family} in a {s.family} slot: the audit uses the {inst.family}’s own articulations.</p>}
+                  {s.instrumentId && !inst && <p className="mt-0.5 text-xs text-bad">✕ this instrument is no longer in the catalogue.</p>}
                 </div>
+                {canWrite ? (
+                  <div className="flex gap-1">
+                    <button type="button" className="btn-quiet px-2 py-1" onClick={() => move(i, -1)} disabled={i === 0} aria-label={`Move ${s.name} up`}>↑</button>
+                    <button type="button" className="btn-quiet px-2 py-1" onClick={() => move(i, 1)} disabled={i === slots.length - 1} aria-label={`Move ${s.name} down`}>↓</button>
+                    <button type="button" className="btn-danger px-2 py-1" onClick={() => change(slots.filter((_, j) => j !== i))} aria-label={`Remove slot ${s.name}`}>✕</button>
+                  </div>
+                ) : <span />}
               </div>
-              <details>
-                <summary className="cursor-pointer text-sm">Stand-in overrides ({overrides.length})</summary>
+              <details className="md:ml-10">
+                <summary className="cursor-pointer text-xs text-muted">Stand-in overrides ({overrides.length})</summary>
                 <div className="mt-2 space-y-2">
                   <p className="text-xs text-muted">When the requested articulation is missing, play this one instead (used only when it is recorded; otherwise the family’s closeness graph decides).</p>
                   {overrides.map(([req, play], k) => (
@@ -145,13 +152,6 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
                   )}
                 </div>
               </details>
-              {canWrite && (
-                <div className="flex flex-wrap gap-2">
-                  <button type="button" className="btn-quiet py-1" onClick={() => move(i, -1)} disabled={i === 0} aria-label={`Move ${s.name} up`}>↑ Up</button>
-                  <button type="button" className="btn-quiet py-1" onClick={() => move(i, 1)} disabled={i === slots.length - 1} aria-label={`Move ${s.name} down`}>↓ Down</button>
-                  <button type="button" className="btn-danger py-1" onClick={() => change(slots.filter((_, j) => j !== i))}>Remove slot</button>
-                </div>
-              )}
             </li>
           );
         })}

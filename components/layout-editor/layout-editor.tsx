@@ -240,12 +240,12 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
               {kits.map((k) => <option key={k.id} value={k.id}>{k.name} ({k.slots.length} slots)</option>)}
             </select>
           </div>
-          <ul className="text-sm" data-testid="layout-slots">{slots.map((s) => <li key={s.id}>{s.name} <span className="text-muted">({s.family})</span></li>)}</ul>
+          <ul className="flex max-h-48 flex-wrap gap-1 overflow-y-auto text-xs" data-testid="layout-slots">{slots.map((s) => <li key={s.id} className="tag border-line">{s.name} <span className="ml-1 text-muted">{s.family}</span></li>)}</ul>
           {canWrite && <AddSlot onAdd={(s) => update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], [s]) }))} taken={new Set(slots.map((s) => s.id))} />}
         </section>
 
         {canWrite && (
-          <div className="no-print sticky bottom-0 space-y-2 border-t border-line bg-paper py-3">
+          <div className="no-print space-y-2">
             <div className="flex items-center gap-2">
               <button type="button" className="btn-primary" onClick={save} disabled={busy || !dirty}>Save layout</button>
               {dirty && <span className="text-sm text-warn">● unsaved changes</span>}

@@ -36,7 +36,7 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
         <div className="card text-sm"><p className="text-muted">After</p><p><Link href={`/s/${studio.id}/audits/${data.after.id}`} className="num">{when(data.after.createdAt)}</Link></p><p>kit {data.after.kitName}</p></div>
         <div className="card text-sm" data-testid="compare-score"><p className="text-muted">Score</p><p className="num text-2xl font-semibold">{d.scoreBefore.toFixed(1)} → {d.scoreAfter.toFixed(1)}</p><p className="num">{d.scoreDelta > 0 ? "▲ +" : d.scoreDelta < 0 ? "▼ " : "= "}{d.scoreDelta.toFixed(1)}</p></div>
       </div>
-      <table className="card w-auto text-sm">
+      <div className="card w-fit"><table className="text-sm">
         <thead className="text-left text-muted"><tr><th className="pr-6 font-medium" /><th className="pr-6 font-medium">before</th><th className="font-medium">after</th></tr></thead>
         <tbody className="num">
           <tr><td className="pr-6">direct</td><td>{sb.direct}</td><td>{sa.direct}</td></tr>
@@ -44,7 +44,7 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
           <tr><td className="pr-6">silent</td><td>{sb.silent}</td><td>{sa.silent}</td></tr>
           <tr><td className="pr-6">conflicts</td><td>{sb.conflicts}</td><td>{sa.conflicts}</td></tr>
         </tbody>
-      </table>
+      </table></div>
       <section className="card space-y-2" data-testid="compare-changes">
         <h2>Changes ({d.changes.length})</h2>
         {d.changes.length === 0 ? <p className="text-sm text-muted">Every pad plays the same as before.</p> : (

@@ -1,0 +1,79 @@
+"use client";
+// Instruments of a library: rename (kept across re-sorting) and merge several into one.
+import { useState } from "react";
+import { useRouter } from "next/navigation";
+import { useMutation } from "@tanstack/react-query";
+import { api, ApiError } from "../api";
+import { Message } from "../form-bits";
+
+type Inst = { id: string; key: string; name: string; nameSource: string; family: string; pitchHz: number | null; sampleCount: number };
+
+export function InstrumentsList({ studioId, libraryId, instruments, canWrite }: { studioId: string; libraryId: string; instruments: Inst[]; canWrite: boolean }) {
+  const router = useRouter();
+  const [picked, setPicked] = useState<Set<string>>(new Set());
+  const [target, setTarget] = useState("");
+  const [msg, setMsg] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
+  const base = `/api/studios/${studioId}/libraries/${libraryId}/instruments`;
+  const merge = useMutation({
+    mutationFn: () => api<{ moved: number }>(`${base}/merge`, { body: { sourceIds: [...picked].filter((x) => x !== target), targetId: target } }),
+    onSuccess: (r) => {
+      setMsg({ kind: "ok", text: `Moved ${r.moved} samples; the catalogue is being re-sorted.` });
+      setPicked(new Set());
+      setTimeout(() => router.refresh(), 2500);
+    },
+    onError: (e) => setMsg({ kind: "error", text: e instanceof ApiError ? e.message : "Could not merge." }),
+  });
+  const byFamily = new Map<string, Inst[]>();
+  for (const i of instruments) byFamily.set(i.family, [...(byFamily.get(i.family) ?? []), i]);
+  return (
+    <div className="space-y-4">
+      {canWrite && (
+        <div className="card flex flex-wrap items-end gap-3 p-3 text-sm">
+          <span className="pb-2"><span className="num">{picked.size}</span> selected</span>
+          <div>
+            <label className="label" htmlFor="merge-target">Merge the selected into</label>
+            <select id="merge-target" className="field w-64" value={target} onChange={(e) => setTarget(e.target.value)}>
+              <option value="">choose an instrument</option>
+              {instruments.filter((i) => picked.has(i.id)).map((i) => <option key={i.id} value={i.id}>{i.name}</option>)}
+            </select>
+          </div>
+          <button type="button" className="btn-primary" disabled={picked.size < 2 || !target || merge.isPending} onClick={() => merge.mutate()}>Merge</button>
+          {msg && <Message kind={msg.kind}>{msg.text}</Message>}
+        </div>
+      )}
+      {instruments.length === 0 && <p className="card text-sm text-muted">No instruments yet: they appear once samples are measured and sorted.</p>}
+      {[...byFamily.entries()].map(([family, list]) => (
+        <section key={family} className="card p-0">
+          <h3 className="px-4 pt-3 font-semibold capitalize">{family}</h3>
+          <ul className="divide-y divide-line text-sm">
+            {list.map((i) => (
+              <li key={i.id} className="flex flex-wrap items-center gap-3 px-4 py-2">
+                {canWrite && <input type="checkbox" aria-label={`Select ${i.name}`} checked={picked.has(i.id)} onChange={(e) => setPicked((s) => { const n = new Set(s); if (e.target.checked) n.add(i.id); else n.delete(i.id); return n; })} />}
+                <RenameField studioId={studioId} libraryId={libraryId} inst={i} canWrite={canWrite} />
+                <span className="text-xs text-muted"><span className="num">{i.sampleCount}</span> samples{i.pitchHz ? <> · pitch <span className="num">{Math.round(i.pitchHz)}</span> Hz</> : null}{i.nameSource === "person" ? " · named by a member" : ""}</span>
+                <a className="ml-auto text-xs" href={`/s/${studioId}/libraries/${libraryId}?instrument=${encodeURIComponent(i.key)}`}>samples →</a>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ))}
+    </div>
+  );
+}
+
+function RenameField({ studioId, libraryId, inst, canWrite }: { studioId: string; libraryId: string; inst: Inst; canWrite: boolean }) {
+  const router = useRouter();
+  const [name, setName] = useState(inst.name);
+  const m = useMutation({
+    mutationFn: () => api(`/api/studios/${studioId}/libraries/${libraryId}/instruments/${inst.id}`, { method: "PATCH", body: { name } }),
+    onSuccess: () => router.refresh(),
+  });
+  if (!canWrite) return <span className="font-medium">{inst.name}</span>;
+  return (
+    <form className="flex items-center gap-2" onSubmit={(e) => { e.preventDefault(); if (name.trim()) m.mutate(); }}>
+      <input className="field w-56 py-1" value={name} onChange={(e) => setName(e.target.value)} aria-label={`Name of ${inst.name}`} maxLength={160} />
+      {name !== inst.name && <button className="btn-quiet px-2 py-1" disabled={m.isPending}>Rename</button>}
+      {m.isError && <span className="text-xs text-bad">{m.error instanceof ApiError ? m.error.message : "Could not rename."}</span>}
+    </form>
+  );
+}

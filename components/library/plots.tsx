@@ -1,0 +1,107 @@
+"use client";
+// Plots of a library (recharts): the loudness ladder of one instrument + articulation (+ mic) group — each
+// velocity layer a step over its velocity range at its mean strike loudness, each round robin a dot, gaps
+// between layers visible — and the feature map: strike centroid against decay, every family with its own
+// colour AND marker shape, samples flagged for review ringed, so mislabelled files stand apart.
+import { useMemo, useState } from "react";
+import { CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis } from "recharts";
+import type { FeaturePoint, LadderGroup } from "@/lib/server/catalogue/views";
+
+const SHAPES = ["circle", "square", "triangle", "diamond", "cross", "star", "wye"] as const;
+const COLOURS = ["#1f5f5b", "#a2271d", "#9a5b00", "#3b4a9c", "#2f6b1f", "#7a2f7a", "#4b4f56", "#b0457a", "#0f7a94", "#6b5a1f", "#5b3a8c", "#8c3a1f", "#3a8c5b"];
+
+export function LoudnessLadder({ groups }: { groups: LadderGroup[] }) {
+  const [key, setKey] = useState(groups.find((g) => g.layers.length > 1)?.key ?? groups[0]?.key ?? "");
+  const g = groups.find((x) => x.key === key);
+  const { steps, dots } = useMemo(() => {
+    const steps: { v: number; lufs: number | null }[] = [];
+    const dots: { v: number; lufs: number; name: string }[] = [];
+    for (const l of g?.layers ?? []) {
+      steps.push({ v: l.velocityLow, lufs: l.meanStrikeLufs }, { v: l.velocityHigh, lufs: l.meanStrikeLufs }, { v: l.velocityHigh + 0.5, lufs: null });
+      const w = Math.max(1, l.velocityHigh - l.velocityLow);
+      l.members.forEach((m, i) => m.strikeLufs !== null && dots.push({ v: l.velocityLow + ((i + 1) / (l.members.length + 1)) * w, lufs: m.strikeLufs, name: `layer ${l.index + 1}, RR ${m.roundRobin}` }));
+    }
+    return { steps, dots };
+  }, [g]);
+  if (!groups.length) return <p className="text-sm text-muted">No layer groups yet.</p>;
+  return (
+    <section className="card space-y-3" data-testid="ladder">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <h3 className="font-semibold">Loudness ladder</h3>
+        <div>
+          <label htmlFor="ladder-group" className="label">Instrument / articulation / mic</label>
+          <select id="ladder-group" className="field w-80" value={key} onChange={(e) => setKey(e.target.value)}>
+            {groups.map((x) => <option key={x.key} value={x.key}>{x.label} ({x.layers.length} layers)</option>)}
+          </select>
+        </div>
+      </div>
+      {g && (
+        <>
+          <div className="h-72" role="img" aria-label={`Loudness ladder of ${g.label}: ${g.layers.map((l) => `layer ${l.index + 1} at ${l.meanStrikeLufs.toFixed(1)} LUFS, velocity ${l.velocityLow}-${l.velocityHigh}, ${l.members.length} round robins`).join("; ")}`}>
+            <ResponsiveContainer width="100%" height="100%">
+              <ComposedChart margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
+                <CartesianGrid strokeDasharray="3 3" stroke="#dcd8cf" />
+                <XAxis type="number" dataKey="v" domain={[1, 127]} ticks={[1, 16, 32, 48, 64, 80, 96, 112, 127]} label={{ value: "MIDI velocity", position: "insideBottom", offset: -10 }} />
+                <YAxis type="number" dataKey="lufs" domain={["auto", "auto"]} label={{ value: "strike loudness (LUFS)", angle: -90, position: "insideLeft" }} />
+                <Tooltip formatter={(v) => (typeof v === "number" ? v.toFixed(1) : String(v))} />
+                <Legend verticalAlign="top" />
+                <Line data={steps} dataKey="lufs" name="layer (mean, over its velocity range)" stroke="#1f5f5b" strokeWidth={3} dot={false} connectNulls={false} isAnimationActive={false} />
+                <Scatter data={dots} dataKey="lufs" name="round robins" fill="#9a5b00" shape="diamond" isAnimationActive={false} />
+              </ComposedChart>
+            </ResponsiveContainer>
+          </div>
+          <p className="text-xs text-muted">Layers counted from {g.countFrom === "names" ? "the names" : g.countFrom === "gaps" ? "the loudness gaps" : "a single group"}. {g.criterion}</p>
+        </>
+      )}
+    </section>
+  );
+}
+
+export function FeatureMap({ points, colourBy }: { points: FeaturePoint[]; colourBy?: "family" | "articulation" }) {
+  const [by, setBy] = useState<"family" | "articulation">(colourBy ?? "family");
+  const series = useMemo(() => {
+    const m = new Map<string, FeaturePoint[]>();
+    for (const p of points) {
+      const k = (by === "family" ? p.family : p.articulation) ?? "unlabelled";
+      m.set(k, [...(m.get(k) ?? []), p]);
+    }
+    return [...m.entries()].sort((a, b) => a[0].localeCompare(b[0]));
+  }, [points, by]);
+  const flagged = points.filter((p) => p.conflict === "strong");
+  if (!points.length) return <p className="text-sm text-muted">No measured samples yet.</p>;
+  return (
+    <section className="card space-y-3" data-testid="feature-map">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <h3 className="font-semibold">Feature map: brightness against decay</h3>
+        <div>
+          <label htmlFor="fm-by" className="label">Colour and shape by</label>
+          <select id="fm-by" className="field w-40" value={by} onChange={(e) => setBy(e.target.value as "family" | "articulation")}>
+            <option value="family">family</option>
+            <option value="articulation">articulation</option>
+          </select>
+        </div>
+      </div>
+      <div className="h-96" role="img" aria-label={`Feature map of ${points.length} samples in ${series.length} groups; ${flagged.length} flagged for review`}>
+        <ResponsiveContainer width="100%" height="100%">
+          <ScatterChart margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
+            <CartesianGrid strokeDasharray="3 3" stroke="#dcd8cf" />
+            <XAxis type="number" dataKey="centroidHz" name="centroid" unit=" Hz" scale="log" domain={["auto", "auto"]} allowDataOverflow label={{ value: "spectral centroid of the strike (Hz, log)", position: "insideBottom", offset: -10 }} />
+            <YAxis type="number" dataKey="decaySec" name="decay" unit=" s" scale="log" domain={["auto", "auto"]} allowDataOverflow label={{ value: "decay (s, log)", angle: -90, position: "insideLeft" }} />
+            <ZAxis range={[36, 36]} />
+            <Tooltip cursor={{ strokeDasharray: "3 3" }} formatter={(v) => (typeof v === "number" ? v.toFixed(2) : String(v))} />
+            <Legend verticalAlign="top" />
+            {series.map(([name, pts], i) => (
+              <Scatter key={name} name={name} data={pts} fill={COLOURS[i % COLOURS.length]} shape={SHAPES[i % SHAPES.length]} isAnimationActive={false} />
+            ))}
+            {flagged.length > 0 && <Scatter name="⚑ flagged: name and sound disagree" data={flagged} fill="none" stroke="#a2271d" strokeWidth={2} shape="circle" isAnimationActive={false} />}
+          </ScatterChart>
+        </ResponsiveContainer>
+      </div>
+      {flagged.length > 0 && (
+        <ul className="list-disc pl-5 text-xs" data-testid="flagged-list">
+          {flagged.slice(0, 20).map((p) => <li key={p.id}>{p.path}: named {p.family ?? "?"}, but sounds otherwise</li>)}
+        </ul>
+      )}
+    </section>
+  );
+}
