@@ -152,6 +152,11 @@ describe("audit flow in Chromium", () => {
     expect(csv.split("\r\n")[0]).toBe("kind,id,label,note,channel,row,col,zone,slot,instrument,requested,outcome,plays,path,cost,layers,velocity_gaps,min_round_robins,reason");
     expect(csv).toMatch(/pad,r1c3,Bell,56,10,1,3,,Cowbell,Cowbell low,hit,direct,hit/);
     await screenshot(page, "audit-05-second-audit");
+    // the printable pad chart: print media hides the controls (.no-print)
+    await page.emulateMedia({ media: "print" });
+    await expect(page.getByRole("button", { name: "Run audit" }).isVisible()).resolves.toBe(false);
+    await expect(page.getByTestId("pad-chart").isVisible()).resolves.toBe(true);
+    await screenshot(page, "audit-06-print");
     await ctx.close();
   });
 });
