@@ -8,6 +8,8 @@ import { CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Scatte
 import type { FeaturePoint, LadderGroup } from "@/lib/server/catalogue/views";
 
 const SHAPES = ["circle", "square", "triangle", "diamond", "cross", "star", "wye"] as const;
+const hz = (v: number) => (v >= 1000 ? `${(v / 1000).toFixed(v >= 10_000 ? 0 : 1)} kHz` : `${Math.round(v)} Hz`);
+const sec = (v: number) => (v >= 1 ? `${v.toFixed(1)} s` : `${Math.round(v * 1000)} ms`);
 const COLOURS = ["#1f5f5b", "#a2271d", "#9a5b00", "#3b4a9c", "#2f6b1f", "#7a2f7a", "#4b4f56", "#b0457a", "#0f7a94", "#6b5a1f", "#5b3a8c", "#8c3a1f", "#3a8c5b"];
 
 export function LoudnessLadder({ groups }: { groups: LadderGroup[] }) {
@@ -39,10 +41,10 @@ export function LoudnessLadder({ groups }: { groups: LadderGroup[] }) {
         <>
           <div className="h-72" role="img" aria-label={`Loudness ladder of ${g.label}: ${g.layers.map((l) => `layer ${l.index + 1} at ${l.meanStrikeLufs.toFixed(1)} LUFS, velocity ${l.velocityLow}-${l.velocityHigh}, ${l.members.length} round robins`).join("; ")}`}>
             <ResponsiveContainer width="100%" height="100%">
-              <ComposedChart margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
+              <ComposedChart margin={{ top: 10, right: 20, bottom: 20, left: 20 }}>
                 <CartesianGrid strokeDasharray="3 3" stroke="#dcd8cf" />
                 <XAxis type="number" dataKey="v" domain={[1, 127]} ticks={[1, 16, 32, 48, 64, 80, 96, 112, 127]} label={{ value: "MIDI velocity", position: "insideBottom", offset: -10 }} />
-                <YAxis type="number" dataKey="lufs" domain={["auto", "auto"]} label={{ value: "strike loudness (LUFS)", angle: -90, position: "insideLeft" }} />
+                <YAxis type="number" dataKey="lufs" domain={[(m: number) => Math.floor(m - 3), (m: number) => Math.ceil(m + 3)]} width={70} label={{ value: "strike loudness (LUFS)", angle: -90, position: "insideLeft", dy: 70 }} />
                 <Tooltip formatter={(v) => (typeof v === "number" ? v.toFixed(1) : String(v))} />
                 <Legend verticalAlign="top" />
                 <Line data={steps} dataKey="lufs" name="layer (mean, over its velocity range)" stroke="#1f5f5b" strokeWidth={3} dot={false} connectNulls={false} isAnimationActive={false} />
@@ -83,10 +85,10 @@ export function FeatureMap({ points, colourBy }: { points: FeaturePoint[]; colou
       </div>
       <div className="h-96" role="img" aria-label={`Feature map of ${points.length} samples in ${series.length} groups; ${flagged.length} flagged for review`}>
         <ResponsiveContainer width="100%" height="100%">
-          <ScatterChart margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
+          <ScatterChart margin={{ top: 10, right: 20, bottom: 20, left: 20 }}>
             <CartesianGrid strokeDasharray="3 3" stroke="#dcd8cf" />
-            <XAxis type="number" dataKey="centroidHz" name="centroid" unit=" Hz" scale="log" domain={["auto", "auto"]} allowDataOverflow label={{ value: "spectral centroid of the strike (Hz, log)", position: "insideBottom", offset: -10 }} />
-            <YAxis type="number" dataKey="decaySec" name="decay" unit=" s" scale="log" domain={["auto", "auto"]} allowDataOverflow label={{ value: "decay (s, log)", angle: -90, position: "insideLeft" }} />
+            <XAxis type="number" dataKey="centroidHz" name="centroid" scale="log" domain={[(m: number) => m / 1.5, (m: number) => m * 1.5]} tickFormatter={hz} tickCount={6} label={{ value: "spectral centroid of the strike (log scale)", position: "insideBottom", offset: -10 }} />
+            <YAxis type="number" dataKey="decaySec" name="decay" scale="log" domain={[(m: number) => m / 1.5, (m: number) => m * 1.5]} tickFormatter={sec} tickCount={6} width={70} label={{ value: "decay (log scale)", angle: -90, position: "insideLeft", offset: 0, dy: 60 }} />
             <ZAxis range={[36, 36]} />
             <Tooltip cursor={{ strokeDasharray: "3 3" }} formatter={(v) => (typeof v === "number" ? v.toFixed(2) : String(v))} />
             <Legend verticalAlign="top" />

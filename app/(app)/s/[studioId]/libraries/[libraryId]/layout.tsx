@@ -6,6 +6,7 @@ import { getLibrary } from "@/lib/server/catalogue/libraries";
 import { can } from "@/lib/permissions";
 import { AppError } from "@/lib/server/errors";
 import { LibrarySettings } from "@/components/library/library-forms";
+import { LibraryTabs } from "@/components/library/library-tabs";
 
 export default async function LibraryLayout({ children, params }: { children: React.ReactNode; params: Promise<{ studioId: string; libraryId: string }> }) {
   const { studioId, libraryId } = await params;
@@ -39,11 +40,7 @@ export default async function LibraryLayout({ children, params }: { children: Re
           </details>
         )}
       </div>
-      <nav aria-label="Library sections" className="flex gap-1 text-sm">
-        {tabs.map((t) => (
-          <Link key={t.href} href={t.href} className="rounded-md border border-line bg-card px-3 py-1.5 text-ink hover:bg-paper hover:no-underline">{t.label}</Link>
-        ))}
-      </nav>
+      <LibraryTabs tabs={tabs} />
       {children}
     </div>
   );

@@ -18,7 +18,7 @@ export default async function LibraryPage({ params }: { params: Promise<{ studio
   const write = can(studio.role, "studio:write");
   return (
     <div className="space-y-4">
-      <div className={write ? "grid gap-4 lg:grid-cols-[1fr_1fr]" : ""}>
+      <div className={write ? "grid items-start gap-4 lg:grid-cols-[1fr_1fr]" : ""}>
         <LibraryProgress studioId={studio.id} libraryId={lib.id} initial={{ ...lib.counts, pending: lib.counts.queued + lib.counts.measuring, healthComputedAt: lib.healthComputedAt }} />
         {write && <Uploader studioId={studio.id} libraryId={lib.id} />}
       </div>
