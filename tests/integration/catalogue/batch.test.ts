@@ -5,6 +5,7 @@ import type { ChildProcess } from "node:child_process";
 import { call, makeStudioWithRoles, uniq } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
 import { closeQueues } from "@/workers/jobs";
+import { storage } from "@/lib/server/storage";
 import { badHeaderWav, hitWav, multipart, notWav, rf64, startWorker, stateCounts, waitFor, waitForReady } from "./fixtures";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
@@ -21,7 +22,7 @@ async function upload(libraryId: string, files: { name: string; data: Uint8Array
   const { body, type } = await multipart(files);
   const r = await call(uploadRoute.POST, { method: "POST", params: { studioId: ctx.studio.id, libraryId }, rawBody: body, headers: { "content-type": type }, user: ctx.users.editor });
   expect(r.status).toBe(201);
-  return r.json as { files: { name: string; status: string; code?: string; reason?: string }[]; counts: Record<string, number> };
+  return r.json as { files: { name: string; status: string; code?: string; reason?: string; sampleId?: string }[]; counts: Record<string, number> };
 }
 const drums = ["kick", "snare", "tom", "hat"];
 function goodFile(i: number, tag: string) {
@@ -112,4 +113,27 @@ describe("background measuring with the worker process", () => {
     expect(new Set(rows.map((r) => r.sha256)).size).toBe(240);
     console.log(`[measured] killed with ${mid.catalogued}/240 catalogued (${mid.measuring} measuring); finished ${((Date.now() - tKill) / 1000).toFixed(1)} s after the kill`);
   }, 200_000);
+
+  it("a job that keeps failing (stored file gone) leaves its sample rejected with the reason after its retries", async () => {
+    // the worker is stopped while the file goes missing, so it cannot measure it first
+    if (worker && worker.exitCode === null) {
+      worker.kill("SIGTERM");
+      await new Promise((r) => worker!.once("exit", r));
+    }
+    const libraryId = await newLibrary();
+    const res = await upload(libraryId, [{ name: "gone/lost.wav", data: hitWav(777_001) }]);
+    const sampleId = res.files[0]!.sampleId as string;
+    const row = await db()("samples").where({ id: sampleId }).first("storage_key");
+    await storage().delete(row.storage_key);
+    if (!worker || worker.exitCode !== null) {
+      worker = startWorker(log);
+      await waitForReady(log);
+    }
+    const t0 = Date.now();
+    const done = await waitFor(() => db()("samples").where({ id: sampleId }).first("state", "reject_code", "reject_reason"), (r) => r.state === "rejected", 60_000, "the sample to be rejected");
+    expect(done.reject_code).toBe("failed");
+    expect(done.reject_reason).toMatch(/measuring failed 3 times: the stored file could not be read/);
+    // 3 attempts with exponential backoff of 2 s then 4 s: at least 6 s in all
+    expect(Date.now() - t0).toBeGreaterThanOrEqual(5_500);
+  }, 90_000);
 });
