@@ -1,0 +1,101 @@
+// Upload benchmark: a batch of generated WAV one-shots (2 GB by default) streamed over loopback as one
+// multipart/form-data request to the real upload route handler (served by tests/faults/serve.ts in its own
+// process, against the bench database, a Redis database of its own and a scratch storage folder). The body is
+// produced on the fly (never held in memory); the server's resident memory is sampled from /proc every 100 ms.
+// Reports MB/s (bytes sent / time to the response) and the server's RSS growth over its idle, warmed-up RSS.
+import { spawn } from "node:child_process";
+import crypto from "node:crypto";
+import fs from "node:fs";
+import http from "node:http";
+import os from "node:os";
+import path from "node:path";
+import knexFactory from "knex";
+import { encode } from "next-auth/jwt";
+import { createStudio, createUser } from "../db/factories";
+import { benchFile } from "./generate";
+
+export interface UploadBench { bytes: number; files: number; seconds: number; mbPerSec: number; rssIdleMb: number; rssPeakMb: number; rssGrowthMb: number; status: number; queued: number; refused: number; duplicate: number }
+
+function rssKb(pid: number): number {
+  try {
+    const m = /VmRSS:\s+(\d+) kB/.exec(fs.readFileSync(`/proc/${pid}/status`, "utf8"));
+    return m ? Number(m[1]) : 0;
+  } catch {
+    return 0;
+  }
+}
+
+export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBytes?: number; port?: number } = {}): Promise<UploadBench> {
+  const total = opts.totalBytes ?? 2 * 1024 ** 3;
+  const port = opts.port ?? 3470;
+  const scratch = fs.mkdtempSync(path.join(os.tmpdir(), "kw-bench-upload-"));
+  const redisUrl = `${baseEnv.KW_REDIS_URL}/5`;
+  const env: NodeJS.ProcessEnv = { ...baseEnv, KW_STORAGE_DIR: scratch, KW_REDIS_URL: redisUrl, KW_APP_URL: `http://127.0.0.1:${port}`, NEXTAUTH_URL: `http://127.0.0.1:${port}`, KW_UPLOAD_MAX_BATCH_BYTES: String(total + 64 * 1024 ** 2) };
+  const k = knexFactory({ client: "mysql2", connection: { host: env.KW_DB_HOST, port: Number(env.KW_DB_PORT), user: env.KW_DB_USER, password: env.KW_DB_PASSWORD, database: env.KW_DB_NAME, timezone: "Z" }, pool: { min: 0, max: 2 } });
+  const user = await createUser(k, { email: `upload-bench-${crypto.randomBytes(4).toString("hex")}@example.test`, name: "Upload bench", password: "correct-horse-9" });
+  const studio = await createStudio(k, { name: `Upload bench ${crypto.randomBytes(3).toString("hex")}`, ownerId: user.id });
+  const libraryId = crypto.randomUUID();
+  await k("libraries").insert({ id: libraryId, studio_id: studio.id, name: "upload-bench", created_by: user.id });
+  const cookie = `next-auth.session-token=${await encode({ token: { uid: user.id, sub: user.id }, secret: env.NEXTAUTH_SECRET! })}`;
+
+  const log: string[] = [];
+  const server = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/faults/serve.ts", "--port", String(port)], { env, stdio: ["ignore", "pipe", "pipe"] });
+  server.stdout!.on("data", (d) => log.push(String(d)));
+  server.stderr!.on("data", (d) => log.push(String(d)));
+  try {
+    for (let i = 0; i < 300 && !log.join("").includes("[serve] listening"); i++) await new Promise((r) => setTimeout(r, 100));
+    if (!log.join("").includes("[serve] listening")) throw new Error(`upload server did not start: ${log.join("")}`);
+
+    // a pool of distinct takes; each file is a pool take with its index written into its last bytes
+    const pool = Array.from({ length: 30 }, (_, i) => benchFile(i).bytes);
+    const boundary = `----kwbench${crypto.randomBytes(8).toString("hex")}`;
+    const fileBytes = pool[0]!.length;
+    const count = Math.floor(total / fileBytes);
+    const post = (n: number, offset: number) =>
+      new Promise<{ status: number; body: any; bytes: number }>((resolve, reject) => {
+        const req = http.request({ host: "127.0.0.1", port, method: "POST", path: `/api/studios/${studio.id}/libraries/${libraryId}/uploads`, headers: { cookie, origin: env.KW_APP_URL!, "content-type": `multipart/form-data; boundary=${boundary}` } }, (res) => {
+          const parts: Buffer[] = [];
+          res.on("data", (d) => parts.push(d));
+          res.on("end", () => resolve({ status: res.statusCode ?? 0, body: JSON.parse(Buffer.concat(parts).toString() || "null"), bytes: sent }));
+        });
+        req.on("error", reject);
+        let i = 0;
+        let sent = 0;
+        const pump = () => {
+          while (i < n) {
+            const b = Buffer.from(pool[(offset + i) % pool.length]!);
+            b.writeUInt32LE(offset + i, b.length - 4);
+            const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="bench/take_${String(offset + i).padStart(6, "0")}.wav"\r\nContent-Type: audio/wav\r\n\r\n`);
+            i++;
+            sent += head.length + b.length + 2;
+            const ok = req.write(head) && req.write(b) && req.write("\r\n");
+            if (!ok) return void req.once("drain", pump);
+          }
+          req.end(`--${boundary}--\r\n`);
+        };
+        pump();
+      });
+
+    // warm up (JIT, pools, first connections), then the idle RSS
+    await post(20, 10_000_000);
+    await new Promise((r) => setTimeout(r, 1000));
+    const idle = rssKb(server.pid!);
+    let peak = idle;
+    const timer = setInterval(() => (peak = Math.max(peak, rssKb(server.pid!))), 100);
+    const t0 = performance.now();
+    const r = await post(count, 0);
+    const seconds = (performance.now() - t0) / 1000;
+    clearInterval(timer);
+    peak = Math.max(peak, rssKb(server.pid!));
+    const counts = r.body?.counts ?? {};
+    return { bytes: r.bytes, files: count, seconds, mbPerSec: r.bytes / 1024 ** 2 / seconds, rssIdleMb: idle / 1024, rssPeakMb: peak / 1024, rssGrowthMb: (peak - idle) / 1024, status: r.status, queued: counts.queued ?? 0, refused: counts.refused ?? 0, duplicate: counts.duplicate ?? 0 };
+  } finally {
+    server.kill("SIGTERM");
+    await new Promise((r) => setTimeout(r, 500));
+    if (server.exitCode === null) server.kill("SIGKILL");
+    await k("libraries").where({ id: libraryId }).delete().catch(() => undefined);
+    await k.destroy();
+    fs.rmSync(scratch, { recursive: true, force: true });
+    spawn("redis-cli", ["-u", redisUrl, "FLUSHDB"], { stdio: "ignore" });
+  }
+}
