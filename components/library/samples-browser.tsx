@@ -128,7 +128,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
 
       {canWrite && <BulkBar studioId={studioId} libraryId={libraryId} selected={[...selected]} instruments={instruments} onDone={() => { setSelected(new Set()); qc.invalidateQueries({ queryKey: ["samples", libraryId] }); setTimeout(() => qc.invalidateQueries({ queryKey: ["samples", libraryId] }), 3000); }} onSelectPage={() => setSelected(new Set(allOnPage))} onClear={() => setSelected(new Set())} />}
 
-      <div className={openId ? "grid gap-3 xl:grid-cols-[minmax(0,1fr)_380px]" : ""}>
+      <div className={openId ? "grid items-start gap-3 xl:grid-cols-[minmax(0,1fr)_380px]" : ""}>
         <div className="card overflow-x-auto p-0">
           <table className="w-full text-sm" data-testid="samples-table">
             <caption className="sr-only">Samples of the library</caption>

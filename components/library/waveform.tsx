@@ -3,8 +3,11 @@ export function Waveform({ peaks, durationSec, onsetMs, height = 80 }: { peaks: 
   const n = peaks.max.length;
   const w = 400;
   const mid = height / 2;
-  const top = peaks.max.map((v, i) => `${((i + 0.5) / n) * w},${mid - Math.max(0, Math.min(1, v)) * mid}`);
-  const bottom = peaks.min.map((v, i) => `${((i + 0.5) / n) * w},${mid - Math.max(-1, Math.min(0, v)) * mid}`).reverse();
+  // quiet files are drawn magnified (and say so) so their shape stays visible
+  const peak = Math.max(1e-6, ...peaks.max.map(Math.abs), ...peaks.min.map(Math.abs));
+  const zoom = peak < 0.25 ? Math.min(64, 0.9 / peak) : 1;
+  const top = peaks.max.map((v, i) => `${((i + 0.5) / n) * w},${mid - Math.max(0, Math.min(1, v * zoom)) * mid}`);
+  const bottom = peaks.min.map((v, i) => `${((i + 0.5) / n) * w},${mid - Math.max(-1, Math.min(0, v * zoom)) * mid}`).reverse();
   const clipped = peaks.max.some((v) => v >= 0.999) || peaks.min.some((v) => v <= -0.999);
   const onsetX = onsetMs !== null && durationSec > 0 ? (onsetMs / 1000 / durationSec) * w : null;
   return (
@@ -15,7 +18,7 @@ export function Waveform({ peaks, durationSec, onsetMs, height = 80 }: { peaks: 
         {onsetX !== null && <line x1={onsetX} x2={onsetX} y1={0} y2={height} stroke="currentColor" className="text-warn" strokeDasharray="3 2" strokeWidth={1} />}
       </svg>
       <figcaption className="mt-1 flex justify-between text-xs text-muted">
-        <span>0 s{onsetX !== null ? " · dashed line: onset" : ""}</span>
+        <span>0 s{onsetX !== null ? " · dashed line: onset" : ""}{zoom > 1 ? ` · drawn ×${zoom.toFixed(1)} (quiet file)` : ""}</span>
         <span className="num">{durationSec.toFixed(2)} s</span>
       </figcaption>
     </figure>
