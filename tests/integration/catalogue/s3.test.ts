@@ -6,7 +6,8 @@ import net from "node:net";
 import os from "node:os";
 import path from "node:path";
 import { Readable } from "node:stream";
-import S3rver from "s3rver";
+// @ts-expect-error -- the package ships no type declarations
+import S3rverImport from "s3rver";
 import { S3Storage } from "@/lib/server/storage";
 import { hitWav } from "./fixtures";
 
@@ -20,7 +21,9 @@ async function freePort(): Promise<number> {
   throw new Error("no free port in 43xx");
 }
 
-let server: S3rver;
+interface FakeS3 { run(): Promise<unknown>; close(): Promise<unknown> }
+const S3rver = S3rverImport as new (o: Record<string, unknown>) => FakeS3;
+let server: FakeS3;
 let store: S3Storage;
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), "kw-s3-"));
 

@@ -177,7 +177,7 @@ describe("uploads", () => {
     });
     const cookie = await sessionCookie(ctx.users.editor);
     const base = env().KW_APP_URL;
-    const req = new NextRequest(new URL("/api/x", base), { method: "POST", headers: { host: new URL(base).host, origin: new URL(base).origin, cookie: cookie!, "content-type": type }, body: stream, duplex: "half" } as RequestInit & { duplex: "half" });
+    const req = new NextRequest(new URL("/api/x", base), { method: "POST", headers: { host: new URL(base).host, origin: new URL(base).origin, cookie: cookie!, "content-type": type }, body: stream, duplex: "half" } as unknown as ConstructorParameters<typeof NextRequest>[1]);
     const res = await uploadRoute.POST(req, { params: Promise.resolve({ studioId: ctx.studio.id, libraryId }) });
     const out = await res.json();
     const two = await db()("samples").where({ library_id: libraryId, rel_path: "cut/two.wav" }).first();
