@@ -68,7 +68,9 @@ export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBy
             const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="bench/take_${String(offset + i).padStart(6, "0")}.wav"\r\nContent-Type: audio/wav\r\n\r\n`);
             i++;
             sent += head.length + b.length + 2;
-            const ok = req.write(head) && req.write(b) && req.write("\r\n");
+            req.write(head);
+            req.write(b);
+            const ok = req.write("\r\n");
             if (!ok) return void req.once("drain", pump);
           }
           req.end(`--${boundary}--\r\n`);
@@ -88,6 +90,7 @@ export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBy
     clearInterval(timer);
     peak = Math.max(peak, rssKb(server.pid!));
     const counts = r.body?.counts ?? {};
+    if (r.status !== 201) process.stderr.write(`upload bench: HTTP ${r.status} ${JSON.stringify(r.body).slice(0, 300)}\n`);
     return { bytes: r.bytes, files: count, seconds, mbPerSec: r.bytes / 1024 ** 2 / seconds, rssIdleMb: idle / 1024, rssPeakMb: peak / 1024, rssGrowthMb: (peak - idle) / 1024, status: r.status, queued: counts.queued ?? 0, refused: counts.refused ?? 0, duplicate: counts.duplicate ?? 0 };
   } finally {
     server.kill("SIGTERM");
