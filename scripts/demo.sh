@@ -24,6 +24,12 @@ nohup node --conditions=react-server --import tsx workers/main.ts >"$KW_RUN/work
 for _ in $(seq 1 100); do curl -fsS "http://127.0.0.1:$KW_APP_PORT/api/health" >/dev/null 2>&1 && break; sleep 0.3; done
 curl -fsS "http://127.0.0.1:$KW_APP_PORT/api/health" >/dev/null || { log "the app did not become healthy; see $KW_RUN/app.log"; tail -20 "$KW_RUN/app.log"; exit 1; }
 
+# The demo library is generated, stored and queued; the worker measures it; then the demo kits and layouts
+# are built from the catalogue and audited (each step skips what is already there).
+node --conditions=react-server --import tsx db/seed-demo-library.ts
+node --import tsx db/wait-catalogued.ts --timeout 600
+node --conditions=react-server --import tsx db/seed-demo-kits.ts
+
 cat <<MSG
 
   Kitwright is running at $KW_APP_URL
@@ -32,7 +38,7 @@ cat <<MSG
   Data: $KW_STATE   Logs: $KW_RUN
 
   Demo accounts (studio "Harbour Lane Studio"):
-$(node --import tsx -e 'import("./db/demo-accounts.ts").then(m=>{for(const a of m.DEMO_ACCOUNTS)console.log(`    ${a.role.padEnd(7)} ${a.email.padEnd(30)} ${a.password}`)})')
+$(node --import tsx db/print-demo-accounts.ts)
 
 MSG
 if [ "$BACKGROUND" = 1 ]; then log "running in the background; stop with: bash scripts/stop.sh"; exit 0; fi
