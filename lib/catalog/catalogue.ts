@@ -116,7 +116,7 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
   const work: Work[] = sorted.map((s) => {
     const n = parseName(s.path);
     const snd = suggestFromSound(s.measurement, opts.labelModel);
-    const conflict = nameSoundConflict({ family: n.family, articulation: n.articulation }, snd);
+    const conflict = nameSoundConflict({ family: n.family, articulation: n.articulation }, snd, { measurement: s.measurement });
     let family: Family;
     let familySource: LabelSource;
     let confidence: number;

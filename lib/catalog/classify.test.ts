@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { buildLabelModel, nameSoundConflict, suggestByRules, suggestFromSound } from "./classify";
+import { buildLabelModel, grossMisfits, nameSoundConflict, suggestByRules, suggestFromSound } from "./classify";
 import { featureVector } from "./features";
 import type { Family, Articulation } from "./taxonomy";
 import { measurement, rng, type DrumShape } from "./test-helpers";
@@ -94,6 +94,19 @@ describe("suggestFromSound learns from confirmed labels (k nearest neighbours ov
 });
 
 describe("nameSoundConflict", () => {
+  // Rules of thumb (common practice, no published source): a snare rings well under ~1 s with a fundamental in
+  // roughly 140-330 Hz; a ride bell rings for seconds with a fundamental of several hundred Hz.
+  const rideBell = measurement({ decaySec: 4.3, strikeCentroidHz: 2800, bodyCentroidHz: 2800, strikeFlatness: 0.09, bodyFlatness: 0.05, pitchHz: 780 });
+  const snare = measurement({ decaySec: 0.5, strikeCentroidHz: 3000, bodyCentroidHz: 1500, strikeFlatness: 0.25, bodyFlatness: 0.15, pitchHz: 200 });
+  it("a ride bell named snare is ruled out as a snare by its ring and its pitch: strong, even when the averaged fit looks fair", () => {
+    expect(grossMisfits(rideBell, "snare").sort()).toEqual(["decay", "pitch"]);
+    expect(grossMisfits(snare, "snare")).toEqual([]);
+    const s = suggestFromSound(rideBell);
+    expect(s.family).toBe("ride");
+    expect(nameSoundConflict({ family: "snare", articulation: "centre" }, s, { measurement: rideBell }).level).toBe("strong");
+    expect(nameSoundConflict({ family: "snare", articulation: "centre" }, suggestFromSound(snare), { measurement: snare }).level).toBe("none");
+  });
+
   const sound = (family: Family, confidence: number, articulation: Articulation = "hit") => ({ family, articulation, confidence, reasons: ["decay 2.0 s"] });
   it("strong when unlike families disagree with a confident sound", () => {
     expect(nameSoundConflict({ family: "kick" }, sound("crash", 0.8)).level).toBe("strong");

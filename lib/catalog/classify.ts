@@ -323,10 +323,22 @@ export interface NameSoundConflict {
  * fits the sound badly (its score at most 0.6 and at least 0.3 below the best, when scores are given) or,
  * without scores, the sound is confident (>= 0.6 by default). Otherwise mild.
  */
+/**
+ * Features of a measurement that lie grossly outside a family's band (membership below 0.01: about two band
+ * widths out, e.g. a 4 s ring on a "snare" whose rule allows up to 1 s, or a 780 Hz fundamental on a drum whose
+ * rule stops at 330 Hz). Two or more such features mean the sound cannot be that family, however well the
+ * remaining features fit (the averaged score hides this). Rules of thumb, common practice, no published source.
+ */
+export function grossMisfits(m: Measurement, family: Family): string[] {
+  if (family === "other") return [];
+  const f = feat(m);
+  return RULES[family].filter((r) => membership(f, r) < 0.01).map((r) => r[0]);
+}
+
 export function nameSoundConflict(
   name: { family: Family | null; articulation?: Articulation | null },
   sound: Pick<SoundSuggestion, "family" | "articulation" | "confidence" | "reasons"> & { familyScores?: Partial<Record<Family, number>> },
-  opts: { minConfidence?: number } = {},
+  opts: { minConfidence?: number; measurement?: Measurement } = {},
 ): NameSoundConflict {
   const minConf = opts.minConfidence ?? 0.6;
   if (!name.family) return { level: "none", message: "" };
@@ -340,6 +352,8 @@ export function nameSoundConflict(
       const fit = sound.familyScores[name.family] ?? 0;
       sure = fit <= 0.6 && best - fit >= 0.3;
     }
+    // the named family is physically ruled out by two or more features: strong whatever the averages say
+    if (opts.measurement && grossMisfits(opts.measurement, name.family).length >= 2) sure = true;
     const level = !alike && sure ? "strong" : "mild";
     return {
       level,
