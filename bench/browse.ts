@@ -43,6 +43,8 @@ async function seed(): Promise<{ studioId: string; libraryId: string; userId: st
   const libraryId = crypto.randomUUID();
   await k("libraries").insert({ id: libraryId, studio_id: studio.id, name: LIB_NAME, created_by: user.id });
   const r = rng(99);
+  // later migrations may add columns the app fills on upload (e.g. a sort key for paths): fill them the same way
+  const hasPathKey = await k.schema.hasColumn("samples", "path_key");
   const fams = FAMILIES.filter((f) => FAMILY_ARTICULATIONS[f].length);
   const BATCH = 1000;
   for (let start = 0; start < ROWS; start += BATCH) {
@@ -55,8 +57,10 @@ async function seed(): Promise<{ studioId: string; libraryId: string; userId: st
       const layer = Math.floor(r() * 8);
       const rr = 1 + Math.floor(r() * 4);
       const name = `${inst}_${articulation}_v${layer + 1}_rr${rr}_${String(i).padStart(6, "0")}.wav`;
+      const relPath = `${family}/${inst}/${name}`;
       rows.push({
-        id: crypto.randomUUID(), studio_id: studio.id, library_id: libraryId, rel_path: `${family}/${inst}/${name}`, file_name: name,
+        ...(hasPathKey ? { path_key: relPath.slice(0, 500) } : {}),
+        id: crypto.randomUUID(), studio_id: studio.id, library_id: libraryId, rel_path: relPath, file_name: name,
         sha256: crypto.createHash("sha256").update(`${libraryId}:${i}`).digest("hex"), size_bytes: 200_000 + Math.floor(r() * 400_000),
         storage_key: `bench/${i}.wav`, state: r() < 0.02 ? "rejected" : "catalogued", sample_rate: 48000, bits: 24, channels: 2,
         duration_sec: 0.5 + 3 * r(), strike_lufs: -40 + 35 * r(), true_peak_dbtp: -20 + 20 * r(), centroid_hz: 200 + 8000 * r(), decay_sec: 0.1 + 3 * r(),

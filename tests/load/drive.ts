@@ -97,10 +97,19 @@ async function main() {
     { method: "GET", path: `${sp}/libraries/${libraryId}/progress` },
     { method: "GET", path: `/s/${studio.id}/audits` },
     { method: "GET", path: `${sp}/kits` },
-    ...(canAudit ? [{ method: "POST" as const, path: `${sp}/audits`, headers: { "content-type": "application/json", origin: url.origin, cookie }, body: JSON.stringify({ layoutId: layout.json.id, kitId: kit.json.id }) }] : []),
+    ...(canAudit ? [{ method: "POST" as const, path: `${sp}/audits`, headers: { "content-type": "application/json", origin: url.origin, cookie }, body: JSON.stringify({ layoutId: layout.json.layout?.id ?? layout.json.id, kitId: kit.json.kit?.id ?? kit.json.id }) }] : []),
   ];
   const browseTimes: number[] = [];
-  const byPath = new Map<string, number[]>();
+  const statusByPath: Record<string, Record<number, number>> = {};
+  const firstError: Record<string, string> = {};
+  for (const r of requests) {
+    const label = `${r.method} ${r.path!.split("?")[0]!.replace(studio.id, ":studio").replace(libraryId, ":library")}${r.path!.includes("?") ? `?${r.path!.split("?")[1]}` : ""}`;
+    r.onResponse = (status: number, body: string) => {
+      const m = (statusByPath[label] ??= {});
+      m[status] = (m[status] ?? 0) + 1;
+      if (status >= 400 && !firstError[label]) firstError[label] = `${status} ${String(body).slice(0, 300)}`;
+    };
+  }
   const statusCounts: Record<string, number> = {};
   const uploadTimes: number[] = [];
   const uploadErrors: string[] = [];
@@ -124,11 +133,9 @@ async function main() {
   const t0 = Date.now();
   const upl = Array.from({ length: UPLOADERS }, (_, u) => uploader(u));
   const inst = autocannon({ url: BASE, connections: 20, duration: SECONDS, overallRate: RATE, headers: { cookie }, requests, timeout: 30 });
-  inst.on("response", (client: any, statusCode: number, _bytes: number, ms: number) => {
+  inst.on("response", (_client: unknown, statusCode: number, _bytes: number, ms: number) => {
     browseTimes.push(ms);
     statusCounts[statusCode] = (statusCounts[statusCode] ?? 0) + 1;
-    const p = String(client?.opts?.path ?? client?.requestIterator?.currentRequest?.path ?? "?").split("?")[0]!.replace(studio.id, ":studio").replace(libraryId, ":library");
-    (byPath.get(p) ?? byPath.set(p, []).get(p)!).push(ms);
   });
   const result = await inst;
   stop = true;
@@ -161,13 +168,14 @@ async function main() {
     `| traffic | requests | rate | p50 ms | p95 ms | p99 ms | errors |`,
     `|---|---:|---:|---:|---:|---:|---:|`,
     `| signed-in browsing${canAudit ? " + audit runs" : ""} (autocannon, 20 connections, target ${RATE} req/s) | ${browseTimes.length} | ${(browseTimes.length / SECONDS).toFixed(0)}/s | ${f(pct(browseTimes, 0.5))} | ${f(pct(browseTimes, 0.95))} | ${f(pct(browseTimes, 0.99))} | ${browseErrors} (status ${JSON.stringify(statusCounts)}, ${result.errors} socket errors, ${result.timeouts} timeouts) |`,
-    ...[...byPath.entries()].map(([p, xs]) => `| &nbsp; ${p} | ${xs.length} | | ${f(pct(xs, 0.5))} | ${f(pct(xs, 0.95))} | ${f(pct(xs, 0.99))} | |`),
+    ...Object.entries(statusByPath).map(([p, m]) => `| &nbsp; ${p} | ${Object.values(m).reduce((a, b) => a + b, 0)} | | | | | ${JSON.stringify(m)} |`),
     `| uploads (${UPLOADERS} concurrent uploaders, 3-4 files each) | ${uploadTimes.length} | ${(uploadTimes.length / wall).toFixed(1)}/s | ${f(pct(uploadTimes, 0.5))} | ${f(pct(uploadTimes, 0.95))} | ${f(pct(uploadTimes, 0.99))} | ${uploadErrors.length} |`,
   ];
   const pass = browseErrors === 0 && uploadErrors.length === 0 && lost === 0;
   const summary = `Files uploaded: ${uploaded.length} (${ids.length} queued, ${uploaded.filter((x) => x.status === "duplicate").length} duplicate, ${uploaded.filter((x) => x.status === "refused").length} refused at the door); after the run: ${catalogued} catalogued, ${rejected} rejected with a reason, lost ${lost} (still pending ${pending}, missing rows ${missing}, rejected without a reason ${rejectedNoReason}). Verdict: ${pass ? "PASS (zero errors, zero lost samples)" : "FAIL"}.`;
   const head = `Measured by \`bash scripts/load.sh\` on ${new Date().toISOString().slice(0, 16).replace("T", " ")} UTC against \`next start\` (production build) and one worker process, ${SECONDS} s, loopback, ${os.cpus().length} shared cores. Load average at the start: ${loadStart}; at the end: ${loadEnd}.`;
   console.log(`\n${head}\n\n${lines.join("\n")}\n\n${summary}`);
+  for (const [p, e] of Object.entries(firstError)) console.log(`first error of ${p}: ${e}`);
   if (uploadErrors.length) console.log(`first upload errors:\n${uploadErrors.slice(0, 5).join("\n")}`);
   const file = path.resolve(import.meta.dirname, "../../bench/RESULTS.md");
   const section = `<!-- load:start -->\n## Load\n\n${head}\n\n${lines.join("\n")}\n\n${summary}\n<!-- load:end -->`;
