@@ -42,11 +42,11 @@ export async function regroupLibrary({ studioId, libraryId }: { studioId: string
     const byId = new Map(rows.map((r) => [r.id as string, r]));
 
     // per-sample columns, in bulk (INSERT ... ON DUPLICATE KEY UPDATE on the primary key)
-    const cols = ["family", "family_source", "articulation", "articulation_source", "confidence", "mic", "instrument_key", "layer_index", "layer_count", "round_robin", "velocity_low", "velocity_high", "conflict", "reasons"];
+    const cols = ["path_key", "family", "family_source", "articulation", "articulation_source", "confidence", "mic", "instrument_key", "layer_index", "layer_count", "round_robin", "velocity_low", "velocity_high", "conflict", "reasons"];
     const upd = cat.samples.map((e) => {
       const r = byId.get(e.id)!;
       return {
-        id: e.id, studio_id: studioId, library_id: libraryId, rel_path: r.rel_path, file_name: r.file_name, sha256: r.sha256, size_bytes: r.size_bytes, storage_key: r.storage_key,
+        id: e.id, studio_id: studioId, library_id: libraryId, rel_path: r.rel_path, path_key: String(r.rel_path).slice(0, 500), file_name: r.file_name, sha256: r.sha256, size_bytes: r.size_bytes, storage_key: r.storage_key,
         family: e.family, family_source: e.familySource, articulation: e.articulation, articulation_source: e.articulationSource,
         confidence: e.confidence, mic: e.mic, instrument_key: e.instrumentKey, layer_index: e.layerIndex, layer_count: e.layerCount || null,
         round_robin: e.roundRobin, velocity_low: e.velocityLow, velocity_high: e.velocityHigh, conflict: e.conflict, reasons: JSON.stringify(e.reasons),

@@ -121,6 +121,8 @@ interface Ctx {
   queued: { sampleId: string }[];
   active: Set<Inspect>;
   addBytes: (n: number) => void;
+  /** Files are recorded one after another in upload order, so the first of two equal files is the one kept. */
+  chain: Promise<void>;
 }
 
 /** Streams one WAV (from the request or a zip entry) to storage and records it. Never throws. */
@@ -137,8 +139,12 @@ async function storeWav(ctx: Ctx, src: Readable, relPath: string, drain: () => v
   src.pipe(inspect);
   const result: UploadFileResult = { name: relPath, status: "refused" };
   ctx.results.push(result);
+  const before = ctx.chain;
+  let release!: () => void;
+  ctx.chain = new Promise<void>((r) => (release = r));
   try {
     const { bytes } = await storage().put(key, inspect);
+    await before;
     const sha256 = inspect.hash.digest("hex");
     const dup = await db()("samples").where({ library_id: ctx.libraryId, sha256 }).first("id", "rel_path");
     if (dup) {
@@ -152,6 +158,7 @@ async function storeWav(ctx: Ctx, src: Readable, relPath: string, drain: () => v
         studio_id: ctx.studioId,
         library_id: ctx.libraryId,
         rel_path: relPath,
+        path_key: relPath.slice(0, 500),
         file_name: path.posix.basename(relPath).slice(0, 255),
         sha256,
         size_bytes: bytes,
@@ -187,6 +194,8 @@ async function storeWav(ctx: Ctx, src: Readable, relPath: string, drain: () => v
     }
   } finally {
     ctx.active.delete(inspect);
+    // a refused file still passes its turn on only after the files before it are recorded
+    void before.then(release);
   }
 }
 
@@ -293,6 +302,7 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
     results: [],
     queued: [],
     active: new Set(),
+    chain: Promise.resolve(),
     addBytes: (n) => {
       total += n;
       if (total > maxBatch && !batchTooLarge) {

@@ -97,7 +97,7 @@ describe("uploads", () => {
     ]);
     expect(r.status).toBe(201);
     const by = Object.fromEntries(r.json.files.map((f: { name: string }) => [f.name, f]));
-    expect(by["Kick/kick_v1_rr1.wav"].status).toBe("queued");
+    expect(by["Kick/kick_v1_rr1.wav"].status, JSON.stringify(r.json.files)).toBe("queued");
     expect(by["Kick/kick_v2_rr1.wav"].status).toBe("queued");
     expect(by["Snare/readme.wav"]).toMatchObject({ status: "refused", code: "not-wav" });
     expect(by["Snare/readme.wav"].reason).toMatch(/not a WAV/);
