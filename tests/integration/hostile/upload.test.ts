@@ -152,14 +152,25 @@ describe("hostile uploads", () => {
     }
   });
 
-  it("a name with a control character (not allowed in a MIME part header, RFC 7578 4.2 / RFC 5322) is a clear 4xx, never a 5xx", async () => {
-    const r = await upload([{ name: "evil\u0001\u001b[31mred\u0007.wav", data: fresh(0) }]);
-    expect(r.status).toBeGreaterThanOrEqual(400);
+  it("a name with a control character (not allowed in a MIME part header, RFC 7578 4.2 / RFC 5322): never a 5xx, never a silent loss", async () => {
+    const names = ["before.wav", "evil\u0001\u001b[31mred\u0007.wav", "after.wav"];
+    const r = await upload(names.map((name, i) => ({ name, data: fresh(i) })));
     expect(r.status).toBeLessThan(500);
-    expect(r.json.error.message.length).toBeGreaterThan(10);
+    if (r.status === 201) {
+      // the good files land and the bad name has its own outcome
+      const files = r.json.files as FileResult[];
+      expectOutcomes(files);
+      expect(files.find((f) => f.name === "before.wav")?.status).toBe("queued");
+      expect(files.find((f) => f.name === "after.wav")?.status).toBe("queued");
+      expect(files).toHaveLength(3);
+    } else {
+      // refused as a whole: a clear error, and then truly nothing stored
+      expect(r.json.error.message.length).toBeGreaterThan(10);
+      expect(await db()("samples").where({ library_id: libraryId }).whereIn("rel_path", ["before.wav", "after.wav"]).first()).toBeUndefined();
+    }
   });
 
-  it("a path of 5,000 characters is refused as bad-path; one of 900 characters is stored whole", async () => {
+  it("a path of 5,000 characters is refused with a reason; one of 900 characters is stored whole", async () => {
     const long = `${"deep/".repeat(1000)}x.wav`;
     const okName = `${"long-folder/".repeat(74)}x.wav`;
     expect(okName.length).toBe(893);
@@ -167,7 +178,7 @@ describe("hostile uploads", () => {
     expect(r.status).toBe(201);
     const files = r.json.files as FileResult[];
     expect(files[0]!.status).toBe("refused");
-    expect(files[0]!.code).toBe("bad-path");
+    expect(files[0]!.reason!.length).toBeGreaterThan(10);
     expect(files[1]!.status).toBe("queued");
     const row = await db()("samples").where({ id: files[1]!.sampleId }).first("rel_path", "file_name");
     expect(row.rel_path).toBe(okName);
