@@ -21,6 +21,8 @@ const BASE = opt("--base", "http://127.0.0.1:3500");
 const SECONDS = Number(opt("--seconds", "60"));
 const RATE = Number(opt("--rate", "200"));
 const UPLOADERS = Number(opt("--uploaders", "50"));
+/** Section of bench/RESULTS.md to write ("load" by default; e.g. --tag load-browse for a browsing-only run). */
+const TAG = opt("--tag", "load").replace(/[^a-z0-9-]/gi, "");
 const url = new URL(BASE);
 const agent = new http.Agent({ keepAlive: true, maxSockets: UPLOADERS + 10 });
 
@@ -162,13 +164,21 @@ async function main() {
   const rejected = rows.filter((r) => r.state === "rejected").length;
   await k.destroy();
 
+  // unloaded latency of each route (10 calls one after another, after the load), to see where time goes
+  const unloaded: Record<string, number> = {};
+  for (const r of requests) {
+    const label = `${r.method} ${r.path!.replace(studio.id, ":studio").replace(libraryId, ":library")}`;
+    const xs: number[] = [];
+    for (let i = 0; i < 10; i++) xs.push((await req(r.method ?? "GET", r.path!, cookie, r.body ? { data: r.body, type: "application/json" } : undefined)).ms);
+    unloaded[label] = pct(xs, 0.5);
+  }
   const browseErrors = result.errors + result.timeouts + Object.entries(statusCounts).filter(([s]) => Number(s) >= 400).reduce((a, [, n]) => a + n, 0);
   const f = (x: number) => (Number.isFinite(x) ? x.toFixed(0) : "-");
   const lines = [
     `| traffic | requests | rate | p50 ms | p95 ms | p99 ms | errors |`,
     `|---|---:|---:|---:|---:|---:|---:|`,
     `| signed-in browsing${canAudit ? " + audit runs" : ""} (autocannon, 20 connections, target ${RATE} req/s) | ${browseTimes.length} | ${(browseTimes.length / SECONDS).toFixed(0)}/s | ${f(pct(browseTimes, 0.5))} | ${f(pct(browseTimes, 0.95))} | ${f(pct(browseTimes, 0.99))} | ${browseErrors} (status ${JSON.stringify(statusCounts)}, ${result.errors} socket errors, ${result.timeouts} timeouts) |`,
-    ...Object.entries(statusByPath).map(([p, m]) => `| &nbsp; ${p} | ${Object.values(m).reduce((a, b) => a + b, 0)} | | | | | ${JSON.stringify(m)} |`),
+    ...Object.entries(statusByPath).map(([p, m]) => `| &nbsp; ${p} (unloaded p50 ${f(unloaded[p] ?? NaN)} ms) | ${Object.values(m).reduce((a, b) => a + b, 0)} | | | | | ${JSON.stringify(m)} |`),
     `| uploads (${UPLOADERS} concurrent uploaders, 3-4 files each) | ${uploadTimes.length} | ${(uploadTimes.length / wall).toFixed(1)}/s | ${f(pct(uploadTimes, 0.5))} | ${f(pct(uploadTimes, 0.95))} | ${f(pct(uploadTimes, 0.99))} | ${uploadErrors.length} |`,
   ];
   const pass = browseErrors === 0 && uploadErrors.length === 0 && lost === 0;
@@ -178,9 +188,11 @@ async function main() {
   for (const [p, e] of Object.entries(firstError)) console.log(`first error of ${p}: ${e}`);
   if (uploadErrors.length) console.log(`first upload errors:\n${uploadErrors.slice(0, 5).join("\n")}`);
   const file = path.resolve(import.meta.dirname, "../../bench/RESULTS.md");
-  const section = `<!-- load:start -->\n## Load\n\n${head}\n\n${lines.join("\n")}\n\n${summary}\n<!-- load:end -->`;
+  const title = TAG === "load" ? "Load" : `Load (${TAG.replace(/^load-/, "")}: ${UPLOADERS} uploaders, target ${RATE} req/s)`;
+  const section = `<!-- ${TAG}:start -->\n## ${title}\n\n${head}\n\n${lines.join("\n")}\n\n${summary}\n<!-- ${TAG}:end -->`;
   const old = fs.existsSync(file) ? fs.readFileSync(file, "utf8") : "# Kitwright results\n";
-  fs.writeFileSync(file, /<!-- load:start -->[\s\S]*<!-- load:end -->/.test(old) ? old.replace(/<!-- load:start -->[\s\S]*<!-- load:end -->/, section) : `${old.trimEnd()}\n\n${section}\n`);
+  const re = new RegExp(`<!-- ${TAG}:start -->[\\s\\S]*<!-- ${TAG}:end -->`);
+  fs.writeFileSync(file, re.test(old) ? old.replace(re, section) : `${old.trimEnd()}\n\n${section}\n`);
   process.exit(pass ? 0 : 1);
 }
 
