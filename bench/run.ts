@@ -1,4 +1,5 @@
-// npm run bench [-- --files 500 --upload-gb 2 --skip-upload --skip-measure]
+// npm run bench [-- --files 500 --upload-gb 2 --skip-upload --skip-measure --fresh-db]
+// (--fresh-db drops the bench database first: after a migration changed, or to time the 100,000-row seed)
 // One command, one run, one table: measuring (bench/measure.ts), audit (bench/audit.ts), the browser table
 // (bench/browse.ts: 100,000 sample rows through the samples API, with query plans), page weight (from the
 // .next build output) and upload (bench/upload.ts: a 2 GB batch over loopback). Starts the test profile's
@@ -42,7 +43,7 @@ function run(cmd: string, args: string[], env: NodeJS.ProcessEnv = process.env, 
 
 /** The test profile's environment (services started if needed), with the bench database created and migrated. */
 function benchEnv(): NodeJS.ProcessEnv {
-  const out = execFileSync("bash", ["-c", 'source scripts/lib.sh; source scripts/env.sh; kw_profile test; kw_start_services >/dev/null; create_database "$KW_RUN" kitwright_bench; env -0'], { cwd: ROOT, encoding: "utf8", stdio: ["ignore", "pipe", "inherit"] });
+  const out = execFileSync("bash", ["-c", `source scripts/lib.sh; source scripts/env.sh; kw_profile test; kw_start_services >/dev/null; create_database "$KW_RUN" kitwright_bench ${flag("--fresh-db") ? "fresh" : ""}; env -0`], { cwd: ROOT, encoding: "utf8", stdio: ["ignore", "pipe", "inherit"] });
   const env = {} as NodeJS.ProcessEnv;
   for (const kv of out.split("\0")) {
     const i = kv.indexOf("=");
