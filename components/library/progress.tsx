@@ -1,19 +1,20 @@
 "use client";
-// Live progress of a library: counts per state, polled every 1.5 s while samples are queued or measuring.
+// Live progress of a library: counts per state, polled every 1.5 s while samples are queued or measuring, or
+// while the catalogue is being re-sorted after a change.
 import { useEffect, useRef } from "react";
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { api } from "../api";
 import { STATE_LOOK } from "./state-counts";
 
-export interface Progress { queued: number; measuring: number; catalogued: number; rejected: number; total: number; pending: number; healthComputedAt: string | null }
+export interface Progress { queued: number; measuring: number; catalogued: number; rejected: number; total: number; pending: number; sorting: boolean; healthComputedAt: string | null }
 
 export function useProgress(studioId: string, libraryId: string, initial?: Progress) {
   return useQuery({
     queryKey: ["progress", libraryId],
     queryFn: () => api<Progress>(`/api/studios/${studioId}/libraries/${libraryId}/progress`),
     initialData: initial,
-    refetchInterval: (q) => ((q.state.data?.pending ?? 1) > 0 ? 1500 : false),
+    refetchInterval: (q) => ((q.state.data?.pending ?? 1) > 0 || (q.state.data?.sorting ?? true) ? 1500 : false),
   });
 }
 
@@ -38,7 +39,7 @@ export function LibraryProgress({ studioId, libraryId, initial }: { studioId: st
     <section className="card space-y-3" aria-live="polite" data-testid="progress">
       <div className="flex items-baseline justify-between">
         <h3 className="font-semibold">Measuring and sorting</h3>
-        <span className="text-sm" data-testid="progress-status">{p.total === 0 ? "no samples yet" : p.pending > 0 ? `working: ${p.pending} to go` : "all measured"}</span>
+        <span className="text-sm" data-testid="progress-status">{p.total === 0 ? "no samples yet" : p.pending > 0 ? `working: ${p.pending} to go` : p.sorting ? "sorting into instruments and layers…" : "all measured"}</span>
       </div>
       <div className="h-2 w-full overflow-hidden rounded bg-paper" role="progressbar" aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct} aria-label="Samples measured">
         <div className="h-full bg-brand transition-all" style={{ width: `${pct}%` }} />

@@ -76,13 +76,13 @@ describe("library in the browser", () => {
     await expect.poll(async () => page.getByTestId("progress-status").textContent(), { timeout: 30_000 }).toBe("all measured");
     // the folder names became the families once the library is sorted
     await expect.poll(async () => (await page.getByTestId("samples-table").textContent()) ?? "", { timeout: 30_000, interval: 1000 }).toMatch(/kick/);
-    await expect.poll(async () => page.getByTestId("sample-row").count()).toBe(12);
+    await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(12);
     expect(await page.getByTestId("samples-table").textContent()).toContain("Session A/Kick/kick_v1_rr1.wav");
     await screenshot(page, "library-catalogued");
 
     // bulk relabel: the snares become rim shots (sorted by path: the 6 snares come after the 6 kicks)
     await page.getByLabel("Family", { exact: true }).selectOption("snare");
-    await expect.poll(async () => page.getByTestId("sample-row").count()).toBe(6);
+    await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(6);
     await page.getByRole("button", { name: "select this page" }).click();
     await page.getByLabel("Set articulation").selectOption("rim-shot");
     await page.getByRole("button", { name: /^Relabel 6/ }).click();

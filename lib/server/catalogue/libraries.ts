@@ -74,11 +74,20 @@ export async function assertLibrary({ studioId, libraryId }: { studioId: string;
   return r;
 }
 
-export async function libraryProgress({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<StateCounts & { pending: number; healthComputedAt: string | null }> {
+/**
+ * Counts per state, plus `sorting`: catalogued samples changed (measured, relabelled) after the last regroup
+ * read them, so instruments, layers and health are about to change.
+ */
+export async function libraryProgress({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<StateCounts & { pending: number; sorting: boolean; healthComputedAt: string | null }> {
   await assertLibrary({ studioId, libraryId });
   const c = (await countsFor(studioId, [libraryId])).get(libraryId)!;
-  const h = await db()("library_health").where({ library_id: libraryId, studio_id: studioId }).first("computed_at");
-  return { ...c, pending: c.queued + c.measuring, healthComputedAt: h ? new Date(h.computed_at).toISOString() : null };
+  const [h, last] = await Promise.all([
+    db()("library_health").where({ library_id: libraryId, studio_id: studioId }).first("computed_at"),
+    db()("samples").where({ library_id: libraryId, studio_id: studioId, state: "catalogued" }).max({ t: "updated_at" }).first(),
+  ]);
+  const lastChange = last?.t ? new Date(last.t).getTime() : null;
+  const sorting = lastChange !== null && (!h || lastChange > new Date(h.computed_at).getTime());
+  return { ...c, pending: c.queued + c.measuring, sorting, healthComputedAt: h ? new Date(h.computed_at).toISOString() : null };
 }
 
 export async function createLibrary({ studioId, actorId, name, description }: { studioId: string; actorId: string; name: string; description?: string | null }): Promise<{ id: string; name: string }> {

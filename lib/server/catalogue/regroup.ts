@@ -26,6 +26,9 @@ export async function regroupLibrary({ studioId, libraryId }: { studioId: string
   return db().transaction(async (trx) => {
     const lib = await trx("libraries").where({ id: libraryId, studio_id: studioId }).forUpdate().first("id");
     if (!lib) return null;
+    // The catalogue reflects the samples as read now: health.computed_at is this moment (database clock), so a
+    // sample measured or relabelled after it (updated_at later) shows the library as still being sorted.
+    const [[{ t: readAt }]] = (await trx.raw("SELECT NOW(3) AS t")) as unknown as [[{ t: Date }]];
     const rows = await trx("samples")
       .where({ library_id: libraryId, studio_id: studioId, state: "catalogued" })
       .select("id", "rel_path", "file_name", "sha256", "size_bytes", "storage_key", "measurement", "confirmed_family", "confirmed_articulation", "confirmed_mic", "confirmed_instrument_key");
@@ -80,7 +83,7 @@ export async function regroupLibrary({ studioId, libraryId }: { studioId: string
     }));
     for (let i = 0; i < groups.length; i += 200) await trx("layer_groups").insert(groups.slice(i, i + 200));
 
-    const health = { library_id: libraryId, studio_id: studioId, findings: JSON.stringify(cat.health), curve: cat.curve.kind, sample_count: inputs.length, computed_at: trx.fn.now(3) };
+    const health = { library_id: libraryId, studio_id: studioId, findings: JSON.stringify(cat.health), curve: cat.curve.kind, sample_count: inputs.length, computed_at: readAt };
     await trx("library_health").insert(health).onConflict("library_id").merge(["findings", "curve", "sample_count", "computed_at"]);
     return { samples: inputs.length, instruments: cat.instruments.length, groups: cat.groups.length, findings: cat.health.length };
   });

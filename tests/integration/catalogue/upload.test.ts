@@ -261,7 +261,12 @@ describe("measuring, browsing, listening, labelling", () => {
     const kick = (await db()("samples").where({ library_id: libraryId, state: "catalogued" }).where("rel_path", "like", "Kick/%").select("id")).map((x) => x.id);
     const c = await call(confirmRoute.POST, { params: { studioId: ctx.studio.id, libraryId }, body: { sampleIds: kick }, user: ctx.users.editor });
     expect(c.json.confirmed).toBe(kick.length);
+    // until the regroup has read the changed samples, the library says it is being sorted (the page keeps polling)
+    const during = await call(progressRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, user: ctx.users.viewer });
+    expect(during.json).toMatchObject({ pending: 0, sorting: true });
     await regroupLibrary({ studioId: ctx.studio.id, libraryId });
+    const after = await call(progressRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, user: ctx.users.viewer });
+    expect(after.json).toMatchObject({ pending: 0, sorting: false });
     const sn = await db()("samples").whereIn("id", ids).select("articulation", "articulation_source", "mic");
     for (const s of sn) expect(s).toMatchObject({ articulation: "rim-shot", articulation_source: "person", mic: "top" });
     const kk = await db()("samples").whereIn("id", kick).select("family", "family_source", "confirmed_by");
