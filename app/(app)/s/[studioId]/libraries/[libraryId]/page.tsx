@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { Suspense } from "react";
 import { requireStudio } from "@/lib/server/session";
-import { getLibrary } from "@/lib/server/catalogue/libraries";
+import { getLibrary, libraryProgress } from "@/lib/server/catalogue/libraries";
 import { listInstruments } from "@/lib/server/catalogue/views";
 import { can } from "@/lib/permissions";
 import { LibraryProgress } from "@/components/library/progress";
@@ -14,12 +14,12 @@ export default async function LibraryPage({ params }: { params: Promise<{ studio
   const { studioId, libraryId } = await params;
   const { studio } = await requireStudio(studioId);
   const lib = await getLibrary({ studioId: studio.id, libraryId });
-  const instruments = await listInstruments({ studioId: studio.id, libraryId });
+  const [instruments, progress] = await Promise.all([listInstruments({ studioId: studio.id, libraryId }), libraryProgress({ studioId: studio.id, libraryId })]);
   const write = can(studio.role, "studio:write");
   return (
     <div className="space-y-4">
       <div className={write ? "grid items-start gap-4 lg:grid-cols-[1fr_1fr]" : ""}>
-        <LibraryProgress studioId={studio.id} libraryId={lib.id} initial={{ ...lib.counts, pending: lib.counts.queued + lib.counts.measuring, healthComputedAt: lib.healthComputedAt }} />
+        <LibraryProgress studioId={studio.id} libraryId={lib.id} initial={progress} />
         {write && <Uploader studioId={studio.id} libraryId={lib.id} />}
       </div>
       <Suspense fallback={<div className="card text-sm text-muted">Loading samples…</div>}>
