@@ -16,7 +16,7 @@ import { benchFile } from "./generate";
 
 export interface UploadBench { bytes: number; files: number; seconds: number; mbPerSec: number; rssIdleMb: number; rssPeakMb: number; rssGrowthMb: number; status: number; queued: number; refused: number; duplicate: number }
 
-function rssKb(pid: number): number {
+function rssOfKb(pid: number): number {
   try {
     const m = /VmRSS:\s+(\d+) kB/.exec(fs.readFileSync(`/proc/${pid}/status`, "utf8"));
     return m ? Number(m[1]) : 0;
@@ -25,7 +25,35 @@ function rssKb(pid: number): number {
   }
 }
 
-export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBytes?: number; port?: number } = {}): Promise<UploadBench> {
+/** Resident memory of a process and all its descendants (next start may serve from a child process). */
+function rssKb(root: number): number {
+  const children = new Map<number, number[]>();
+  for (const d of fs.readdirSync("/proc")) {
+    if (!/^\d+$/.test(d)) continue;
+    try {
+      const stat = fs.readFileSync(`/proc/${d}/stat`, "utf8");
+      const ppid = Number(stat.slice(stat.lastIndexOf(")") + 2).split(" ")[1]);
+      (children.get(ppid) ?? children.set(ppid, []).get(ppid)!).push(Number(d));
+    } catch {
+      /* gone */
+    }
+  }
+  let total = 0;
+  const stack = [root];
+  while (stack.length) {
+    const p = stack.pop()!;
+    total += rssOfKb(p);
+    stack.push(...(children.get(p) ?? []));
+  }
+  return total;
+}
+
+/**
+ * via "serve": the route handler in a plain Node HTTP server (tests/faults/serve.ts); via "next": the production
+ * server (`next start`, needs a build in .next), as deployed.
+ */
+export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBytes?: number; port?: number; via?: "serve" | "next" } = {}): Promise<UploadBench> {
+  const via = opts.via ?? "serve";
   const total = opts.totalBytes ?? 2 * 1024 ** 3;
   const port = opts.port ?? 3470;
   const scratch = fs.mkdtempSync(path.join(os.tmpdir(), "kw-bench-upload-"));
@@ -39,12 +67,16 @@ export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBy
   const cookie = `next-auth.session-token=${await encode({ token: { uid: user.id, sub: user.id }, secret: env.NEXTAUTH_SECRET! })}`;
 
   const log: string[] = [];
-  const server = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/faults/serve.ts", "--port", String(port)], { env, stdio: ["ignore", "pipe", "pipe"] });
+  const server =
+    via === "next"
+      ? spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-p", String(port), "-H", "127.0.0.1"], { env: { ...env, NODE_ENV: "production" }, stdio: ["ignore", "pipe", "pipe"] })
+      : spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/faults/serve.ts", "--port", String(port)], { env, stdio: ["ignore", "pipe", "pipe"] });
+  const ready = () => (via === "next" ? /Ready in/.test(log.join("")) : log.join("").includes("[serve] listening"));
   server.stdout!.on("data", (d) => log.push(String(d)));
   server.stderr!.on("data", (d) => log.push(String(d)));
   try {
-    for (let i = 0; i < 300 && !log.join("").includes("[serve] listening"); i++) await new Promise((r) => setTimeout(r, 100));
-    if (!log.join("").includes("[serve] listening")) throw new Error(`upload server did not start: ${log.join("")}`);
+    for (let i = 0; i < 300 && !ready(); i++) await new Promise((r) => setTimeout(r, 100));
+    if (!ready()) throw new Error(`upload server did not start: ${log.join("").slice(-500)}`);
 
     // a pool of distinct takes; each file is a pool take with its index written into its last bytes
     const pool = Array.from({ length: 30 }, (_, i) => benchFile(i).bytes);
