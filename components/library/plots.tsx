@@ -59,6 +59,22 @@ export function LoudnessLadder({ groups }: { groups: LadderGroup[] }) {
   );
 }
 
+/** Ticks of a log axis on the 1-2-5 series between the data's extremes (widened by 1.5x like the domain). */
+function logTicks(values: number[]): { domain: [number, number]; ticks: number[] } {
+  const pos = values.filter((v) => v > 0 && Number.isFinite(v));
+  if (!pos.length) return { domain: [1, 10], ticks: [1, 10] };
+  const lo = Math.min(...pos) / 1.5;
+  const hi = Math.max(...pos) * 1.5;
+  const ticks: number[] = [];
+  for (let e = Math.floor(Math.log10(lo)); e <= Math.ceil(Math.log10(hi)); e++) {
+    for (const m of [1, 2, 5]) {
+      const t = m * 10 ** e;
+      if (t >= lo && t <= hi) ticks.push(Number(t.toPrecision(3)));
+    }
+  }
+  return { domain: [lo, hi], ticks };
+}
+
 export function FeatureMap({ points, colourBy }: { points: FeaturePoint[]; colourBy?: "family" | "articulation" }) {
   const [by, setBy] = useState<"family" | "articulation">(colourBy ?? "family");
   const series = useMemo(() => {
@@ -70,6 +86,8 @@ export function FeatureMap({ points, colourBy }: { points: FeaturePoint[]; colou
     return [...m.entries()].sort((a, b) => a[0].localeCompare(b[0]));
   }, [points, by]);
   const flagged = points.filter((p) => p.conflict === "strong");
+  const xAxis = useMemo(() => logTicks(points.map((p) => p.centroidHz)), [points]);
+  const yAxis = useMemo(() => logTicks(points.map((p) => p.decaySec)), [points]);
   if (!points.length) return <p className="text-sm text-muted">No measured samples yet.</p>;
   return (
     <section className="card space-y-3" data-testid="feature-map">
@@ -87,8 +105,8 @@ export function FeatureMap({ points, colourBy }: { points: FeaturePoint[]; colou
         <ResponsiveContainer width="100%" height="100%">
           <ScatterChart margin={{ top: 10, right: 20, bottom: 20, left: 20 }}>
             <CartesianGrid strokeDasharray="3 3" stroke="#dcd8cf" />
-            <XAxis type="number" dataKey="centroidHz" name="centroid" scale="log" domain={[(m: number) => m / 1.5, (m: number) => m * 1.5]} tickFormatter={hz} tickCount={6} label={{ value: "spectral centroid of the strike (log scale)", position: "insideBottom", offset: -10 }} />
-            <YAxis type="number" dataKey="decaySec" name="decay" scale="log" domain={[(m: number) => m / 1.5, (m: number) => m * 1.5]} tickFormatter={sec} tickCount={6} width={70} label={{ value: "decay (log scale)", angle: -90, position: "insideLeft", offset: 0, dy: 60 }} />
+            <XAxis type="number" dataKey="centroidHz" name="centroid" scale="log" domain={xAxis.domain} ticks={xAxis.ticks} allowDataOverflow tickFormatter={hz} label={{ value: "spectral centroid of the strike (log scale)", position: "insideBottom", offset: -10 }} />
+            <YAxis type="number" dataKey="decaySec" name="decay" scale="log" domain={yAxis.domain} ticks={yAxis.ticks} allowDataOverflow tickFormatter={sec} width={70} label={{ value: "decay (log scale)", angle: -90, position: "insideLeft", offset: 0, dy: 60 }} />
             <ZAxis range={[36, 36]} />
             <Tooltip cursor={{ strokeDasharray: "3 3" }} formatter={(v) => (typeof v === "number" ? v.toFixed(2) : String(v))} />
             <Legend verticalAlign="top" />
