@@ -64,8 +64,11 @@ export function cleanRelPath(raw: string): string | null {
   const parts = p.split("/").filter((x) => x !== "" && x !== ".");
   if (!parts.length || parts.some((x) => x === "..")) return null;
   const out = parts.join("/");
-  return out.length > 1000 ? null : out;
+  return out.length > MAX_PATH ? null : out;
 }
+
+/** Longest relative path kept (characters). */
+export const MAX_PATH = 1000;
 
 /** What the first bytes say: a WAV, an RF64/BW64 container, a zip pack, or something else. */
 export function sniff(head: Uint8Array): "wav" | "rf64" | "zip" | "other" {
@@ -313,12 +316,13 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   };
   const tasks: Promise<void>[] = [];
   const tmpFiles: string[] = [];
-  const bb = busboy({ headers: { "content-type": type }, preservePath: true, limits: { fileSize: Number.MAX_SAFE_INTEGER, files: 50_000, fields: 50, parts: 50_100 } });
+  const bb = busboy({ headers: { "content-type": type }, preservePath: true, defParamCharset: "utf8", limits: { fileSize: Number.MAX_SAFE_INTEGER, files: 50_000, fields: 50, parts: 50_100 } });
   bb.on("file", (_field, file, info) => {
     // browsers and undici percent-encode quotes and line breaks in multipart file names
     const rel = cleanRelPath((info.filename ?? "").replace(/%22/g, '"').replace(/%0D/gi, "").replace(/%0A/gi, ""));
     if (!rel) {
-      ctx.results.push({ name: info.filename || "(no name)", status: "refused", code: "bad-path", reason: "the file's path leaves its folder (absolute or with '..'); refused" });
+      const long = (info.filename ?? "").length > MAX_PATH;
+      ctx.results.push({ name: info.filename || "(no name)", status: "refused", code: long ? "path-too-long" : "bad-path", reason: long ? `the file's path is longer than ${MAX_PATH} characters; shorten its folder names` : "the file's path leaves its folder (absolute or with '..'); refused" });
       file.resume();
       return;
     }
@@ -369,13 +373,30 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   await Promise.allSettled(tasks);
   await Promise.all(tmpFiles.map((t) => fsp.rm(t, { force: true })));
 
+  // A body that could not be read to the end (a malformed part header, say a file name with control
+  // characters, or a cut connection) may have lost files after the break without naming them. Rather than
+  // answer for only part of the batch, take back what this request stored and refuse it whole.
+  if (failed && ctx.queued.length) {
+    const ids = ctx.queued.map((q) => q.sampleId);
+    await db()("samples").where({ studio_id: studioId, library_id: libraryId }).whereIn("id", ids).delete();
+    await Promise.all(ids.map((id) => storage().delete(sampleKey(studioId, libraryId, id)).catch(() => undefined)));
+  }
+  if (failed) {
+    const malformed = /malformed/i.test(failed.message);
+    throw new AppError(
+      "invalid-input",
+      malformed
+        ? "The upload could not be read to the end: a part header is malformed (often a file name with control characters). Nothing was stored; rename the file and send the batch again."
+        : "The upload was interrupted or malformed; nothing was stored.",
+    );
+  }
+
   if (ctx.queued.length) await enqueueMeasure(ctx.queued.map((q) => ({ sampleId: q.sampleId, studioId, libraryId })));
   const counts = { queued: 0, duplicate: 0, refused: 0 };
   for (const r of ctx.results) counts[r.status]++;
   if (ctx.results.length) {
     await logActivity(db(), { studioId, actorId: userId, action: "samples.uploaded", subjectType: "library", subjectId: libraryId, details: { library: lib.name, ...counts } });
   }
-  if (failed && ctx.results.every((r) => r.status === "refused")) throw new AppError("invalid-input", "The upload was interrupted or malformed; nothing was stored.");
   if (!ctx.results.length) throw new AppError("invalid-input", "The upload holds no files.");
   if (batchTooLarge) throw new AppError("too-large", `This upload went over ${mb(maxBatch)}; one batch may hold at most ${mb(maxBatch)}. Send the files in smaller batches.`, { files: ctx.results, counts });
   const tooLarge = ctx.results.filter((r) => r.code === "too-large");
