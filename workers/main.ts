@@ -55,8 +55,11 @@ async function main() {
   );
   regroup.on("failed", (job, err) => console.error(`[worker] regroup ${job?.data.libraryId} failed: ${err.message}`));
 
-  // Hourly clean-up of used or expired tokens and old sign-in attempts (deterministic scheduler id).
-  await maintenanceQueue().upsertJobScheduler(JOBS.purgeExpired.name, { every: 3600_000 }, { name: JOBS.purgeExpired.name, data: {} });
+  // Maintenance (workers/maintenance.ts) at start and every 10 minutes (deterministic scheduler id).
+  await maintenanceQueue().upsertJobScheduler(JOBS.purgeExpired.name, { every: 600_000 }, { name: JOBS.purgeExpired.name, data: {} });
+  runMaintenance()
+    .then((m) => (m.partials || m.requeued) && console.log(`[worker] start-up sweep: ${m.partials} partial file(s) removed, ${m.requeued} stranded sample(s) queued again`))
+    .catch((e) => console.error(`[worker] start-up maintenance failed: ${e.message}`));
   console.log(`[worker] ready on ${env().KW_REDIS_URL}: measuring ${cores} at a time on ${pool.size} thread(s)`);
 
   const stop = async () => {

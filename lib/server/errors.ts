@@ -42,13 +42,20 @@ export const forbidden = (msg = "Your role in this studio does not allow that.")
 /** Database errors that mean "the database is not there" become a 503. */
 export function isDatabaseDown(e: unknown): boolean {
   const code = (e as { code?: string })?.code;
-  return ["ECONNREFUSED", "PROTOCOL_CONNECTION_LOST", "ETIMEDOUT", "ER_CON_COUNT_ERROR", "EPIPE"].includes(code ?? "") ||
-    /Knex: Timeout acquiring a connection/.test((e as Error)?.message ?? "");
+  return ["ECONNREFUSED", "PROTOCOL_CONNECTION_LOST", "ETIMEDOUT", "EPIPE"].includes(code ?? "");
+}
+
+/** The database is up but every connection stayed busy for the whole wait: the server is overloaded. */
+export function isDatabaseBusy(e: unknown): boolean {
+  return (e as { code?: string })?.code === "ER_CON_COUNT_ERROR" || /Knex: Timeout acquiring a connection/.test((e as Error)?.message ?? "");
 }
 
 export function toErrorBody(e: unknown): { status: number; body: { error: { code: string; message: string; details?: unknown } } } {
   if (e instanceof AppError) {
     return { status: e.status, body: { error: { code: e.code, message: e.message, ...(e.details ? { details: e.details } : {}) } } };
+  }
+  if (isDatabaseBusy(e)) {
+    return { status: 503, body: { error: { code: "unavailable", message: "The server is busy right now; try again in a moment." } } };
   }
   if (isDatabaseDown(e)) {
     return { status: 503, body: { error: { code: "unavailable", message: "The database is not reachable right now; try again shortly." } } };

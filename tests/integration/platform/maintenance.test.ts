@@ -1,0 +1,70 @@
+// The worker's maintenance: old auth rows purged, upload leftovers swept after an hour, stranded queued
+// samples queued again (deterministic job ids, so nothing is doubled).
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import crypto from "node:crypto";
+import { afterAll, describe, expect, it } from "vitest";
+import { db, closeDb } from "@/lib/server/db";
+import { purgeAuthRows, requeueStranded, sweepPartials } from "@/workers/maintenance";
+import { closeQueues, measureJobId, measureQueue } from "@/workers/jobs";
+import { makeStudioWithRoles, makeUser } from "../helpers";
+
+afterAll(async () => {
+  await closeQueues();
+  await closeDb();
+});
+
+describe("maintenance", () => {
+  it("sweeps partial upload files older than an hour and nothing else", async () => {
+    const root = fs.mkdtempSync(path.join(os.tmpdir(), "kw-sweep-"));
+    const tmp = fs.mkdtempSync(path.join(os.tmpdir(), "kw-sweep-tmp-"));
+    const dir = path.join(root, "studios", "s", "libraries", "l");
+    fs.mkdirSync(dir, { recursive: true });
+    const old = path.join(dir, "a.wav.part-0123456789ab");
+    const fresh = path.join(dir, "b.wav.part-ba9876543210");
+    const kept = path.join(dir, "c.wav");
+    const oldZip = path.join(tmp, "kw-zip-0123456789abcdef.zip");
+    for (const f of [old, fresh, kept, oldZip]) fs.writeFileSync(f, "x");
+    const twoHoursAgo = new Date(Date.now() - 2 * 3600_000);
+    for (const f of [old, kept, oldZip]) fs.utimesSync(f, twoHoursAgo, twoHoursAgo);
+    expect(await sweepPartials({ storageRoot: root, tmpDir: tmp })).toBe(2);
+    expect([fs.existsSync(old), fs.existsSync(fresh), fs.existsSync(kept), fs.existsSync(oldZip)]).toEqual([false, true, true, false]);
+    fs.rmSync(root, { recursive: true, force: true });
+    fs.rmSync(tmp, { recursive: true, force: true });
+  });
+
+  it("queues stranded samples again, once, and leaves recent ones to their own job", async () => {
+    const { studio, users } = await makeStudioWithRoles();
+    const libraryId = crypto.randomUUID();
+    await db()("libraries").insert({ id: libraryId, studio_id: studio.id, name: "Stranded" });
+    const mk = (updated: Date) => ({ id: crypto.randomUUID(), studio_id: studio.id, library_id: libraryId, rel_path: `${crypto.randomUUID()}.wav`, file_name: "x.wav", sha256: crypto.randomBytes(32).toString("hex"), size_bytes: 1, storage_key: "k", state: "queued", uploaded_by: users.owner.id, updated_at: updated });
+    const stranded = mk(new Date(Date.now() - 10 * 60_000));
+    const recent = mk(new Date());
+    await db()("samples").insert([stranded, recent]);
+    try {
+      const n = await requeueStranded();
+      expect(n).toBeGreaterThanOrEqual(1);
+      expect(await measureQueue().getJob(measureJobId(stranded.id))).toBeTruthy();
+      expect(await measureQueue().getJob(measureJobId(recent.id))).toBeFalsy();
+      const before = await measureQueue().getJobCounts("waiting", "delayed", "active");
+      await requeueStranded();
+      expect(await measureQueue().getJobCounts("waiting", "delayed", "active")).toEqual(before);
+    } finally {
+      await (await measureQueue().getJob(measureJobId(stranded.id)))?.remove().catch(() => undefined);
+      await db()("samples").whereIn("id", [stranded.id, recent.id]).delete();
+    }
+  });
+
+  it("purges auth tokens and sign-in attempts older than a day", async () => {
+    const u = await makeUser();
+    const oldTime = new Date(Date.now() - 2 * 24 * 3600_000);
+    const id = crypto.randomUUID();
+    await db()("auth_tokens").insert({ id, user_id: u.id, kind: "reset-password", token_hash: crypto.randomBytes(32).toString("hex"), expires_at: oldTime });
+    await db()("sign_in_attempts").insert({ email: u.email, ip: "10.9.9.9", succeeded: false, created_at: oldTime });
+    const r = await purgeAuthRows();
+    expect(r.tokens).toBeGreaterThanOrEqual(1);
+    expect(await db()("auth_tokens").where({ id }).first()).toBeUndefined();
+    expect(await db()("sign_in_attempts").where({ email: u.email }).first()).toBeUndefined();
+  });
+});
