@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useMutation } from "@tanstack/react-query";
 import { api, ApiError } from "../api";
 import { Field, Message, fieldErrors } from "../form-bits";
-import { createLibrarySchema, updateLibrarySchema } from "@/lib/validation/library";
+import { createLibrarySchema, updateLibrarySchema, type VelocityCurveName } from "@/lib/validation/library";
 
 const errText = (e: unknown) => (e instanceof ApiError ? e.message : "Something went wrong; try again.");
 
@@ -45,12 +45,12 @@ export function CreateLibraryForm({ studioId }: { studioId: string }) {
   );
 }
 
-export function LibrarySettings({ studioId, libraryId, name, description, canDelete }: { studioId: string; libraryId: string; name: string; description: string | null; canDelete: boolean }) {
+export function LibrarySettings({ studioId, libraryId, name, description, velocityCurve, canDelete }: { studioId: string; libraryId: string; name: string; description: string | null; velocityCurve: VelocityCurveName; canDelete: boolean }) {
   const router = useRouter();
   const [fields, setFields] = useState<Record<string, string>>({});
   const [confirm, setConfirm] = useState("");
   const save = useMutation({
-    mutationFn: (body: { name?: string; description?: string | null }) => api(`/api/studios/${studioId}/libraries/${libraryId}`, { method: "PATCH", body }),
+    mutationFn: (body: { name?: string; description?: string | null; velocityCurve?: VelocityCurveName }) => api(`/api/studios/${studioId}/libraries/${libraryId}`, { method: "PATCH", body }),
     onSuccess: () => router.refresh(),
   });
   const del = useMutation({
@@ -68,7 +68,7 @@ export function LibrarySettings({ studioId, libraryId, name, description, canDel
         onSubmit={(e) => {
           e.preventDefault();
           const fd = new FormData(e.currentTarget);
-          const parsed = updateLibrarySchema.safeParse({ name: fd.get("name"), description: String(fd.get("description") ?? "") });
+          const parsed = updateLibrarySchema.safeParse({ name: fd.get("name"), description: String(fd.get("description") ?? ""), velocityCurve: fd.get("velocityCurve") });
           if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
           setFields({});
           save.mutate(parsed.data);
@@ -79,9 +79,17 @@ export function LibrarySettings({ studioId, libraryId, name, description, canDel
           <label htmlFor="lib-description" className="label">Description</label>
           <textarea id="lib-description" name="description" rows={3} maxLength={4000} defaultValue={description ?? ""} className="field" />
         </div>
+        <div>
+          <label htmlFor="lib-curve" className="label">Velocity curve</label>
+          <select id="lib-curve" name="velocityCurve" defaultValue={velocityCurve} className="field">
+            <option value="dls">Square law (MMA DLS Level 1): the default</option>
+            <option value="dannenberg">Dannenberg (ICMC 2006), over each group&apos;s measured range</option>
+          </select>
+          <p className="mt-1 text-xs text-muted">How the layers&apos; loudness maps to MIDI velocities. Changing it sorts the library again.</p>
+        </div>
         {save.isError && <Message kind="error">{errText(save.error)}</Message>}
         {save.isSuccess && <Message kind="ok">Saved.</Message>}
-        <button className="btn-quiet" disabled={save.isPending}>Save name and description</button>
+        <button className="btn-quiet" disabled={save.isPending}>Save settings</button>
       </form>
       {canDelete && (
         <div className="space-y-2 rounded-md border border-bad/30 p-3">

@@ -7,9 +7,12 @@ import { idParam } from "./studio";
 export const libraryNameSchema = z.string().trim().min(1, "Name the library.").max(160, "At most 160 characters.");
 export const libraryDescriptionSchema = z.string().trim().max(4000, "At most 4000 characters.");
 export const createLibrarySchema = z.strictObject({ name: libraryNameSchema, description: libraryDescriptionSchema.optional() });
+/** How layers map to MIDI velocities: MMA DLS Level 1 square law (default) or Dannenberg (ICMC 2006). */
+export const VELOCITY_CURVES = ["dls", "dannenberg"] as const;
+export type VelocityCurveName = (typeof VELOCITY_CURVES)[number];
 export const updateLibrarySchema = z
-  .strictObject({ name: libraryNameSchema.optional(), description: libraryDescriptionSchema.nullable().optional() })
-  .refine((v) => v.name !== undefined || v.description !== undefined, "Change the name or the description.");
+  .strictObject({ name: libraryNameSchema.optional(), description: libraryDescriptionSchema.nullable().optional(), velocityCurve: z.enum(VELOCITY_CURVES).optional() })
+  .refine((v) => v.name !== undefined || v.description !== undefined || v.velocityCurve !== undefined, "Change the name, the description or the velocity curve.");
 /** Deleting asks for the library's name typed again. */
 export const deleteLibrarySchema = z.strictObject({ confirmName: z.string() });
 

@@ -5,6 +5,8 @@ import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
 import { newId } from "../ids";
 import { storage } from "../storage";
+import { enqueueRegroup } from "./queue";
+import type { VelocityCurveName } from "@/lib/validation/library";
 
 export type StateCounts = { queued: number; measuring: number; catalogued: number; rejected: number; total: number };
 
@@ -17,6 +19,7 @@ export interface LibrarySummary {
   counts: StateCounts;
   instruments: number;
   healthComputedAt: string | null;
+  velocityCurve: VelocityCurveName;
 }
 
 /** Storage folder of a library's files. */
@@ -47,6 +50,7 @@ function toSummary(r: Record<string, any>, counts: StateCounts, instruments: num
     counts,
     instruments,
     healthComputedAt: r.computed_at ? new Date(r.computed_at).toISOString() : null,
+    velocityCurve: r.velocity_curve === "dannenberg" ? "dannenberg" : "dls",
   };
 }
 
@@ -101,7 +105,8 @@ export async function createLibrary({ studioId, actorId, name, description }: { 
   return { id, name };
 }
 
-export async function updateLibrary({ studioId, actorId, libraryId, name, description }: { studioId: string; actorId: string; libraryId: string; name?: string; description?: string | null }): Promise<void> {
+export async function updateLibrary({ studioId, actorId, libraryId, name, description, velocityCurve }: { studioId: string; actorId: string; libraryId: string; name?: string; description?: string | null; velocityCurve?: VelocityCurveName }): Promise<void> {
+  let curveChanged = false;
   await db().transaction(async (trx) => {
     const lib = await trx("libraries").where({ studio_id: studioId, id: libraryId }).forUpdate().first();
     if (!lib) throw notFound("The library");
@@ -118,9 +123,18 @@ export async function updateLibrary({ studioId, actorId, libraryId, name, descri
       patch.description = description || null;
       details.description = true;
     }
+    if (velocityCurve !== undefined && velocityCurve !== lib.velocity_curve) {
+      patch.velocity_curve = velocityCurve;
+      curveChanged = true;
+      await logActivity(trx, { studioId, actorId, action: "library.curve-changed", subjectType: "library", subjectId: libraryId, details: { name: lib.name, from: lib.velocity_curve, to: velocityCurve } });
+    }
     await trx("libraries").where({ id: libraryId }).update(patch);
-    await logActivity(trx, { studioId, actorId, action: name !== undefined && name !== lib.name ? "library.renamed" : "library.described", subjectType: "library", subjectId: libraryId, details: { name: name ?? lib.name, ...details } });
+    if (name !== undefined || description !== undefined) {
+      await logActivity(trx, { studioId, actorId, action: name !== undefined && name !== lib.name ? "library.renamed" : "library.described", subjectType: "library", subjectId: libraryId, details: { name: name ?? lib.name, ...details } });
+    }
   });
+  // the layers' velocity ranges follow the curve: sort the library again
+  if (curveChanged) await enqueueRegroup({ studioId, libraryId });
 }
 
 /** Deletes a library, its rows and its stored files. The caller confirmed by typing the name. */

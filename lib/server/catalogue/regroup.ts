@@ -4,6 +4,7 @@ import "server-only";
 // the instruments (upserted by key so ids stay stable; gone ones deleted), the layer groups and the health.
 import { buildLabelModel, catalogueSamples, featureVector, isArticulation, isFamily, MIC_POSITIONS, type CatalogueSampleInput, type LabelModel, type MicPosition } from "@/lib/catalog";
 import type { Measurement } from "@/lib/audio";
+import { DLS, type VelocityCurve } from "@/lib/catalog/velocity";
 import { db } from "../db";
 import { newId } from "../ids";
 
@@ -24,7 +25,7 @@ export interface RegroupOutcome { samples: number; instruments: number; groups: 
 export async function regroupLibrary({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<RegroupOutcome | null> {
   const labelModel = await studioLabelModel(studioId);
   return db().transaction(async (trx) => {
-    const lib = await trx("libraries").where({ id: libraryId, studio_id: studioId }).forUpdate().first("id");
+    const lib = await trx("libraries").where({ id: libraryId, studio_id: studioId }).forUpdate().first("id", "velocity_curve");
     if (!lib) return null;
     // The catalogue reflects the samples as read now: health.computed_at is this moment (database clock), so a
     // sample measured or relabelled after it (updated_at later) shows the library as still being sorted.
@@ -41,7 +42,8 @@ export async function regroupLibrary({ studioId, libraryId }: { studioId: string
       if (r.confirmed_instrument_key) confirmed.instrumentKey = r.confirmed_instrument_key;
       return { id: r.id, path: r.rel_path, sha256: r.sha256, measurement: parse<Measurement>(r.measurement), confirmed };
     });
-    const cat = catalogueSamples(inputs, { labelModel });
+    const curve: VelocityCurve = lib.velocity_curve === "dannenberg" ? { kind: "dannenberg" } : DLS;
+    const cat = catalogueSamples(inputs, { labelModel, curve });
     const byId = new Map(rows.map((r) => [r.id as string, r]));
 
     // per-sample columns, in bulk (INSERT ... ON DUPLICATE KEY UPDATE on the primary key)

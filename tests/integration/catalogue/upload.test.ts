@@ -277,6 +277,27 @@ describe("measuring, browsing, listening, labelling", () => {
     expect((typeof details === "string" ? JSON.parse(details) : details).set).toEqual({ articulation: "rim-shot", mic: "top" });
   });
 
+  it("the library's velocity curve is selectable; changing it re-sorts the layers onto the new curve and is logged", async () => {
+    const groups = async () => (await db()("layer_groups").where({ library_id: libraryId }).orderBy("group_key").select("group_key", "layers")).map((g) => ({ key: g.group_key as string, lows: (typeof g.layers === "string" ? JSON.parse(g.layers) : g.layers).map((l: { velocityLow: number }) => l.velocityLow) as number[] }));
+    const before = await groups();
+    expect(before.some((g) => g.lows.length > 1)).toBe(true);
+    const r = await call(libRoute.PATCH, { method: "PATCH", params: { studioId: ctx.studio.id, libraryId }, body: { velocityCurve: "dannenberg" }, user: ctx.users.editor });
+    expect(r.status).toBe(200);
+    await regroupLibrary({ studioId: ctx.studio.id, libraryId });
+    expect((await db()("library_health").where({ library_id: libraryId }).first("curve")).curve).toBe("dannenberg");
+    const after = await groups();
+    // same groups, but the multi-layer ones now start their layers at other velocities (curves differ: DLS Level 1 vs Dannenberg ICMC 2006)
+    expect(after.map((g) => g.key)).toEqual(before.map((g) => g.key));
+    const changed = after.filter((g, i) => g.lows.length > 1 && g.lows.join() !== before[i]!.lows.join());
+    expect(changed.length).toBeGreaterThan(0);
+    expect(await db()("activity").where({ studio_id: ctx.studio.id, action: "library.curve-changed" }).first()).toBeTruthy();
+    const bad = await call(libRoute.PATCH, { method: "PATCH", params: { studioId: ctx.studio.id, libraryId }, body: { velocityCurve: "linear" }, user: ctx.users.editor });
+    expect(bad.status).toBe(422);
+    await call(libRoute.PATCH, { method: "PATCH", params: { studioId: ctx.studio.id, libraryId }, body: { velocityCurve: "dls" }, user: ctx.users.editor });
+    await regroupLibrary({ studioId: ctx.studio.id, libraryId });
+    expect(await groups()).toEqual(before);
+  });
+
   it("renames and merges instruments with stable ids; health and plots answer", async () => {
     const inst = await call(instrumentsRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, user: ctx.users.viewer });
     const list = inst.json.instruments as { id: string; key: string; name: string; family: string }[];

@@ -29,6 +29,7 @@ function describe(action: string, d: Record<string, unknown> | null): string {
     case "audit.run": return `audited "${s("layout")}" against "${s("kit")}" (score ${s("score")}, ${s("silent")} silent pads)`;
     case "library.created": return `created the library "${s("name")}"`;
     case "library.renamed": return `renamed the library "${s("from")}" to "${s("to")}"`;
+    case "library.curve-changed": return `mapped the library "${s("name")}" with the ${s("to") === "dannenberg" ? "Dannenberg" : "square-law (DLS)"} velocity curve`;
     case "library.described": return `changed the description of the library "${s("name")}"`;
     case "library.deleted": return `deleted the library "${s("name")}" (${s("samples")} samples)`;
     case "samples.uploaded": return `uploaded to "${s("library")}": ${s("queued")} queued, ${s("duplicate")} duplicates, ${s("refused")} refused`;

@@ -35,7 +35,7 @@ export default async function LibraryLayout({ children, params }: { children: Re
           <details className="card w-full max-w-md p-3 text-sm sm:w-auto">
             <summary className="cursor-pointer font-medium">Library settings</summary>
             <div className="mt-3">
-              <LibrarySettings studioId={studio.id} libraryId={lib.id} name={lib.name} description={lib.description} canDelete={can(studio.role, "studio:manage")} />
+              <LibrarySettings studioId={studio.id} libraryId={lib.id} name={lib.name} description={lib.description} velocityCurve={lib.velocityCurve} canDelete={can(studio.role, "studio:manage")} />
             </div>
           </details>
         )}

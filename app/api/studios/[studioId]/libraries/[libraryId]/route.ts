@@ -8,7 +8,7 @@ import { deleteLibrarySchema, libraryParams, updateLibrarySchema } from "@/lib/v
 export const GET = route({ access: { kind: "studio", permission: "studio:read" }, params: libraryParams }, async ({ studio, params }) => getLibrary({ studioId: studio.id, libraryId: params.libraryId }));
 
 export const PATCH = route({ access: { kind: "studio", permission: "studio:write" }, params: libraryParams, body: updateLibrarySchema }, async ({ studio, user, params, body }) => {
-  await updateLibrary({ studioId: studio.id, actorId: user.id, libraryId: params.libraryId, name: body.name, description: body.description });
+  await updateLibrary({ studioId: studio.id, actorId: user.id, libraryId: params.libraryId, name: body.name, description: body.description, velocityCurve: body.velocityCurve });
   return getLibrary({ studioId: studio.id, libraryId: params.libraryId });
 });
 
