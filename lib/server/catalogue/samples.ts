@@ -98,9 +98,10 @@ function filtered(k: Knex, studioId: string, libraryId: string, q: Omit<SamplesQ
 export async function listSamples({ studioId, libraryId, query }: { studioId: string; libraryId: string; query: SamplesQuery }): Promise<{ rows: SampleRow[]; total: number; page: number; pageSize: number }> {
   await assertLibrary({ studioId, libraryId });
   const k = db();
-  const totalRow = await filtered(k, studioId, libraryId, query).count({ n: "*" }).first();
-  const total = Number(totalRow?.n ?? 0);
-  const rows = await filtered(k, studioId, libraryId, query)
+  // the count and the page are independent: run them side by side (two pool connections)
+  const [totalRow, rows] = await Promise.all([
+    filtered(k, studioId, libraryId, query).count({ n: "*" }).first(),
+    filtered(k, studioId, libraryId, query)
     .leftJoin("instruments as i", function () {
       this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");
     })
@@ -110,7 +111,9 @@ export async function listSamples({ studioId, libraryId, query }: { studioId: st
     .orderBy("s.id", query.dir)
     .limit(query.pageSize)
     .offset((query.page - 1) * query.pageSize)
-    .select(LIST_COLS);
+    .select(LIST_COLS),
+  ]);
+  const total = Number(totalRow?.n ?? 0);
   return { rows: rows.map(toRow), total, page: query.page, pageSize: query.pageSize };
 }
 
