@@ -102,16 +102,16 @@ export async function listSamples({ studioId, libraryId, query }: { studioId: st
   const [totalRow, rows] = await Promise.all([
     filtered(k, studioId, libraryId, query).count({ n: "*" }).first(),
     filtered(k, studioId, libraryId, query)
-    .leftJoin("instruments as i", function () {
-      this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");
-    })
-    // one direction for the column and the id tie-breaker: the (library_id, column) index, whose entries end in
-    // the primary key, is then read in order and no sort is needed
-    .orderBy(SORT_COLUMN[query.sort], query.dir)
-    .orderBy("s.id", query.dir)
-    .limit(query.pageSize)
-    .offset((query.page - 1) * query.pageSize)
-    .select(LIST_COLS),
+      .leftJoin("instruments as i", function () {
+        this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");
+      })
+      // one direction for the column and the id tie-breaker: the (library_id, column) index, whose entries end in
+      // the primary key, is then read in order and no sort is needed
+      .orderBy(SORT_COLUMN[query.sort], query.dir)
+      .orderBy("s.id", query.dir)
+      .limit(query.pageSize)
+      .offset((query.page - 1) * query.pageSize)
+      .select(LIST_COLS),
   ]);
   const total = Number(totalRow?.n ?? 0);
   return { rows: rows.map(toRow), total, page: query.page, pageSize: query.pageSize };
