@@ -110,6 +110,9 @@ describe("audit flow in Chromium", () => {
     await screenshot(page, "audit-02-layout-learned");
     await page.getByRole("button", { name: "Save layout" }).click();
     await page.getByText("Layout saved.").waitFor();
+    // the confirmation stays after the page refreshes its server parts (the editor is not remounted)
+    await page.waitForTimeout(1500);
+    await expect(page.getByText("Layout saved.").isVisible()).resolves.toBe(true);
 
     // run the audit
     await page.goto(`${BASE}/s/${s.studio.id}/audits`);

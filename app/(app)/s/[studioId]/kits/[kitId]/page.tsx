@@ -25,7 +25,7 @@ export default async function KitPage({ params }: { params: Promise<{ studioId: 
         <h2 className="text-xl" data-testid="kit-name">{kit.name}</h2>
         <EntityActions apiBase={`/api/studios/${studio.id}/kits/${kit.id}`} pageBase={`/s/${studio.id}/kits`} listHref={`/s/${studio.id}/kits`} name={kit.name} what="kit" canWrite={write} />
       </div>
-      <KitEditor key={kit.updatedAt} studioId={studio.id} kit={kit.kit} instruments={instruments} canWrite={write} />
+      <KitEditor key={`${kit.id}:${kit.name}`} studioId={studio.id} kit={kit.kit} instruments={instruments} canWrite={write} />
     </div>
   );
 }

@@ -28,7 +28,7 @@ export default async function LayoutPage({ params }: { params: Promise<{ studioI
         <h2 className="text-xl" data-testid="layout-name">{rec.name}</h2>
         <EntityActions apiBase={`/api/studios/${studio.id}/layouts/${rec.id}`} pageBase={`/s/${studio.id}/layouts`} listHref={`/s/${studio.id}/layouts`} name={rec.name} what="layout" canWrite={write} />
       </div>
-      <LayoutEditor key={rec.updatedAt} studioId={studio.id} layout={rec.layout} kits={kits} canWrite={write} />
+      <LayoutEditor key={`${rec.id}:${rec.name}`} studioId={studio.id} layout={rec.layout} kits={kits} canWrite={write} />
     </div>
   );
 }
