@@ -6,6 +6,7 @@ import { indexCatalogue, runAudit } from "../lib/audit/audit";
 import { buildDefaultKit } from "../lib/audit/kits";
 import type { CatalogueInstrument, Layout, Pad } from "../lib/audit/types";
 import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation } from "../lib/catalog/taxonomy";
+import { mulberry32 as rng } from "../lib/synth/rng";
 
 function arg(name: string, dflt: number): number {
   const i = process.argv.indexOf(name);
@@ -16,17 +17,6 @@ const SAMPLES = arg("--samples", 20_000);
 const RUNS = arg("--runs", 50);
 const TARGET_MS = 50;
 
-// Deterministic pseudo-random numbers (mulberry32), so every run audits the same catalogue.
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Instruments with articulations, layers and round robins until `samples` samples exist. */
 function syntheticCatalogue(samples: number): CatalogueInstrument[] {

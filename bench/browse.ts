@@ -12,21 +12,12 @@ import { env } from "@/lib/server/env";
 import { createStudio, createUser } from "@/db/factories";
 import { FAMILIES, FAMILY_ARTICULATIONS } from "@/lib/catalog/taxonomy";
 import * as samplesRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/samples/route";
+import { mulberry32 as rng } from "../lib/synth/rng";
 
 const ROWS = Number(process.env.KW_BENCH_ROWS ?? 100_000);
 const RUNS = Number(process.env.KW_BENCH_RUNS ?? 20);
 const LIB_NAME = `bench-${ROWS}`;
 
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 async function seed(): Promise<{ studioId: string; libraryId: string; userId: string; seedSec: number }> {
   const k = db();

@@ -3,17 +3,8 @@
 
 import type { Measurement, SpectralSummary } from "../audio/types";
 
-/** mulberry32: small seeded generator for repeatable test data. */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** mulberry32 (lib/synth/rng.ts): repeatable test data. */
+export { mulberry32 as rng } from "../synth/rng";
 
 export function spectral(p: Partial<SpectralSummary> = {}): SpectralSummary {
   return {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { fnv1a32, rngFromKey, xor128 } from "./rng";
+import { fnv1a32, mulberry32, rngFromKey, xor128 } from "./rng";
 
 describe("seeded random numbers", () => {
   it("xor128 from the paper's initial state gives its first output (Marsaglia, Xorshift RNGs, 2003; from memory)", () => {
@@ -50,5 +50,20 @@ describe("seeded random numbers", () => {
     const b = rngFromKey("k");
     for (let i = 0; i < 10; i++) b.next();
     expect(a.fork("x").next()).toBe(b.fork("x").next());
+  });
+});
+
+describe("mulberry32", () => {
+  it("is repeatable for a seed, stays in [0, 1) and is uniform on average (textbook moments: mean 1/2, variance 1/12)", () => {
+    const a = mulberry32(42);
+    const b = mulberry32(42);
+    const xs = Array.from({ length: 20_000 }, () => a());
+    expect(Array.from({ length: 5 }, () => b())).toEqual(xs.slice(0, 5));
+    expect(xs.every((x) => x >= 0 && x < 1)).toBe(true);
+    const mean = xs.reduce((s, x) => s + x, 0) / xs.length;
+    const variance = xs.reduce((s, x) => s + (x - mean) ** 2, 0) / xs.length;
+    expect(mean).toBeCloseTo(0.5, 2);
+    expect(variance).toBeCloseTo(1 / 12, 2);
+    expect(mulberry32(43)()).not.toBe(mulberry32(42)());
   });
 });

@@ -102,3 +102,18 @@ export function rngFromKey(key: string): Rng {
   for (let i = 0; i < 8; i++) r.nextU32();
   return r;
 }
+
+/**
+ * mulberry32: a tiny seeded generator with output in [0, 1), for repeatable test and benchmark data where the
+ * stream need not be split (common practice; from memory: Tommy Ettinger's public-domain 32-bit generator).
+ */
+export function mulberry32(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}

@@ -5,18 +5,10 @@
 // other than PCM/float, nested LIST chunks, zero channels, the RF64 header (EBU Tech 3306) and non-WAV bytes
 // under a .wav name. Same seed, same corpus: a failure found once can be replayed by its index.
 import { encodeWav } from "../../lib/audio/index";
+import { mulberry32 as rng } from "@/lib/synth/rng";
 
-/** mulberry32: a small seeded generator (common practice; output in [0, 1)). */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** mulberry32 (lib/synth/rng.ts): repeatable test data. */
+export { mulberry32 as rng } from "@/lib/synth/rng";
 
 export type MutationKind =
   | "valid"

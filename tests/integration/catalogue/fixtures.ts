@@ -2,7 +2,7 @@
 // files, multipart bodies, zip packs (stored or deflated, written by hand per the PKZIP APPNOTE 4.3 layout),
 // and a real worker process.
 import { spawn, type ChildProcess } from "node:child_process";
-import zlib from "node:zlib";
+import { zipOf as writeZip } from "@/tests/hostile/zip";
 import { encodeWav } from "@/lib/audio/encode";
 import { db } from "@/lib/server/db";
 
@@ -48,42 +48,9 @@ export async function multipart(files: { name: string; data: Uint8Array }[]): Pr
   return { body: new Uint8Array(await r.arrayBuffer()), type: r.headers.get("content-type")! };
 }
 
-// CRC-32 (ISO 3309 / PKZIP polynomial 0xEDB88320)
-const CRC_TABLE = Array.from({ length: 256 }, (_, n) => {
-  let c = n;
-  for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
-  return c >>> 0;
-});
-function crc32(b: Uint8Array): number {
-  let c = 0xffffffff;
-  for (const x of b) c = CRC_TABLE[(c ^ x) & 0xff]! ^ (c >>> 8);
-  return (c ^ 0xffffffff) >>> 0;
-}
-
 /** A zip pack (deflate, or stored) of the given entries; names are written as given (even with ".."). */
 export function zipOf(entries: { name: string; data: Uint8Array; deflate?: boolean }[]): Uint8Array {
-  const local: Buffer[] = [];
-  const central: Buffer[] = [];
-  let offset = 0;
-  for (const e of entries) {
-    const name = Buffer.from(e.name, "utf8");
-    const comp = e.deflate === false ? Buffer.from(e.data) : zlib.deflateRawSync(e.data);
-    const method = e.deflate === false ? 0 : 8;
-    const crc = crc32(e.data);
-    const lh = Buffer.alloc(30);
-    lh.writeUInt32LE(0x04034b50, 0); lh.writeUInt16LE(20, 4); lh.writeUInt16LE(0x800, 6); lh.writeUInt16LE(method, 8);
-    lh.writeUInt32LE(crc, 14); lh.writeUInt32LE(comp.length, 18); lh.writeUInt32LE(e.data.length, 22); lh.writeUInt16LE(name.length, 26);
-    local.push(lh, name, comp);
-    const ch = Buffer.alloc(46);
-    ch.writeUInt32LE(0x02014b50, 0); ch.writeUInt16LE(20, 4); ch.writeUInt16LE(20, 6); ch.writeUInt16LE(0x800, 8); ch.writeUInt16LE(method, 10);
-    ch.writeUInt32LE(crc, 16); ch.writeUInt32LE(comp.length, 20); ch.writeUInt32LE(e.data.length, 24); ch.writeUInt16LE(name.length, 28); ch.writeUInt32LE(offset, 42);
-    central.push(ch, name);
-    offset += 30 + name.length + comp.length;
-  }
-  const cd = Buffer.concat(central);
-  const end = Buffer.alloc(22);
-  end.writeUInt32LE(0x06054b50, 0); end.writeUInt16LE(entries.length, 8); end.writeUInt16LE(entries.length, 10); end.writeUInt32LE(cd.length, 12); end.writeUInt32LE(offset, 16);
-  return new Uint8Array(Buffer.concat([...local, cd, end]));
+  return writeZip(entries.map((e) => ({ name: e.name, data: e.data, store: e.deflate === false })));
 }
 
 /** Starts the real worker process (workers/main.ts) with the test environment. */
