@@ -52,11 +52,10 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
   const qc = useQueryClient();
   const url = `/api/studios/${studioId}/libraries/${libraryId}/uploads`;
 
-  const start = useCallback(
-    async (picked: { file: File; path: string }[]) => {
-      const list: Item[] = picked.filter((p) => wanted(p.path)).map((p) => ({ id: ++seq.current, file: p.file, path: p.path, loaded: 0, state: "waiting", results: [] }));
-      const skipped: Item[] = picked.filter((p) => !wanted(p.path)).map((p) => ({ id: ++seq.current, file: p.file, path: p.path, loaded: 0, state: "done", results: [{ name: p.path, status: "refused", reason: "not a .wav file or .zip pack; not sent" }] }));
-      setItems([...list, ...skipped]);
+  // Sends the given items, CONCURRENCY at a time; failed ones (connection lost, server restarted, 5xx) stay
+  // listed with their reason and can be sent again.
+  const run = useCallback(
+    async (list: Item[]) => {
       if (!list.length) return;
       setRunning(true);
       const update = (id: number, patch: Partial<Item>) => setItems((xs) => xs.map((x) => (x.id === id ? { ...x, ...patch } : x)));
@@ -64,7 +63,7 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
       const lane = async () => {
         while (next < list.length) {
           const item = list[next++]!;
-          update(item.id, { state: "sending" });
+          update(item.id, { state: "sending", loaded: 0 });
           const r = await send(url, item, (loaded) => update(item.id, { loaded }));
           if (r.status === 201 && r.body?.files) update(item.id, { state: "done", loaded: item.file.size, results: r.body.files });
           else {
@@ -81,6 +80,22 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
     },
     [url, qc, libraryId],
   );
+
+  const start = useCallback(
+    (picked: { file: File; path: string }[]) => {
+      const list: Item[] = picked.filter((p) => wanted(p.path)).map((p) => ({ id: ++seq.current, file: p.file, path: p.path, loaded: 0, state: "waiting", results: [] }));
+      const skipped: Item[] = picked.filter((p) => !wanted(p.path)).map((p) => ({ id: ++seq.current, file: p.file, path: p.path, loaded: 0, state: "done", results: [{ name: p.path, status: "refused", reason: "not a .wav file or .zip pack; not sent" }] }));
+      setItems([...list, ...skipped]);
+      return run(list);
+    },
+    [run],
+  );
+
+  const retryFailed = () => {
+    const failed = items.filter((i) => i.state === "failed");
+    setItems((xs) => xs.map((x) => (x.state === "failed" ? { ...x, state: "waiting", loaded: 0, results: [] } : x)));
+    void run(failed);
+  };
 
   const onDrop = async (e: React.DragEvent) => {
     e.preventDefault();
@@ -103,6 +118,7 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
   const count = (s: string) => results.filter((r) => r.status === s).length;
   const finished = items.length > 0 && !running;
   const refused = results.filter((r) => r.status === "refused");
+  const failedCount = items.filter((i) => i.state === "failed").length;
 
   return (
     <section className="card space-y-3" data-testid="uploader">
@@ -158,6 +174,12 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
             <strong>Upload finished:</strong> <span className="num">{count("queued")}</span> queued for measuring, <span className="num">{count("duplicate")}</span> duplicates (already in the library, not stored twice),{" "}
             <span className="num">{refused.length}</span> refused.
           </p>
+          {failedCount > 0 && (
+            <div className="flex flex-wrap items-center gap-2" data-testid="upload-failed">
+              <span className="text-bad">✕ {failedCount} {failedCount === 1 ? "file" : "files"} did not get through (the connection dropped, or the server was restarting or busy). Sending again is safe: anything already stored is only reported as a duplicate.</span>
+              <button type="button" className="btn-quiet py-1" onClick={retryFailed}>Send {failedCount === 1 ? "it" : "them"} again</button>
+            </div>
+          )}
           {refused.length > 0 && (
             <ul className="max-h-32 list-disc overflow-y-auto pl-5 text-xs" data-testid="refused-list">
               {refused.slice(0, 200).map((r, k) => <li key={k}><span className="font-medium">{r.name}</span>: {r.reason}</li>)}
