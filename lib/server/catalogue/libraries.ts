@@ -28,10 +28,16 @@ export const sampleKey = (studioId: string, libraryId: string, sampleId: string)
 
 const emptyCounts = (): StateCounts => ({ queued: 0, measuring: 0, catalogued: 0, rejected: 0, total: 0 });
 
-async function countsFor(studioId: string, libraryIds: string[]): Promise<Map<string, StateCounts>> {
+export async function countsFor(studioId: string, libraryIds: string[]): Promise<Map<string, StateCounts>> {
   const out = new Map<string, StateCounts>(libraryIds.map((id) => [id, emptyCounts()]));
   if (!libraryIds.length) return out;
-  const rows = await db()("samples").where({ studio_id: studioId }).whereIn("library_id", libraryIds).groupBy("library_id", "state").select("library_id", "state").count({ n: "*" });
+  // exact counters kept by triggers (migration 0008); the join keeps the studio scope
+  const rows = await db()("library_sample_counts as c")
+    .join("libraries as l", "l.id", "c.library_id")
+    .where("l.studio_id", studioId)
+    .whereIn("c.library_id", libraryIds)
+    .andWhere("c.n", ">", 0)
+    .select("c.library_id", "c.state", "c.n");
   for (const r of rows as { library_id: string; state: keyof StateCounts; n: number | string }[]) {
     const c = out.get(r.library_id)!;
     c[r.state] = Number(r.n);

@@ -5,7 +5,7 @@ import type { Knex } from "knex";
 import { db } from "../db";
 import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
-import { assertLibrary } from "./libraries";
+import { assertLibrary, countsFor } from "./libraries";
 import { enqueueRegroup } from "./queue";
 import type { SampleSort, SamplesQuery } from "@/lib/validation/library";
 
@@ -98,9 +98,17 @@ function filtered(k: Knex, studioId: string, libraryId: string, q: Omit<SamplesQ
 export async function listSamples({ studioId, libraryId, query }: { studioId: string; libraryId: string; query: SamplesQuery }): Promise<{ rows: SampleRow[]; total: number; page: number; pageSize: number }> {
   await assertLibrary({ studioId, libraryId });
   const k = db();
-  // the count and the page are independent: run them side by side (two pool connections)
+  // Without filters (or by state alone) the total comes from the library's counters (kept by triggers);
+  // otherwise it is counted. The count and the page are independent: they run side by side.
+  const onlyState = !query.family && !query.articulation && !query.instrument && !query.flag && !query.q;
+  const total$ = onlyState
+    ? countsFor(studioId, [libraryId]).then((m) => {
+        const c = m.get(libraryId)!;
+        return { n: query.state ? c[query.state] : c.total };
+      })
+    : filtered(k, studioId, libraryId, query).count({ n: "*" }).first();
   const [totalRow, rows] = await Promise.all([
-    filtered(k, studioId, libraryId, query).count({ n: "*" }).first(),
+    total$,
     filtered(k, studioId, libraryId, query)
       .leftJoin("instruments as i", function () {
         this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");

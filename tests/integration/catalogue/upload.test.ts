@@ -373,3 +373,20 @@ describe("permissions", () => {
     expect(await db()("activity").where({ action: "library.deleted", subject_id: c.json.id }).first()).toBeDefined();
   });
 });
+
+describe("library counters", () => {
+  it("the trigger-kept counts per library and state equal a fresh COUNT(*) after uploads, measuring, rejections, relabels and deletions", async () => {
+    const actual = (await db()("samples").groupBy("library_id", "state").select("library_id", "state").count({ n: "*" })) as { library_id: string; state: string; n: number | string }[];
+    const kept = (await db()("library_sample_counts").where("n", "<>", 0).select("library_id", "state", "n")) as { library_id: string; state: string; n: number | string }[];
+    const norm = (rows: { library_id: string; state: string; n: number | string }[]) => rows.map((r) => `${r.library_id}/${r.state}=${Number(r.n)}`).sort();
+    expect(actual.length).toBeGreaterThan(0);
+    expect(norm(kept)).toEqual(norm(actual));
+    // and the samples list reports the same totals the counters give
+    const all = await call(samplesRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, user: ctx.users.viewer });
+    const counted = await db()("samples").where({ library_id: libraryId }).count({ n: "*" }).first();
+    expect(all.json.total).toBe(Number(counted!.n));
+    const rejected = await call(samplesRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, path: "/api/test?state=rejected", user: ctx.users.viewer });
+    const countedRejected = await db()("samples").where({ library_id: libraryId, state: "rejected" }).count({ n: "*" }).first();
+    expect(rejected.json.total).toBe(Number(countedRejected!.n));
+  });
+});
