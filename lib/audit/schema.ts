@@ -23,7 +23,8 @@ const family = z.enum(FAMILIES);
 const midi7 = z.number().int().min(0).max(127);
 const channel = z.number().int().min(1).max(16);
 
-const padSchema = z.object({
+/** One pad (lenient object: file import); lib/validation/kit.ts builds the strict API form from its shape. */
+export const padSchema = z.object({
   id,
   label: z.string().max(200),
   row: z.number().int().min(1).max(64).optional(),

@@ -6,6 +6,7 @@ import { AppError, notFound } from "./errors";
 import { hashToken, newId, newToken } from "./ids";
 import { appUrl, sendMail } from "./mail";
 import { logActivity } from "./activity";
+import { sendVerificationMail } from "./auth/accounts";
 import { isRole, type Role } from "@/lib/permissions";
 
 const INVITE_TTL_MS = 7 * 24 * 3600_000;
@@ -158,7 +159,6 @@ export async function acceptInvitation({ token, userId }: { token: string; userI
 export async function acceptInvitationForNewAccount({ token, userId, email }: { token: string; userId: string; email: string }): Promise<{ studioId: string } | null> {
   const view = await viewInvitation(token);
   if (view.state === "pending" && view.email === email) return acceptInvitation({ token, userId });
-  const { sendVerificationMail } = await import("./auth/accounts");
   const u = await db()("users").where({ id: userId }).first("id", "email", "name");
   await sendVerificationMail(u);
   return null;

@@ -3,7 +3,7 @@
 // (kitwright.kit/v1, kitwright.layout/v1), whose own refinements (grid cells, duplicate ids) run on top.
 import { z } from "zod";
 import { ARTICULATIONS, FAMILIES } from "@/lib/catalog/taxonomy";
-import { KIT_SCHEMA, LAYOUT_SCHEMA, kitBodySchema, layoutBodySchema, MAX_GRID_PADS } from "@/lib/audit/schema";
+import { KIT_SCHEMA, LAYOUT_SCHEMA, kitBodySchema, layoutBodySchema, MAX_GRID_PADS, padSchema as auditPadSchema } from "@/lib/audit/schema";
 import { TEMPLATE_NAMES } from "@/lib/audit/templates";
 import { idParam } from "./studio";
 
@@ -48,16 +48,8 @@ export const updateKitSchema = z
   });
 export const copySchema = z.strictObject({ name: name.optional() });
 
-const padSchema = z.strictObject({
-  id: sid,
-  label: z.string().max(200),
-  row: z.number().int().min(1).max(64).optional(),
-  col: z.number().int().min(1).max(64).optional(),
-  zone: z.string().max(200).optional(),
-  note: midi7,
-  channel,
-  target: z.strictObject({ slotId: sid, articulation }).nullable(),
-});
+// the pad's fields as lib/audit/schema.ts defines them, refusing unknown fields here and in the target too
+const padSchema = z.strictObject({ ...auditPadSchema.shape, target: z.strictObject({ slotId: sid, articulation }).nullable() });
 const pedalSchema = z.strictObject({
   controller: z.number().int().min(0).max(119),
   channel,
