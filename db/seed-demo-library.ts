@@ -14,6 +14,7 @@ import { db, closeDb } from "../lib/server/db";
 import { storage } from "../lib/server/storage";
 import { newId } from "../lib/server/ids";
 import { logActivity } from "../lib/server/activity";
+import { insertSamplesWithWords } from "../lib/server/catalogue/words";
 import { sampleKey } from "../lib/server/catalogue/libraries";
 import { enqueueMeasure } from "../lib/server/catalogue/queue";
 import { closeQueues } from "../workers/jobs";
@@ -52,7 +53,7 @@ async function main() {
       const id = newId();
       const key = sampleKey(studio.id, libraryId, id);
       await storage().put(key, new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength));
-      await db()("samples").insert({ id, studio_id: studio.id, library_id: libraryId, rel_path: f.path, path_key: f.path.slice(0, 500), file_name: path.posix.basename(f.path), sha256, size_bytes: bytes.length, storage_key: key, state: "queued", uploaded_by: owner?.id ?? null });
+      await insertSamplesWithWords(db(), [{ id, studio_id: studio.id, library_id: libraryId, rel_path: f.path, path_key: f.path.slice(0, 500), file_name: path.posix.basename(f.path), sha256, size_bytes: bytes.length, storage_key: key, state: "queued", uploaded_by: owner?.id ?? null }]);
       seen.set(sha256, f.path);
       queued.push(id);
     }

@@ -13,6 +13,7 @@ import { db } from "@/lib/server/db";
 import { env } from "@/lib/server/env";
 import { storage } from "@/lib/server/storage";
 import { enqueueMeasure } from "@/lib/server/catalogue/queue";
+import { sweepOrphanWords } from "@/lib/server/catalogue/words";
 
 const HOUR = 3600_000;
 
@@ -56,9 +57,10 @@ export async function requeueStranded({ olderThanMs = 5 * 60_000, now = Date.now
   return rows.length;
 }
 
-export async function runMaintenance(): Promise<{ tokens: number; attempts: number; partials: number; requeued: number }> {
+export async function runMaintenance(): Promise<{ tokens: number; attempts: number; partials: number; requeued: number; orphanWords: number }> {
   const auth = await purgeAuthRows();
   const partials = await sweepPartials({ storageRoot: storage().kind === "local" ? path.resolve(env().KW_STORAGE_DIR) : null });
   const requeued = await requeueStranded();
-  return { ...auth, partials, requeued };
+  const orphanWords = await sweepOrphanWords(db());
+  return { ...auth, partials, requeued, orphanWords };
 }

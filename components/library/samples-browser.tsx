@@ -14,7 +14,7 @@ import { ARTICULATIONS, FAMILIES } from "@/lib/catalog/taxonomy";
 import { MIC_POSITIONS } from "@/lib/catalog/names";
 import type { SampleRow } from "@/lib/server/catalogue/samples";
 
-interface Page { rows: SampleRow[]; total: number; page: number; pageSize: number }
+interface Page { rows: SampleRow[]; total: number; page: number; pageSize: number; search?: "words" | "contains" }
 type Inst = { key: string; name: string; family: string };
 
 const SORTABLE: Record<string, string> = { path: "path", state: "state", family: "family", articulation: "articulation", instrument: "instrument", layer: "layer", rr: "roundRobin", mic: "mic", strike: "strike", truePeak: "truePeak", duration: "duration", confidence: "confidence" };
@@ -117,7 +117,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
       <div className="card flex flex-wrap items-end gap-3 p-3 text-sm" role="search">
         <div>
           <label className="label" htmlFor="f-q">Search paths</label>
-          <input id="f-q" className="field w-56" value={q} onChange={(e) => setQ(e.target.value)} placeholder="e.g. snare/top" />
+          <input id="f-q" className="field w-56" value={q} onChange={(e) => setQ(e.target.value)} placeholder="e.g. snare top rr2" aria-describedby="f-q-hint" title="Finds folder and file names with words starting with each word you type (snare_top, SnareTop and Snare Top all count)" />
         </div>
         <Select id="f-family" label="Family" value={sp.get("family")} options={FAMILIES} onChange={(v) => setParams({ family: v })} />
         <Select id="f-art" label="Articulation" value={sp.get("articulation")} options={ARTICULATIONS} onChange={(v) => setParams({ articulation: v })} />
@@ -163,7 +163,10 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
             </tbody>
           </table>
           <div className="flex flex-wrap items-center justify-between gap-2 border-t border-line px-3 py-2 text-xs">
-            <span><span className="num">{data?.total ?? 0}</span> samples{query.isFetching ? " · updating…" : ""}</span>
+            <span id="f-q-hint">
+              <span className="num">{data?.total ?? 0}</span> samples{query.isFetching ? " · updating…" : ""}
+              {data?.search === "contains" && sp.get("q") && <> · no path word starts with “{sp.get("q")}”, so these are the paths that contain it</>}
+            </span>
             <span className="flex items-center gap-2">
               <button type="button" className="btn-quiet px-2 py-1" disabled={page <= 1} onClick={() => setParams({ page: String(page - 1) }, false)}>← Previous</button>
               <span>page <span className="num">{page}</span> of <span className="num">{pages}</span></span>

@@ -7,6 +7,7 @@ import { newId } from "../ids";
 import { storage } from "../storage";
 import { enqueueRegroup } from "./queue";
 import type { VelocityCurveName } from "@/lib/validation/library";
+import { deleteWordsOfLibrary } from "./words";
 
 export type StateCounts = { queued: number; measuring: number; catalogued: number; rejected: number; total: number };
 
@@ -150,6 +151,7 @@ export async function deleteLibrary({ studioId, actorId, libraryId, confirmName 
   if (confirmName.trim() !== lib.name) throw new AppError("invalid-input", "Type the library's name exactly to confirm deleting it.");
   const count = await db()("samples").where({ studio_id: studioId, library_id: libraryId }).count({ n: "*" }).first();
   await db().transaction(async (trx) => {
+    await deleteWordsOfLibrary(trx, libraryId);
     await trx("libraries").where({ studio_id: studioId, id: libraryId }).delete();
     await logActivity(trx, { studioId, actorId, action: "library.deleted", subjectType: "library", subjectId: libraryId, details: { name: lib.name, samples: Number(count?.n ?? 0) } });
   });

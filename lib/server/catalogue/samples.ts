@@ -7,6 +7,10 @@ import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
 import { assertLibrary, countsFor } from "./libraries";
 import { enqueueRegroup } from "./queue";
+import { countWordMatches, planWords, rowsPerRowExists, searchableByWords, wherePathContains, whereWordsExist, wordMatches, type SearchMode } from "./words";
+
+/** A words search lists up to this many matching ids at once (more are counted, and pages walk an index). */
+const ID_LIST_MAX = 5000;
 import type { SampleSort, SamplesQuery } from "@/lib/validation/library";
 
 export interface SampleRow {
@@ -80,6 +84,7 @@ const LIST_COLS = [
   "s.confirmed_articulation", "s.confirmed_mic", "s.confirmed_instrument_key", "s.size_bytes", "i.name as instrument_name",
 ];
 
+/** The library's samples narrowed by every filter but the search term. */
 function filtered(k: Knex, studioId: string, libraryId: string, q: Omit<SamplesQuery, "page" | "pageSize" | "sort" | "dir">) {
   const b = k("samples as s").where({ "s.studio_id": studioId, "s.library_id": libraryId });
   if (q.state) b.andWhere("s.state", q.state);
@@ -87,29 +92,36 @@ function filtered(k: Knex, studioId: string, libraryId: string, q: Omit<SamplesQ
   if (q.articulation) b.andWhere("s.articulation", q.articulation);
   if (q.instrument) b.andWhere("s.instrument_key", q.instrument);
   if (q.flag === "conflict") b.andWhere("s.conflict", "strong");
-  if (q.q) {
-    const like = `%${q.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    // path_key (the path's first 500 characters) is in an index: the search reads the index, not the rows
-    b.andWhere("s.path_key", "like", like);
-  }
   return b;
 }
 
-export async function listSamples({ studioId, libraryId, query }: { studioId: string; libraryId: string; query: SamplesQuery }): Promise<{ rows: SampleRow[]; total: number; page: number; pageSize: number }> {
+export interface SamplesPage {
+  rows: SampleRow[];
+  total: number;
+  page: number;
+  pageSize: number;
+  /** How a search term was matched: "words" (path words starting with each word typed) or "contains" (the
+   * fallback when no word starts with it, or the term has no letters or digits). */
+  search?: SearchMode;
+}
+
+export async function listSamples({ studioId, libraryId, query }: { studioId: string; libraryId: string; query: SamplesQuery }): Promise<SamplesPage> {
   await assertLibrary({ studioId, libraryId });
+  if (!query.q) return { ...(await pageOf(studioId, libraryId, query, "words")), page: query.page, pageSize: query.pageSize };
+  let mode: SearchMode = searchableByWords(query.q) ? "words" : "contains";
+  let found = await pageOf(studioId, libraryId, query, mode);
+  if (found.total === 0 && mode === "words") {
+    mode = "contains";
+    found = await pageOf(studioId, libraryId, query, mode);
+  }
+  return { ...found, page: query.page, pageSize: query.pageSize, search: mode };
+}
+
+async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, mode: SearchMode): Promise<{ rows: SampleRow[]; total: number }> {
   const k = db();
-  // Without filters (or by state alone) the total comes from the library's counters (kept by triggers);
-  // otherwise it is counted. The count and the page are independent: they run side by side.
-  const onlyState = !query.family && !query.articulation && !query.instrument && !query.flag && !query.q;
-  const total$ = onlyState
-    ? countsFor(studioId, [libraryId]).then((m) => {
-        const c = m.get(libraryId)!;
-        return { n: query.state ? c[query.state] : c.total };
-      })
-    : filtered(k, studioId, libraryId, query).count({ n: "*" }).first();
-  const [totalRow, rows] = await Promise.all([
-    total$,
-    filtered(k, studioId, libraryId, query)
+  const base = () => filtered(k, studioId, libraryId, query);
+  const page = (b: Knex.QueryBuilder) =>
+    b
       .leftJoin("instruments as i", function () {
         this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");
       })
@@ -119,10 +131,55 @@ export async function listSamples({ studioId, libraryId, query }: { studioId: st
       .orderBy("s.id", query.dir)
       .limit(query.pageSize)
       .offset((query.page - 1) * query.pageSize)
-      .select(LIST_COLS),
-  ]);
-  const total = Number(totalRow?.n ?? 0);
-  return { rows: rows.map(toRow), total, page: query.page, pageSize: query.pageSize };
+      .select(LIST_COLS);
+  const otherFilters = !!(query.family || query.articulation || query.instrument || query.flag || query.state);
+
+  if (!query.q || mode === "contains") {
+    // Without filters (or by state alone) the total comes from the library's counters (kept by triggers);
+    // otherwise it is counted. The count and the page are independent: they run side by side.
+    const narrowed = () => {
+      const b = base();
+      if (query.q) wherePathContains(b, query.q);
+      return b;
+    };
+    const total$ = !query.q && !query.family && !query.articulation && !query.instrument && !query.flag
+      ? countsFor(studioId, [libraryId]).then((m) => {
+          const c = m.get(libraryId)!;
+          return { n: query.state ? c[query.state] : c.total };
+        })
+      : narrowed().count({ n: "*" }).first();
+    const [totalRow, rows] = await Promise.all([total$, page(narrowed())]);
+    return { rows: rows.map(toRow), total: Number(totalRow?.n ?? 0) };
+  }
+
+  // Search by path words: the count reads the word index only (joined to the sample rows for other filters).
+  const plan = await planWords(k, libraryId, query.q);
+  let total: number;
+  let ids: string[] | null = null;
+  if (otherFilters) {
+    total = Number((await base().join(wordMatches(k, plan).as("m"), "m.sample_id", "s.id").count({ n: "*" }).first())?.n ?? 0);
+  } else if (!plan.distinct) {
+    total = Number((await countWordMatches(k, plan).first())?.n ?? 0);
+  } else {
+    // a few thousand matches are listed (then counted in hand); beyond that they are counted
+    ids = ((await wordMatches(k, plan, ID_LIST_MAX + 1)) as { sample_id: string }[]).map((r) => r.sample_id);
+    if (ids.length > ID_LIST_MAX) ids = null;
+    total = ids ? ids.length : Number((await countWordMatches(k, plan).first())?.n ?? 0);
+  }
+  if (!total) return { rows: [], total };
+  // Then the page, by whichever way reads fewer rows: walking the sort column's index and checking each row's
+  // words (about page end x library size / matches rows: best when many match), or fetching every match and
+  // sorting them (best when few match). The planner cannot know how many words match, we do.
+  const libraryTotal = (await countsFor(studioId, [libraryId])).get(libraryId)!.total;
+  const walk = (query.page * query.pageSize * libraryTotal) / total;
+  let rows: Record<string, unknown>[];
+  if (walk < total) {
+    const b = base();
+    whereWordsExist(k, b, libraryId, query.q);
+    rows = await rowsPerRowExists(k, page(b));
+  } else if (ids) rows = await page(base().whereIn("s.id", ids));
+  else rows = await page(base().join(wordMatches(k, plan).as("m"), "m.sample_id", "s.id"));
+  return { rows: rows.map(toRow), total };
 }
 
 export async function getSample({ studioId, libraryId, sampleId }: { studioId: string; libraryId: string; sampleId: string }) {

@@ -21,6 +21,7 @@ import { newId } from "../ids";
 import { storage } from "../storage";
 import { assertLibrary, sampleKey } from "./libraries";
 import { enqueueMeasure } from "./queue";
+import { deleteWordsOfSamples, insertSamplesWithWords } from "./words";
 
 export type UploadStatus = "queued" | "duplicate" | "refused";
 export interface UploadFileResult {
@@ -156,7 +157,7 @@ async function storeWav(ctx: Ctx, src: Readable, relPath: string, drain: () => v
       return;
     }
     try {
-      await db()("samples").insert({
+      await insertSamplesWithWords(db(), [{
         id: sampleId,
         studio_id: ctx.studioId,
         library_id: ctx.libraryId,
@@ -168,7 +169,7 @@ async function storeWav(ctx: Ctx, src: Readable, relPath: string, drain: () => v
         storage_key: key,
         state: "queued",
         uploaded_by: ctx.userId,
-      });
+      }]);
     } catch (e) {
       if ((e as { errno?: number }).errno === 1062) {
         await storage().delete(key);
@@ -378,7 +379,10 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   // answer for only part of the batch, take back what this request stored and refuse it whole.
   if (failed && ctx.queued.length) {
     const ids = ctx.queued.map((q) => q.sampleId);
-    await db()("samples").where({ studio_id: studioId, library_id: libraryId }).whereIn("id", ids).delete();
+    await db().transaction(async (trx) => {
+      await deleteWordsOfSamples(trx, libraryId, ids);
+      await trx("samples").where({ studio_id: studioId, library_id: libraryId }).whereIn("id", ids).delete();
+    });
     await Promise.all(ids.map((id) => storage().delete(sampleKey(studioId, libraryId, id)).catch(() => undefined)));
   }
   if (failed) {
