@@ -70,7 +70,7 @@ export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBy
   const server =
     via === "next"
       ? spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-p", String(port), "-H", "127.0.0.1"], { env: { ...env, NODE_ENV: "production" }, stdio: ["ignore", "pipe", "pipe"] })
-      : spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "tests/faults/serve.ts", "--port", String(port)], { env, stdio: ["ignore", "pipe", "pipe"] });
+      : spawn(process.execPath, [...(process.env.KW_BENCH_CPU_PROF ? ["--cpu-prof", `--cpu-prof-dir=${process.env.KW_BENCH_CPU_PROF}`] : []), "--conditions=react-server", "--import", "tsx", "tests/faults/serve.ts", "--port", String(port)], { env, stdio: ["ignore", "pipe", "pipe"] });
   const ready = () => (via === "next" ? /Ready in/.test(log.join("")) : log.join("").includes("[serve] listening"));
   server.stdout!.on("data", (d) => log.push(String(d)));
   server.stderr!.on("data", (d) => log.push(String(d)));
@@ -126,8 +126,9 @@ export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBy
     return { bytes: r.bytes, files: count, seconds, mbPerSec: r.bytes / 1024 ** 2 / seconds, rssIdleMb: idle / 1024, rssPeakMb: peak / 1024, rssGrowthMb: (peak - idle) / 1024, status: r.status, queued: counts.queued ?? 0, refused: counts.refused ?? 0, duplicate: counts.duplicate ?? 0 };
   } finally {
     server.kill("SIGTERM");
-    await new Promise((r) => setTimeout(r, 500));
+    for (let i = 0; i < 50 && server.exitCode === null; i++) await new Promise((r) => setTimeout(r, 100));
     if (server.exitCode === null) server.kill("SIGKILL");
+    await k("sample_words").where({ library_id: libraryId }).delete().catch(() => undefined); // no foreign key (migration 0009)
     await k("libraries").where({ id: libraryId }).delete().catch(() => undefined);
     await k.destroy();
     fs.rmSync(scratch, { recursive: true, force: true });

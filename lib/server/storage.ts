@@ -12,6 +12,9 @@ import { DeleteObjectCommand, DeleteObjectsCommand, GetObjectCommand, HeadObject
 import os from "node:os";
 import { env } from "./env";
 
+/** Bytes a file write may buffer ahead of the disk. */
+const WRITE_BUFFER = 1024 * 1024;
+
 /** Byte range, both ends inclusive (as in HTTP Range). */
 export interface ByteRange { start: number; end: number }
 
@@ -60,7 +63,9 @@ export class LocalStorage implements Storage {
     const src = body instanceof Uint8Array ? Readable.from([Buffer.from(body.buffer, body.byteOffset, body.byteLength)]) : body;
     src.on("data", (c: Buffer) => (bytes += c.length));
     try {
-      await pipeline(src, fs.createWriteStream(tmp));
+      // a 1 MB buffer lets the next chunks arrive while one is being written (16 KB made the upload wait on
+      // every disk write in turn)
+      await pipeline(src, fs.createWriteStream(tmp, { highWaterMark: WRITE_BUFFER }));
       await fsp.rename(tmp, target);
     } catch (e) {
       await fsp.rm(tmp, { force: true });

@@ -122,6 +122,25 @@ describe("uploads", () => {
     expect(Number(after!.n)).toBe(Number(before!.n));
   });
 
+  it("two uploads of the same new files at once: each file is stored once, the other copy is a duplicate", async () => {
+    // the files are recorded in batches; a batch that meets a row another request wrote meanwhile (unique
+    // library + hash) is recorded again file by file, so each file still gets its own outcome
+    const files = Array.from({ length: 40 }, (_, i) => ({ name: `Race/race_${i}.wav`, data: hitWav(9000 + i, { freq: 100 + i }) }));
+    const [a, b] = await Promise.all([upload(files), upload(files.map((f) => ({ ...f, name: f.name.replace("Race/", "Race2/") })))]);
+    expect(a.status).toBe(201);
+    expect(b.status).toBe(201);
+    for (let i = 0; i < files.length; i++) {
+      const pair = [a.json.files[i], b.json.files[i]].map((f: { status: string }) => f.status).sort();
+      expect(pair, `file ${i}: ${JSON.stringify([a.json.files[i], b.json.files[i]])}`).toEqual(["duplicate", "queued"]);
+    }
+    const rows = await db()("samples").where({ library_id: libraryId }).where("rel_path", "like", "Race%").select("id", "storage_key", "size_bytes");
+    expect(rows).toHaveLength(files.length);
+    for (const row of rows) expect(fs.statSync(path.resolve(env().KW_STORAGE_DIR, row.storage_key)).size).toBe(Number(row.size_bytes));
+    // every recorded sample has its path words (searchable), and nothing else was written
+    const words = await db()("sample_words").whereIn("sample_id", rows.map((r) => r.id)).countDistinct({ n: "sample_id" }).first();
+    expect(Number(words!.n)).toBe(files.length);
+  });
+
   it("reads zip packs: WAV entries land, escaping paths and other files are refused", async () => {
     const zip = zipOf([
       { name: "Toms/tom_hi_v1.wav", data: hitWav(10, { freq: 220 }) },
