@@ -20,7 +20,8 @@ if [ "$BUILD" = 1 ] || [ ! -f .next/BUILD_ID ]; then log "building the app"; npx
 
 stop_pidfile "$KW_RUN/app.pid"; stop_pidfile "$KW_RUN/worker.pid"
 nohup node node_modules/next/dist/bin/next start -p "$KW_APP_PORT" -H 127.0.0.1 >"$KW_RUN/app.log" 2>&1 & echo $! >"$KW_RUN/app.pid"
-nohup node --conditions=react-server --import tsx workers/main.ts >"$KW_RUN/worker.log" 2>&1 & echo $! >"$KW_RUN/worker.pid"
+# lower priority than the web server: people's requests first, measuring in the gaps (the queue holds the rest)
+nohup nice -n 10 node --conditions=react-server --import tsx workers/main.ts >"$KW_RUN/worker.log" 2>&1 & echo $! >"$KW_RUN/worker.pid"
 for _ in $(seq 1 100); do curl -fsS "http://127.0.0.1:$KW_APP_PORT/api/health" >/dev/null 2>&1 && break; sleep 0.3; done
 curl -fsS "http://127.0.0.1:$KW_APP_PORT/api/health" >/dev/null || { log "the app did not become healthy; see $KW_RUN/app.log"; tail -20 "$KW_RUN/app.log"; exit 1; }
 

@@ -30,9 +30,20 @@ export const measureJobId = (sampleId: string) => `measure:${sampleId}:${MEASURE
 
 /** Regroups are debounced per library: all requests inside one window share one job, run after it closes. */
 export const REGROUP_WINDOW_MS = 1500;
-export function regroupJob(libraryId: string, now = Date.now()): { jobId: string; delay: number } {
-  const bucket = Math.floor(now / REGROUP_WINDOW_MS);
-  return { jobId: `regroup-${libraryId}-${bucket}`, delay: (bucket + 1) * REGROUP_WINDOW_MS - now + 100 };
+export function regroupJob(libraryId: string, now = Date.now(), windowMs = REGROUP_WINDOW_MS): { jobId: string; delay: number } {
+  const bucket = Math.floor(now / windowMs);
+  return { jobId: `regroup-${libraryId}-${windowMs}-${bucket}`, delay: (bucket + 1) * windowMs - now + 100 };
+}
+
+/**
+ * The window regroup requests of a library share, from how long its last regroup took (in this process): at
+ * least REGROUP_WINDOW_MS, and four times the last regroup's duration (rounded up to whole base windows, at most
+ * a minute), so regroups of a large library being measured take at most about a quarter of the worker's time
+ * and measuring is not starved (a 4,700-sample library takes about 2 s to regroup here).
+ */
+export function regroupWindowMs(lastRegroupMs: number | undefined): number {
+  const want = Math.ceil((4 * (lastRegroupMs ?? 0)) / REGROUP_WINDOW_MS) * REGROUP_WINDOW_MS;
+  return Math.min(60_000, Math.max(REGROUP_WINDOW_MS, want));
 }
 
 const connection = () => ({ url: env().KW_REDIS_URL, maxRetriesPerRequest: null });

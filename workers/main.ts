@@ -8,6 +8,7 @@ import { env } from "@/lib/server/env";
 import { closeDb } from "@/lib/server/db";
 import { measureSample, rejectSample, RetryableMeasureError } from "@/lib/server/catalogue/measure";
 import { regroupLibrary } from "@/lib/server/catalogue/regroup";
+import { noteRegroupDuration } from "@/lib/server/catalogue/queue";
 import { closeQueues, JOBS, MAINTENANCE_QUEUE, maintenanceQueue, MEASURE_QUEUE, REGROUP_QUEUE, type MeasureJobData, type RegroupJobData } from "./jobs";
 import { runMaintenance } from "./maintenance";
 import { MeasurePool } from "./measure-pool";
@@ -50,7 +51,12 @@ async function main() {
 
   const regroup = new Worker<RegroupJobData>(
     REGROUP_QUEUE,
-    async (job: Job<RegroupJobData>) => regroupLibrary(job.data),
+    async (job: Job<RegroupJobData>) => {
+      const t0 = performance.now();
+      const out = await regroupLibrary(job.data);
+      noteRegroupDuration(job.data.libraryId, performance.now() - t0);
+      return out;
+    },
     { connection, concurrency: 1, ...lockOpts, lockDuration: 60_000 },
   );
   regroup.on("failed", (job, err) => console.error(`[worker] regroup ${job?.data.libraryId} failed: ${err.message}`));

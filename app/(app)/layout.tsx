@@ -2,13 +2,12 @@
 import Link from "next/link";
 import { Wordmark } from "@/components/logo";
 import { StudioSwitcher, SignOutButton } from "@/components/app-header";
-import { currentUser } from "@/lib/server/session";
-import { listStudiosForUser } from "@/lib/server/studios";
+import { currentUser, myStudios } from "@/lib/server/session";
 import { env } from "@/lib/server/env";
 
 export default async function AppLayout({ children }: { children: React.ReactNode }) {
   const user = await currentUser();
-  const studios = user ? await listStudiosForUser(user.id) : [];
+  const studios = user ? await myStudios(user.id) : [];
   const mailFake = !!env().KW_MAIL_FAKE_DIR;
   return (
     <div className="min-h-screen">

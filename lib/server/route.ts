@@ -8,9 +8,9 @@ import { getToken } from "next-auth/jwt";
 import { z } from "zod";
 import { env } from "./env";
 import { AppError, forbidden, notFound, toErrorBody } from "./errors";
-import { findUserById } from "./auth/accounts";
-import { getMembershipRole } from "./studios";
-import { can, type Permission, type Role } from "@/lib/permissions";
+import { db } from "./db";
+import { can, isRole, type Permission, type Role } from "@/lib/permissions";
+import type { Knex } from "knex";
 
 export const MAX_JSON_BYTES = 256 * 1024;
 
@@ -95,11 +95,21 @@ async function readJson(req: NextRequest): Promise<unknown> {
 }
 
 export async function sessionUser(req: NextRequest): Promise<{ id: string; email: string; name: string } | null> {
+  return (await sessionUserWithRole(req, null))?.user ?? null;
+}
+
+/** The signed-in user and, when a studio is named, their role in it: one query for both. */
+async function sessionUserWithRole(req: NextRequest, studioId: string | null): Promise<{ user: { id: string; email: string; name: string }; role: string | null } | null> {
   const e = env();
   const token = await getToken({ req, secret: e.NEXTAUTH_SECRET, secureCookie: e.KW_APP_URL.startsWith("https://") });
   if (!token?.uid) return null;
-  const u = await findUserById(token.uid);
-  return u ? { id: u.id, email: u.email, name: u.name } : null;
+  const q = db()("users as u").where("u.id", token.uid);
+  if (studioId)
+    q.leftJoin("memberships as m", function (this: Knex.JoinClause) {
+      this.on("m.user_id", "u.id").andOnVal("m.studio_id", studioId);
+    });
+  const r = await q.first(["u.id", "u.email", "u.name", studioId ? "m.role" : db().raw("NULL as role")]);
+  return r ? { user: { id: r.id, email: r.email, name: r.name }, role: r.role ?? null } : null;
 }
 
 export function route<A extends Access, PS extends AnySchema | undefined = undefined, QS extends AnySchema | undefined = undefined, BS extends AnySchema | undefined = undefined>(
@@ -112,17 +122,20 @@ export function route<A extends Access, PS extends AnySchema | undefined = undef
       const rawParams = (await ctx?.params) ?? {};
       let user: Ctx<unknown, unknown, unknown>["user"] = null;
       let studio: Ctx<unknown, unknown, unknown>["studio"] = null;
+      const studioId = spec.access.kind === "studio" && typeof rawParams.studioId === "string" && /^[0-9a-f-]{36}$/i.test(rawParams.studioId) ? rawParams.studioId : null;
+      let role: string | null = null;
       if (spec.access.kind !== "public") {
-        user = await sessionUser(req);
-        if (!user) throw new AppError("unauthenticated", "Sign in first.");
+        const who = await sessionUserWithRole(req, studioId);
+        if (!who) throw new AppError("unauthenticated", "Sign in first.");
+        user = who.user;
+        role = who.role;
       }
       if (spec.access.kind === "studio") {
-        const studioId = typeof rawParams.studioId === "string" ? rawParams.studioId : "";
-        const role = /^[0-9a-f-]{36}$/i.test(studioId) ? await getMembershipRole({ studioId, userId: user!.id }) : null;
         // Not a member: the studio's existence is not admitted (404, not 403).
-        if (!role) throw notFound("The studio");
-        if (!can(role, spec.access.permission)) throw forbidden();
-        studio = { id: studioId, role };
+        const r = role && isRole(role) ? role : null;
+        if (!studioId || !r) throw notFound("The studio");
+        if (!can(r, spec.access.permission)) throw forbidden();
+        studio = { id: studioId, role: r };
       }
       const params = parseWith(spec.params, rawParams, "params");
       const query = parseWith(spec.query, Object.fromEntries(req.nextUrl.searchParams), "query");

@@ -1,19 +1,25 @@
 import "server-only";
 // Session helpers for server components: who is signed in, and their role in a studio (read from the
 // database on every request). Pages call these; route handlers use lib/server/route.ts.
+// Each is wrapped in React's cache(): the layouts and the page of one request share one session decode, one
+// user row and one list of the user's studios (with roles), instead of each asking again.
+import { cache } from "react";
 import { getServerSession } from "next-auth";
 import { notFound, redirect } from "next/navigation";
 import { authOptions } from "./auth/options";
 import { findUserById } from "./auth/accounts";
-import { getMembershipRole, getStudio } from "./studios";
+import { listStudiosForUser, type StudioSummary } from "./studios";
 import type { Role } from "@/lib/permissions";
 
-export async function currentUser(): Promise<{ id: string; email: string; name: string } | null> {
+export const currentUser = cache(async (): Promise<{ id: string; email: string; name: string } | null> => {
   const s = await getServerSession(authOptions());
   if (!s?.user?.id) return null;
   const u = await findUserById(s.user.id);
   return u ? { id: u.id, email: u.email, name: u.name } : null;
-}
+});
+
+/** The user's studios with their role in each (one query per request). */
+export const myStudios = cache((userId: string): Promise<StudioSummary[]> => listStudiosForUser(userId));
 
 export async function requireUser(next?: string) {
   const u = await currentUser();
@@ -25,9 +31,7 @@ export async function requireUser(next?: string) {
 export async function requireStudio(studioId: string): Promise<{ user: { id: string; email: string; name: string }; studio: { id: string; name: string; role: Role } }> {
   const user = await requireUser(`/s/${studioId}`);
   if (!/^[0-9a-f-]{36}$/i.test(studioId)) notFound();
-  const role = await getMembershipRole({ studioId, userId: user.id });
-  if (!role) notFound();
-  const s = await getStudio({ studioId });
+  const s = (await myStudios(user.id)).find((x) => x.id === studioId);
   if (!s) notFound();
-  return { user, studio: { id: s.id, name: s.name, role } };
+  return { user, studio: { id: s.id, name: s.name, role: s.role } };
 }
