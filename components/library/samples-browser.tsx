@@ -118,6 +118,11 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
         <div>
           <label className="label" htmlFor="f-q">Search paths</label>
           <input id="f-q" className="field w-56" value={q} onChange={(e) => setQ(e.target.value)} placeholder="e.g. snare top rr2" aria-describedby="f-q-hint" title="Finds folder and file names with words starting with each word you type (snare_top, SnareTop and Snare Top all count)" />
+          {data?.search === "contains" && sp.get("q") && (
+            <p id="f-q-hint" className="mt-1 max-w-56 text-xs text-muted">
+              {data.total > 0 ? <>No path word starts with “{sp.get("q")}”: showing paths that contain it.</> : <>No path holds “{sp.get("q")}”.</>}
+            </p>
+          )}
         </div>
         <Select id="f-family" label="Family" value={sp.get("family")} options={FAMILIES} onChange={(v) => setParams({ family: v })} />
         <Select id="f-art" label="Articulation" value={sp.get("articulation")} options={ARTICULATIONS} onChange={(v) => setParams({ articulation: v })} />
@@ -163,10 +168,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
             </tbody>
           </table>
           <div className="flex flex-wrap items-center justify-between gap-2 border-t border-line px-3 py-2 text-xs">
-            <span id="f-q-hint">
-              <span className="num">{data?.total ?? 0}</span> samples{query.isFetching ? " · updating…" : ""}
-              {data?.search === "contains" && sp.get("q") && <> · no path word starts with “{sp.get("q")}”, so these are the paths that contain it</>}
-            </span>
+            <span><span className="num">{data?.total ?? 0}</span> samples{query.isFetching ? " · updating…" : ""}</span>
             <span className="flex items-center gap-2">
               <button type="button" className="btn-quiet px-2 py-1" disabled={page <= 1} onClick={() => setParams({ page: String(page - 1) }, false)}>← Previous</button>
               <span>page <span className="num">{page}</span> of <span className="num">{pages}</span></span>

@@ -80,6 +80,17 @@ describe("library in the browser", () => {
     expect(await page.getByTestId("samples-table").textContent()).toContain("Session A/Kick/kick_v1_rr1.wav");
     await screenshot(page, "library-catalogued");
 
+    // search by path words (kick + rr2: 3 files), then a word's middle falls back to "contains", then cleared
+    await page.getByLabel("Search paths").fill("kick rr2");
+    await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(3);
+    expect(await page.getByTestId("samples-table").textContent()).toContain("kick_v2_rr2.wav");
+    await page.getByLabel("Search paths").fill("nare_v3");
+    await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(2);
+    expect(await page.locator("#f-q-hint").textContent()).toMatch(/No path word starts with “nare_v3”: showing paths that contain it/);
+    await screenshot(page, "library-search-contains");
+    await page.getByLabel("Search paths").fill("");
+    await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(12);
+
     // bulk relabel: the snares become rim shots (sorted by path: the 6 snares come after the 6 kicks)
     await page.getByLabel("Family", { exact: true }).selectOption("snare");
     await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(6);
