@@ -3,6 +3,9 @@
 // process, against the bench database, a Redis database of its own and a scratch storage folder). The body is
 // produced on the fly (never held in memory); the server's resident memory is sampled from /proc every 100 ms.
 // Reports MB/s (bytes sent / time to the response) and the server's RSS growth over its idle, warmed-up RSS.
+// Diagnostics for the plain-server run: KW_BENCH_CPU_PROF=<dir> (a CPU profile), KW_BENCH_TRACE_GC=1 with
+// KW_BENCH_SERVER_LOG=<file> (V8's --trace-gc lines: the RSS growth is heap awaiting a mark-compact, see
+// bench/RESULTS.md finding 8).
 import { spawn } from "node:child_process";
 import crypto from "node:crypto";
 import fs from "node:fs";
@@ -70,9 +73,10 @@ export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBy
   const server =
     via === "next"
       ? spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-p", String(port), "-H", "127.0.0.1"], { env: { ...env, NODE_ENV: "production" }, stdio: ["ignore", "pipe", "pipe"] })
-      : spawn(process.execPath, [...(process.env.KW_BENCH_CPU_PROF ? ["--cpu-prof", `--cpu-prof-dir=${process.env.KW_BENCH_CPU_PROF}`] : []), "--conditions=react-server", "--import", "tsx", "tests/faults/serve.ts", "--port", String(port)], { env, stdio: ["ignore", "pipe", "pipe"] });
+      : spawn(process.execPath, [...(process.env.KW_BENCH_CPU_PROF ? ["--cpu-prof", `--cpu-prof-dir=${process.env.KW_BENCH_CPU_PROF}`] : []), ...(process.env.KW_BENCH_TRACE_GC ? ["--trace-gc"] : []), "--conditions=react-server", "--import", "tsx", "tests/faults/serve.ts", "--port", String(port)], { env, stdio: ["ignore", "pipe", "pipe"] });
   const ready = () => (via === "next" ? /Ready in/.test(log.join("")) : log.join("").includes("[serve] listening"));
   server.stdout!.on("data", (d) => log.push(String(d)));
+  if (process.env.KW_BENCH_SERVER_LOG) server.stdout!.pipe(fs.createWriteStream(process.env.KW_BENCH_SERVER_LOG));
   server.stderr!.on("data", (d) => log.push(String(d)));
   try {
     for (let i = 0; i < 300 && !ready(); i++) await new Promise((r) => setTimeout(r, 100));
