@@ -117,7 +117,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
       <div className="card flex flex-wrap items-end gap-3 p-3 text-sm" role="search">
         <div>
           <label className="label" htmlFor="f-q">Search paths</label>
-          <input id="f-q" className="field w-56" value={q} onChange={(e) => setQ(e.target.value)} placeholder="e.g. snare top rr2" aria-describedby="f-q-hint" title="Finds folder and file names with words starting with each word you type (snare_top, SnareTop and Snare Top all count)" />
+          <input id="f-q" className="field w-56" value={q} onChange={(e) => setQ(e.target.value)} placeholder="e.g. snare top rr2" aria-describedby="f-q-hint" title="Finds folder and file names with words starting with each word you type, up to 8 words (snare_top, SnareTop and Snare Top all count)" />
           {data?.search === "contains" && sp.get("q") && (
             <p id="f-q-hint" className="mt-1 max-w-56 text-xs text-muted">
               {data.total > 0 ? <>No path word starts with “{sp.get("q")}”: showing paths that contain it.</> : <>No path holds “{sp.get("q")}”.</>}

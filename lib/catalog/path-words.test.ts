@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { WORDS_MAX, WORD_MAX, pathWords, searchRuns } from "./path-words";
+import { SEARCH_RUNS_MAX, WORDS_MAX, WORD_MAX, pathWords, searchRuns } from "./path-words";
 
 // A sample matches a search when every run of the term starts one of its words (the rule in path-words.ts).
 const matches = (path: string, term: string) => {
@@ -35,6 +35,8 @@ describe("pathWords", () => {
     expect(Math.max(...words.map((w) => w.length))).toBeLessThanOrEqual(WORD_MAX);
     expect(pathWords("___---...")).toEqual([]);
     expect(searchRuns("%_\\")).toEqual([]);
+    // a term of 60 words uses its first 8 distinct ones (each word is a join or a check in the query)
+    expect(searchRuns(Array.from({ length: 60 }, (_, i) => `w${i % 30}`).join(" "))).toEqual(Array.from({ length: SEARCH_RUNS_MAX }, (_, i) => `w${i}`));
   });
 
   it("finds what a person types: word starts, glued words, several words in any order", () => {

@@ -13,6 +13,7 @@
 // "sna", "top", "rr2", "snaretop", "snare_top" and "rim v3" all find the file above.
 export const WORD_MAX = 40; // characters kept of a word (and of a search run); longer words match on their start
 export const WORDS_MAX = 64; // words kept per path (a 1,000-character path does not make 500 index rows)
+export const SEARCH_RUNS_MAX = 8; // words of a search term used (each is one more index read per candidate)
 
 const RUN = /[\p{L}\p{N}]+/gu;
 // a boundary inside a run: letter|digit, digit|letter, lower|Upper, and UPPER|Upperlower ("OHMic" -> OH|Mic)
@@ -39,7 +40,10 @@ export function pathWords(path: string): string[] {
   return [...out];
 }
 
-/** The runs of a search term, folded, each cut to WORD_MAX; empty when the term has no letters or digits. */
+/**
+ * The runs of a search term, folded, each cut to WORD_MAX, the first SEARCH_RUNS_MAX distinct ones; empty when
+ * the term has no letters or digits.
+ */
 export function searchRuns(term: string): string[] {
-  return [...new Set(runsOf(term).map((r) => r.toLowerCase().slice(0, WORD_MAX)))];
+  return [...new Set(runsOf(term).map((r) => r.toLowerCase().slice(0, WORD_MAX)))].slice(0, SEARCH_RUNS_MAX);
 }
