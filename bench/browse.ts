@@ -86,6 +86,7 @@ async function main() {
     { name: "search page (q=rr2: a quarter of the rows match)", qs: "?q=rr2" },
     { name: "search page (q=snare rr2 v3: two words and a prefix)", qs: "?q=snare%20rr2%20v3" },
     { name: "search page (q=00012: 10 rows match)", qs: "?q=00012" },
+    { name: "search page (q=tom: one family, its rows together late in path order)", qs: "?q=tom" },
     { name: "search page (q=nare: no word starts so, falls back to path contains)", qs: "?q=nare" },
   ];
   const out: { name: string; qs: string; total: number; p50: number; p95: number; max: number; n: number }[] = [];

@@ -20,6 +20,11 @@ const RUN = /[\p{L}\p{N}]+/gu;
 // (letters without case, as in kana or CJK, stay together)
 const PART = /\p{Lu}+(?=\p{Lu}\p{Ll})|\p{Lu}?\p{Ll}+|\p{Lu}+|\p{N}+|[^\p{Lu}\p{Ll}\p{N}]+/gu;
 
+/** Case- and accent-folded text (NFKD, combining marks dropped, lower case): both sides of every comparison. */
+export function foldText(s: string): string {
+  return s.normalize("NFKD").replace(/\p{M}+/gu, "").toLowerCase();
+}
+
 function runsOf(s: string): string[] {
   // accents are dropped before the runs are found, so "é" does not split a word in two
   return s.normalize("NFKD").replace(/\p{M}+/gu, "").match(RUN) ?? [];

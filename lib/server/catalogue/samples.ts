@@ -7,10 +7,12 @@ import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
 import { assertLibrary, countsFor } from "./libraries";
 import { enqueueRegroup } from "./queue";
-import { countWordMatches, planWords, rowsPerRowExists, searchableByWords, wherePathContains, whereWordsExist, wordMatches, type SearchMode } from "./words";
+import { countWordMatches, pathContainsMatches, planWords, rowsCapped, searchableByWords, wherePathContains, whereWordsExist, wordMatches, type SearchMode } from "./words";
 
 /** A words search lists up to this many matching ids at once (more are counted, and pages walk an index). */
 const ID_LIST_MAX = 5000;
+/** Rows a page walk may read before it gives way to fetching the matches (about 35 ms here). */
+const WALK_ROWS = 4000;
 import type { SampleSort, SamplesQuery } from "@/lib/validation/library";
 
 export interface SampleRow {
@@ -134,52 +136,77 @@ async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, 
       .select(LIST_COLS);
   const otherFilters = !!(query.family || query.articulation || query.instrument || query.flag || query.state);
 
-  if (!query.q || mode === "contains") {
+  if (!query.q) {
     // Without filters (or by state alone) the total comes from the library's counters (kept by triggers);
     // otherwise it is counted. The count and the page are independent: they run side by side.
-    const narrowed = () => {
-      const b = base();
-      if (query.q) wherePathContains(b, query.q);
-      return b;
-    };
-    const total$ = !query.q && !query.family && !query.articulation && !query.instrument && !query.flag
+    const total$ = !query.family && !query.articulation && !query.instrument && !query.flag
       ? countsFor(studioId, [libraryId]).then((m) => {
           const c = m.get(libraryId)!;
           return { n: query.state ? c[query.state] : c.total };
         })
-      : narrowed().count({ n: "*" }).first();
-    const [totalRow, rows] = await Promise.all([total$, page(narrowed())]);
+      : base().count({ n: "*" }).first();
+    const [totalRow, rows] = await Promise.all([total$, page(base())]);
     return { rows: rows.map(toRow), total: Number(totalRow?.n ?? 0) };
   }
 
-  // Search by path words: the count reads the word index only (joined to the sample rows for other filters).
-  const plan = await planWords(k, libraryId, query.q);
+  // A search. First how many match; then a way to walk (the sort column's index, each row checked) and a way to
+  // fetch (every match, then sorted).
+  const q = query.q;
   let total: number;
-  let ids: string[] | null = null;
-  if (otherFilters) {
-    total = Number((await base().join(wordMatches(k, plan).as("m"), "m.sample_id", "s.id").count({ n: "*" }).first())?.n ?? 0);
-  } else if (!plan.distinct) {
-    total = Number((await countWordMatches(k, plan).first())?.n ?? 0);
+  let walkRows: () => Knex.QueryBuilder;
+  let fetchRows: () => Knex.QueryBuilder;
+  let examinedPerRow = 1;
+  if (mode === "contains") {
+    // the folded paths are read from their own index (the count and the fetch)
+    total = Number(
+      (otherFilters
+        ? await base().join(pathContainsMatches(k, studioId, libraryId, q), "m.id", "s.id").count({ n: "*" }).first()
+        : await k.from(pathContainsMatches(k, studioId, libraryId, q)).count({ n: "*" }).first()
+      )?.n ?? 0,
+    );
+    walkRows = () => {
+      const b = base();
+      wherePathContains(b, q);
+      return b;
+    };
+    fetchRows = () => base().join(pathContainsMatches(k, studioId, libraryId, q), "m.id", "s.id");
   } else {
-    // a few thousand matches are listed (then counted in hand); beyond that they are counted
-    ids = ((await wordMatches(k, plan, ID_LIST_MAX + 1)) as { sample_id: string }[]).map((r) => r.sample_id);
-    if (ids.length > ID_LIST_MAX) ids = null;
-    total = ids ? ids.length : Number((await countWordMatches(k, plan).first())?.n ?? 0);
+    // path words: the count reads the word index only (joined to the sample rows for other filters)
+    const plan = await planWords(k, libraryId, q);
+    let ids: string[] | null = null;
+    if (otherFilters) {
+      total = Number((await base().join(wordMatches(k, plan).as("m"), "m.sample_id", "s.id").count({ n: "*" }).first())?.n ?? 0);
+    } else if (!plan.distinct) {
+      total = Number((await countWordMatches(k, plan).first())?.n ?? 0);
+    } else {
+      // a few thousand matches are listed (then counted in hand); beyond that they are counted
+      ids = ((await wordMatches(k, plan, ID_LIST_MAX + 1)) as { sample_id: string }[]).map((r) => r.sample_id);
+      if (ids.length > ID_LIST_MAX) ids = null;
+      total = ids ? ids.length : Number((await countWordMatches(k, plan).first())?.n ?? 0);
+    }
+    walkRows = () => {
+      const b = base();
+      whereWordsExist(k, b, libraryId, q);
+      return b;
+    };
+    const listed = ids;
+    fetchRows = () => (listed ? base().whereIn("s.id", listed) : base().join(wordMatches(k, plan).as("m"), "m.sample_id", "s.id"));
+    examinedPerRow = 1 + 12 * (plan.others.length + 1); // a row and the words read by each check
   }
-  if (!total) return { rows: [], total };
-  // Then the page, by whichever way reads fewer rows: walking the sort column's index and checking each row's
-  // words (about page end x library size / matches rows: best when many match), or fetching every match and
-  // sorting them (best when few match). The planner cannot know how many words match, we do.
+  const expected = Math.min(query.pageSize, Math.max(0, total - (query.page - 1) * query.pageSize));
+  if (!expected) return { rows: [], total };
+  // Walk when the matches look many enough to fill the page soon (page end x library size / matches rows, were
+  // they spread evenly); but matches often sit together (a family's folder, sorted by path), so the walk may read
+  // WALK_ROWS rows at most and, when it comes back short, the matches are fetched instead. The planner cannot
+  // know how many words match; we do.
   const libraryTotal = (await countsFor(studioId, [libraryId])).get(libraryId)!.total;
-  const walk = (query.page * query.pageSize * libraryTotal) / total;
-  let rows: Record<string, unknown>[];
-  if (walk < total) {
-    const b = base();
-    whereWordsExist(k, b, libraryId, query.q);
-    rows = await rowsPerRowExists(k, page(b));
-  } else if (ids) rows = await page(base().whereIn("s.id", ids));
-  else rows = await page(base().join(wordMatches(k, plan).as("m"), "m.sample_id", "s.id"));
-  return { rows: rows.map(toRow), total };
+  let rows: Record<string, unknown>[] | null = null;
+  if ((query.page * query.pageSize * libraryTotal) / total < total) {
+    rows = await rowsCapped(k, page(walkRows()), WALK_ROWS * examinedPerRow);
+    if (rows.length < expected) rows = null;
+  }
+  const found = rows ?? (await page(fetchRows()));
+  return { rows: found.map(toRow), total };
 }
 
 export async function getSample({ studioId, libraryId, sampleId }: { studioId: string; libraryId: string; sampleId: string }) {

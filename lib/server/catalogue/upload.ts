@@ -236,7 +236,7 @@ class Recorder {
     await storage().delete(it.key).catch(() => undefined);
     Object.assign(it.result, { status: "duplicate", sampleId: of?.id, reason: `same content as ${of?.rel_path ?? "another file"}` });
   }
-  private async recordOne(it: Stored): Promise<void> {
+  private async recordOne(it: Stored, attempt = 1): Promise<void> {
     const { ctx } = this;
     try {
       const dup = await db()("samples").where({ library_id: ctx.libraryId, sha256: it.sha256 }).first("id", "rel_path");
@@ -245,6 +245,12 @@ class Recorder {
       this.queued(it);
     } catch (e) {
       const errno = (e as { errno?: number }).errno;
+      // two uploads into one library can deadlock on its unique (library, hash) index: InnoDB rolls one back
+      // (1213) and that one tries again (as the server's message asks), after a short random pause
+      if ((errno === 1213 || errno === 1205) && attempt < 5) {
+        await new Promise((r) => setTimeout(r, 20 + Math.random() * 80 * attempt));
+        return this.recordOne(it, attempt + 1);
+      }
       if (errno === 1062) return await this.duplicate(it, await db()("samples").where({ library_id: ctx.libraryId, sha256: it.sha256 }).first("id", "rel_path").catch(() => undefined));
       await storage().delete(it.key).catch(() => undefined);
       if (errno === 1452) Object.assign(it.result, { code: "error", reason: "the library no longer exists" });

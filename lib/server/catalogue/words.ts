@@ -2,7 +2,7 @@ import "server-only";
 // The search index of sample paths (table sample_words, migration 0009): rows written and deleted with their
 // sample, and the queries that read it. The words themselves are cut by lib/catalog/path-words.ts.
 import type { Knex } from "knex";
-import { pathWords, searchRuns } from "@/lib/catalog/path-words";
+import { foldText, pathWords, searchRuns } from "@/lib/catalog/path-words";
 
 export interface WordRow { library_id: string; word: string; sample_id: string }
 
@@ -10,12 +10,19 @@ export function wordRows(libraryId: string, sampleId: string, relPath: string): 
   return pathWords(relPath).map((word) => ({ library_id: libraryId, word, sample_id: sampleId }));
 }
 
-/** Inserts sample rows and their path words in one transaction (a sample is never recorded unsearchable). */
+/** The folded path kept for the "contains" fallback (migration 0010). */
+export const pathFold = (relPath: string) => foldText(relPath).slice(0, 500);
+
+/**
+ * Inserts sample rows with their folded path and their path words, in one transaction (a sample is never
+ * recorded unsearchable).
+ */
 export async function insertSamplesWithWords(k: Knex, rows: ({ id: string; library_id: string; rel_path: string } & Record<string, unknown>)[]): Promise<void> {
   if (!rows.length) return;
   const words = rows.flatMap((r) => wordRows(r.library_id, r.id, r.rel_path));
+  const withFold = rows.map((r) => ({ ...r, path_fold: pathFold(r.rel_path) }));
   await k.transaction(async (trx) => {
-    for (let i = 0; i < rows.length; i += 1000) await trx("samples").insert(rows.slice(i, i + 1000));
+    for (let i = 0; i < withFold.length; i += 1000) await trx("samples").insert(withFold.slice(i, i + 1000));
     for (let i = 0; i < words.length; i += 5000) await trx("sample_words").insert(words.slice(i, i + 5000));
   });
 }
@@ -111,16 +118,29 @@ export function whereWordsExist(k: Knex, b: Knex.QueryBuilder, libraryId: string
 }
 
 /**
- * Runs a query whose EXISTS checks must stay per-row checks: MariaDB would otherwise turn EXISTS into IN and
- * the IN into a join over every match (exists_to_in, semijoin), which reads whole ranges to fill one page.
+ * Runs a page query that walks an index with per-row checks, stopping once MariaDB has examined `examined` rows
+ * (LIMIT ... ROWS EXAMINED: what was found by then is returned, so a walk that does not fill its page within that
+ * comes back short). The EXISTS checks stay per-row checks: MariaDB would otherwise turn EXISTS into IN and the IN
+ * into a join over every match (exists_to_in, semijoin), which reads whole ranges to fill one page.
  */
-export async function rowsPerRowExists<T = Record<string, unknown>>(k: Knex, b: Knex.QueryBuilder): Promise<T[]> {
+export async function rowsCapped<T = Record<string, unknown>>(k: Knex, b: Knex.QueryBuilder, examined: number): Promise<T[]> {
   const { sql, bindings } = b.toSQL();
-  const [rows] = (await k.raw(`SET STATEMENT optimizer_switch='exists_to_in=off,semijoin=off' FOR ${sql}`, bindings as Knex.RawBinding[])) as unknown as [T[]];
+  if (!/ limit \?( offset \?)?$/i.test(sql)) throw new Error("rowsCapped needs a query that ends in its LIMIT");
+  const [rows] = (await k.raw(`SET STATEMENT optimizer_switch='exists_to_in=off,semijoin=off' FOR ${sql} ROWS EXAMINED ${Math.max(1, Math.floor(examined))}`, bindings as Knex.RawBinding[])) as unknown as [T[]];
   return rows;
 }
 
-/** "The path contains the term as typed": reads every path of the library (the fallback). */
+const containsPattern = (term: string) => `%${foldText(term).replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/**
+ * "The path contains the term", both folded (case and accents): reads every folded path of the library, byte by
+ * byte (the fallback).
+ */
 export function wherePathContains(b: Knex.QueryBuilder, term: string): void {
-  b.andWhere("s.path_key", "like", `%${term.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
+  b.andWhere("s.path_fold", "like", containsPattern(term));
+}
+
+/** The samples whose folded path contains the term (column id), read from the folded-path index alone. */
+export function pathContainsMatches(k: Knex, studioId: string, libraryId: string, term: string): Knex.Raw {
+  return k.raw("(SELECT id FROM samples FORCE INDEX (samples_library_path_fold_idx) WHERE studio_id = ? AND library_id = ? AND path_fold LIKE ?) AS m", [studioId, libraryId, containsPattern(term)]);
 }

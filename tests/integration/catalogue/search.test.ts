@@ -88,6 +88,11 @@ describe("samples search by path words", () => {
     const expected = rows.filter((r) => r.rel_path.toLowerCase().includes("naretop"));
     expect(res.total).toBe(expected.length);
     expect(res.total).toBe(N / 4);
+    // the fallback folds case and accents on both sides too: "AIRE É" is inside "Caisse claire é/"
+    const folded = await search("q=AIRE%20%C3%89&pageSize=10");
+    expect(folded.search).toBe("contains");
+    expect(folded.total).toBe(rows.filter((r) => r.rel_path.startsWith("Caisse claire é/")).length);
+    expect(folded.total).toBe(N / 50);
     // a term without letters or digits cannot use the words
     const dash = await search("q=-&pageSize=10");
     expect(dash.search).toBe("contains");
