@@ -57,6 +57,7 @@ describe("samples search by path words", () => {
     ["snare rr2", "two words: the matches are listed"],
     ["v rr", "two words matching every row: more than the list holds, so counted"],
     ["00012", "a rare prefix: the few matches are fetched and sorted"],
+    ["tom", "one family, last in path order: the walk is cut short and the matches are fetched"],
     ["SNARETOP_V5", "glued words, other case"],
     ["caisse claire e", "accent folded"],
   ])("%s (%s): total and pages agree with the rule", async (term) => {
