@@ -11,8 +11,8 @@ import { countWordMatches, pathContainsMatches, planWords, rowsCapped, searchabl
 
 /** A words search lists up to this many matching ids at once (more are counted, and pages walk an index). */
 const ID_LIST_MAX = 5000;
-/** Rows a page walk may read before it gives way to fetching the matches (about 35 ms here). */
-const WALK_ROWS = 4000;
+/** A page walk may read three times the rows it should need (evenly spread matches), at least this many. */
+const WALK_ROWS_MIN = 500;
 import type { SampleSort, SamplesQuery } from "@/lib/validation/library";
 
 export interface SampleRow {
@@ -197,12 +197,13 @@ async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, 
   if (!expected) return { rows: [], total };
   // Walk when the matches look many enough to fill the page soon (page end x library size / matches rows, were
   // they spread evenly); but matches often sit together (a family's folder, sorted by path), so the walk may read
-  // WALK_ROWS rows at most and, when it comes back short, the matches are fetched instead. The planner cannot
-  // know how many words match; we do.
+  // three times that (at least WALK_ROWS_MIN) and, when it comes back short, the matches are fetched instead.
+  // The planner cannot know how many words match; we do.
   const libraryTotal = (await countsFor(studioId, [libraryId])).get(libraryId)!.total;
+  const walkEstimate = (query.page * query.pageSize * libraryTotal) / total;
   let rows: Record<string, unknown>[] | null = null;
-  if ((query.page * query.pageSize * libraryTotal) / total < total) {
-    rows = await rowsCapped(k, page(walkRows()), WALK_ROWS * examinedPerRow);
+  if (walkEstimate < total) {
+    rows = await rowsCapped(k, page(walkRows()), Math.max(WALK_ROWS_MIN, 3 * walkEstimate) * examinedPerRow);
     if (rows.length < expected) rows = null;
   }
   const found = rows ?? (await page(fetchRows()));
