@@ -20,14 +20,17 @@ const RUN = /[\p{L}\p{N}]+/gu;
 // (letters without case, as in kana or CJK, stay together)
 const PART = /\p{Lu}+(?=\p{Lu}\p{Ll})|\p{Lu}?\p{Ll}+|\p{Lu}+|\p{N}+|[^\p{Lu}\p{Ll}\p{N}]+/gu;
 
-/** Case- and accent-folded text (NFKD, combining marks dropped, lower case): both sides of every comparison. */
+/** NFKD with the combining marks dropped ("Frisée" -> "Frisee"); case is kept for the camelCase parts. */
+const stripMarks = (s: string) => s.normalize("NFKD").replace(/\p{M}+/gu, "");
+
+/** Case- and accent-folded text (marks dropped, lower case): both sides of every comparison. */
 export function foldText(s: string): string {
-  return s.normalize("NFKD").replace(/\p{M}+/gu, "").toLowerCase();
+  return stripMarks(s).toLowerCase();
 }
 
 function runsOf(s: string): string[] {
   // accents are dropped before the runs are found, so "é" does not split a word in two
-  return s.normalize("NFKD").replace(/\p{M}+/gu, "").match(RUN) ?? [];
+  return stripMarks(s).match(RUN) ?? [];
 }
 
 /** The distinct words of a path, in order of first appearance, at most WORDS_MAX, each at most WORD_MAX long. */
