@@ -154,6 +154,8 @@ class Recorder {
   private busy = false;
   private waiting = new Map<number, () => void>();
   readonly recorded: Promise<void>[] = [];
+  private enqueueing: Promise<void> = Promise.resolve();
+  private enqueueError: unknown = null;
   constructor(private readonly ctx: Omit<Ctx, "recorder">) {}
 
   ticket(): number {
@@ -206,6 +208,7 @@ class Recorder {
       }
       await insertSamplesWithWords(db(), fresh.map((it) => this.row(it)));
       for (const it of fresh) this.queued(it);
+      this.measure(fresh);
       await Promise.all(dups.map(({ item, of }) => this.duplicate(item, of)));
     } catch {
       // the batch as a whole was refused: file by file, each with its own outcome
@@ -228,6 +231,22 @@ class Recorder {
       uploaded_by: ctx.userId,
     };
   }
+  /**
+   * Queues the measuring of recorded files while the upload goes on (so the first files are measured before
+   * the last arrive, and a large batch never builds all its jobs at once), in order, on a chain of its own: a
+   * Redis that is away holds the chain (ioredis queues the commands until it returns), never the recording.
+   */
+  private measure(items: Stored[]) {
+    const { studioId, libraryId } = this.ctx;
+    const jobs = items.map((it) => ({ sampleId: it.sampleId, studioId, libraryId }));
+    if (!jobs.length) return;
+    this.enqueueing = this.enqueueing.then(() => enqueueMeasure(jobs)).catch((e) => void (this.enqueueError ??= e));
+  }
+  /** Resolves once every recorded file's job is queued; throws the first error met on the way. */
+  async measuringQueued(): Promise<void> {
+    await this.enqueueing;
+    if (this.enqueueError) throw this.enqueueError;
+  }
   private queued(it: Stored) {
     Object.assign(it.result, { status: "queued", sampleId: it.sampleId });
     this.ctx.queued.push({ sampleId: it.sampleId });
@@ -243,6 +262,7 @@ class Recorder {
       if (dup) return await this.duplicate(it, dup);
       await insertSamplesWithWords(db(), [this.row(it)]);
       this.queued(it);
+      this.measure([it]);
     } catch (e) {
       const errno = (e as { errno?: number }).errno;
       // two uploads into one library can deadlock on its unique (library, hash) index: InnoDB rolls one back
@@ -380,6 +400,46 @@ async function storeZip(ctx: Ctx, zipPath: string, zipName: string, zipBytes: nu
   }
 }
 
+/**
+ * Feeds the request body to the multipart parser chunk by chunk, waiting whenever the parser is full; resolves
+ * once the parser has read the whole body. Reading the web stream directly, rather than through
+ * Readable.fromWeb and pipe, spares a stream layer and the objects it makes per chunk (bench/RESULTS.md,
+ * finding 8).
+ */
+async function feedParser(body: ReadableStream<Uint8Array>, bb: busboy.Busboy): Promise<void> {
+  const reader = body.getReader();
+  let failure: Error | null = null;
+  let wake: (() => void) | null = null;
+  const closed = new Promise<void>((resolve, reject) => {
+    bb.on("close", resolve);
+    bb.on("error", (e: Error) => {
+      failure = e;
+      wake?.();
+      reject(e);
+    });
+  });
+  closed.catch(() => undefined); // awaited below; a parser error met while reading is thrown from the loop
+  bb.on("drain", () => wake?.());
+  try {
+    for (;;) {
+      const { value, done } = await reader.read();
+      if (failure) throw failure;
+      if (done) break;
+      if (!bb.write(Buffer.from(value.buffer, value.byteOffset, value.byteLength))) {
+        await new Promise<void>((r) => (wake = r));
+        wake = null;
+        if (failure) throw failure;
+      }
+    }
+  } catch (e) {
+    void reader.cancel().catch(() => undefined);
+    if (!failure) bb.destroy(e as Error);
+    throw failure ?? e;
+  }
+  bb.end();
+  await closed;
+}
+
 /** Receives a multipart upload into a library (the body is read here; the route declares no body). */
 export async function receiveUpload({ studioId, libraryId, userId, req }: { studioId: string; libraryId: string; userId: string; req: Request }): Promise<UploadSummary> {
   const lib = await assertLibrary({ studioId, libraryId });
@@ -456,13 +516,7 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   });
   let failed: Error | null = null;
   try {
-    await new Promise<void>((resolve, reject) => {
-      bb.on("close", resolve);
-      bb.on("error", reject);
-      const body = Readable.fromWeb(req.body as import("node:stream/web").ReadableStream<Uint8Array>);
-      body.on("error", reject);
-      body.pipe(bb);
-    });
+    await feedParser(req.body, bb);
   } catch (err) {
     failed = err as Error;
     for (const a of ctx.active) a.destroy(err as Error);
@@ -473,7 +527,8 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
 
   // A body that could not be read to the end (a malformed part header, say a file name with control
   // characters, or a cut connection) may have lost files after the break without naming them. Rather than
-  // answer for only part of the batch, take back what this request stored and refuse it whole.
+  // answer for only part of the batch, take back what this request stored and refuse it whole. (Jobs already
+  // queued for those files find no row and are skipped: measureSample, "deleted meanwhile".)
   if (failed && ctx.queued.length) {
     const ids = ctx.queued.map((q) => q.sampleId);
     await db().transaction(async (trx) => {
@@ -492,7 +547,7 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
     );
   }
 
-  if (ctx.queued.length) await enqueueMeasure(ctx.queued.map((q) => ({ sampleId: q.sampleId, studioId, libraryId })));
+  await ctx.recorder.measuringQueued();
   const counts = { queued: 0, duplicate: 0, refused: 0 };
   for (const r of ctx.results) counts[r.status]++;
   if (ctx.results.length) {

@@ -14,7 +14,7 @@ import { NextRequest } from "next/server";
 import { call, makeStudioWithRoles, sessionCookie, uniq } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
 import { env } from "@/lib/server/env";
-import { closeQueues } from "@/workers/jobs";
+import { closeQueues, measureJobId, measureQueue } from "@/workers/jobs";
 import { measureSample } from "@/lib/server/catalogue/measure";
 import { regroupLibrary } from "@/lib/server/catalogue/regroup";
 import { measureFile } from "@/workers/measure-core";
@@ -204,6 +204,37 @@ describe("uploads", () => {
     if (res.status === 201) expect(out.files.find((f: { name: string }) => f.name === "cut/two.wav")?.status).toBe("refused");
     const dir = path.resolve(env().KW_STORAGE_DIR, `studios/${ctx.studio.id}/libraries/${libraryId}`);
     expect(fs.readdirSync(dir).filter((f) => f.includes(".part"))).toEqual([]);
+  });
+
+  it("queues a file's measuring while the rest of the upload is still coming in, one job per new file", async () => {
+    const { body, type } = await multipart([{ name: "early/first.wav", data: hitWav(50, { freq: 330 }) }, { name: "early/second.wav", data: hitWav(51, { freq: 370 }) }]);
+    const boundary = `--${/boundary=(.+)$/.exec(type)![1]}`;
+    const secondPart = Buffer.from(body).indexOf(boundary, Buffer.from(body).indexOf(boundary) + boundary.length);
+    const cutAt = secondPart + 200; // the first file and its closing boundary are in; the second is not
+    const jobOf = async (relPath: string) => {
+      const row = await db()("samples").where({ library_id: libraryId, rel_path: relPath }).first("id");
+      return row ? measureQueue().getJob(measureJobId(row.id)) : undefined;
+    };
+    let firstQueuedEarly = false;
+    const stream = new ReadableStream<Uint8Array>({
+      async start(c) {
+        c.enqueue(body.subarray(0, cutAt));
+        for (let i = 0; i < 100 && !firstQueuedEarly; i++) {
+          firstQueuedEarly = !!(await jobOf("early/first.wav"));
+          if (!firstQueuedEarly) await new Promise((r) => setTimeout(r, 50));
+        }
+        c.enqueue(body.subarray(cutAt));
+        c.close();
+      },
+    });
+    const cookie = await sessionCookie(ctx.users.editor);
+    const base = env().KW_APP_URL;
+    const req = new NextRequest(new URL("/api/x", base), { method: "POST", headers: { host: new URL(base).host, origin: new URL(base).origin, cookie: cookie!, "content-type": type }, body: stream, duplex: "half" } as unknown as ConstructorParameters<typeof NextRequest>[1]);
+    const res = await uploadRoute.POST(req, { params: Promise.resolve({ studioId: ctx.studio.id, libraryId }) });
+    expect(res.status).toBe(201);
+    expect(firstQueuedEarly, "the first file's job was queued before the second file arrived").toBe(true);
+    expect((await res.json()).counts).toEqual({ queued: 2, duplicate: 0, refused: 0 });
+    expect(await jobOf("early/second.wav")).toBeTruthy();
   });
 });
 
