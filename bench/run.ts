@@ -5,14 +5,14 @@
 // .next build output) and upload (bench/upload.ts: a 2 GB batch over loopback). Starts the test profile's
 // MariaDB and Redis if they are not running (a database of its own, kitwright_bench). Prints the table with
 // the target beside each figure and writes it into bench/RESULTS.md between the bench markers.
-import { execFileSync, spawn } from "node:child_process";
+import { spawn } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { pageWeight } from "./page-weight";
+import { benchEnv, ROOT } from "./env";
 import { runUploadBench } from "./upload";
 
-const ROOT = path.resolve(import.meta.dirname, "..");
 const argv = process.argv.slice(2);
 const flag = (n: string) => argv.includes(n);
 const opt = (n: string, d: number) => (argv.includes(n) ? Number(argv[argv.indexOf(n) + 1]) : d);
@@ -39,19 +39,6 @@ function run(cmd: string, args: string[], env: NodeJS.ProcessEnv = process.env, 
       code === 0 ? resolve(out) : reject(new Error(`${cmd} ${args.join(" ")} failed (${code}): ${err.slice(-800)}`));
     });
   });
-}
-
-/** The test profile's environment (services started if needed), with the bench database created and migrated. */
-function benchEnv(): NodeJS.ProcessEnv {
-  const out = execFileSync("bash", ["-c", `source scripts/lib.sh; source scripts/env.sh; kw_profile test; kw_start_services >/dev/null; create_database "$KW_RUN" kitwright_bench ${flag("--fresh-db") ? "fresh" : ""}; env -0`], { cwd: ROOT, encoding: "utf8", stdio: ["ignore", "pipe", "inherit"] });
-  const env = {} as NodeJS.ProcessEnv;
-  for (const kv of out.split("\0")) {
-    const i = kv.indexOf("=");
-    if (i > 0) env[kv.slice(0, i)] = kv.slice(i + 1);
-  }
-  env.KW_DB_NAME = "kitwright_bench";
-  execFileSync(process.execPath, ["--import", "tsx", "db/migrate.ts"], { cwd: ROOT, env, stdio: "ignore" });
-  return env;
 }
 
 async function measuring() {
@@ -130,7 +117,7 @@ async function main() {
   const started = new Date();
   const loadStart = load();
   process.stderr.write(`bench: load average ${loadStart}\n`);
-  const env = benchEnv();
+  const env = benchEnv({ fresh: flag("--fresh-db") });
   const steps: [string, () => Promise<void> | void][] = [["measuring", measuring], ["audit", audit], ["browser table", () => browse(env)], ["page weight", weight], ["upload", () => upload(env)]];
   for (const [name, fn] of steps) {
     process.stderr.write(`bench: ${name} ...\n`);

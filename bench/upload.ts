@@ -53,7 +53,8 @@ function rssKb(root: number): number {
 
 /**
  * via "serve": the route handler in a plain Node HTTP server (tests/faults/serve.ts); via "next": the production
- * server (`next start`, needs a build in .next), as deployed.
+ * server as deployed (scripts/serve-app.sh: `next start` with the app's Node settings; needs a build in .next).
+ * KW_BENCH_NODE_FLAGS adds Node flags to either.
  */
 export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBytes?: number; port?: number; via?: "serve" | "next" } = {}): Promise<UploadBench> {
   const via = opts.via ?? "serve";
@@ -70,10 +71,11 @@ export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBy
   const cookie = `next-auth.session-token=${await encode({ token: { uid: user.id, sub: user.id }, secret: env.NEXTAUTH_SECRET! })}`;
 
   const log: string[] = [];
+  const nodeFlags = [...(process.env.KW_BENCH_TRACE_GC ? ["--trace-gc"] : []), ...(process.env.KW_BENCH_NODE_FLAGS ?? "").split(" ").filter(Boolean)];
   const server =
     via === "next"
-      ? spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-p", String(port), "-H", "127.0.0.1"], { env: { ...env, NODE_ENV: "production" }, stdio: ["ignore", "pipe", "pipe"] })
-      : spawn(process.execPath, [...(process.env.KW_BENCH_CPU_PROF ? ["--cpu-prof", `--cpu-prof-dir=${process.env.KW_BENCH_CPU_PROF}`] : []), ...(process.env.KW_BENCH_TRACE_GC ? ["--trace-gc"] : []), "--conditions=react-server", "--import", "tsx", "tests/faults/serve.ts", "--port", String(port)], { env, stdio: ["ignore", "pipe", "pipe"] });
+      ? spawn("bash", ["scripts/serve-app.sh", "-p", String(port), "-H", "127.0.0.1"], { env: { ...env, NODE_ENV: "production", KW_APP_NODE_FLAGS: nodeFlags.join(" ") }, stdio: ["ignore", "pipe", "pipe"] })
+      : spawn(process.execPath, [...(process.env.KW_BENCH_CPU_PROF ? ["--cpu-prof", `--cpu-prof-dir=${process.env.KW_BENCH_CPU_PROF}`] : []), ...nodeFlags, "--conditions=react-server", "--import", "tsx", "tests/faults/serve.ts", "--port", String(port)], { env, stdio: ["ignore", "pipe", "pipe"] });
   const ready = () => (via === "next" ? /Ready in/.test(log.join("")) : log.join("").includes("[serve] listening"));
   server.stdout!.on("data", (d) => log.push(String(d)));
   if (process.env.KW_BENCH_SERVER_LOG) server.stdout!.pipe(fs.createWriteStream(process.env.KW_BENCH_SERVER_LOG));

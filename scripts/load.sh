@@ -27,7 +27,7 @@ cleanup() {
   [ -n "$WORKER_PID" ] && kill -9 "$WORKER_PID" 2>/dev/null || true
 }
 trap cleanup EXIT
-node ${KW_LOAD_NODE_FLAGS:-} node_modules/next/dist/bin/next start -p "$PORT" -H 127.0.0.1 >"$RUN/app.log" 2>&1 & APP_PID=$!
+KW_APP_NODE_FLAGS="${KW_LOAD_NODE_FLAGS:-}" bash scripts/serve-app.sh -p "$PORT" -H 127.0.0.1 >"$RUN/app.log" 2>&1 & APP_PID=$!
 # the worker runs at a lower priority, as scripts/demo.sh starts it: requests first, measuring in the gaps
 nice -n 10 node --conditions=react-server --import tsx workers/main.ts >"$RUN/worker.log" 2>&1 & WORKER_PID=$!
 for _ in $(seq 1 150); do curl -fsS "http://127.0.0.1:$PORT/api/health" >/dev/null 2>&1 && break; sleep 0.2; done

@@ -22,7 +22,7 @@ step "unit tests"; npx vitest run --project unit
 step "integration tests"; npx vitest run --project integration
 step "build"; npx next build >"$KW_RUN/build.log" 2>&1 || { tail -40 "$KW_RUN/build.log"; exit 1; }
 step "start app and worker"
-nohup node node_modules/next/dist/bin/next start -p "$KW_APP_PORT" -H 127.0.0.1 >"$KW_RUN/app.log" 2>&1 & echo $! >"$KW_RUN/app.pid"
+nohup bash scripts/serve-app.sh -p "$KW_APP_PORT" -H 127.0.0.1 >"$KW_RUN/app.log" 2>&1 & echo $! >"$KW_RUN/app.pid"
 nohup node --conditions=react-server --import tsx workers/main.ts >"$KW_RUN/worker.log" 2>&1 & echo $! >"$KW_RUN/worker.pid"
 for _ in $(seq 1 100); do curl -fsS "http://127.0.0.1:$KW_APP_PORT/api/health" >/dev/null 2>&1 && break; sleep 0.3; done
 step "browser tests"; npx vitest run --project e2e
