@@ -105,12 +105,12 @@ async function upload(env: NodeJS.ProcessEnv) {
   const gb = opt("--upload-gb", 2);
   const vias: ("next" | "serve")[] = fs.existsSync(path.join(ROOT, ".next/BUILD_ID")) ? ["next", "serve"] : ["serve"];
   for (const via of vias) {
-    const where = via === "next" ? "through `next start` (as deployed)" : "route handler in a plain Node server";
+    const where = via === "next" ? "through `next start` as deployed (scripts/serve-app.sh)" : "route handler in a plain Node server";
     const u = await runUploadBench(env, { totalBytes: Math.round(gb * 1024 ** 3), via, port: via === "next" ? 3471 : 3470 });
     add({ area: "upload", figure: `${(u.bytes / 1024 ** 3).toFixed(2)} GB batch, ${u.files} files, one request over loopback, ${where} (MB/s)`, value: `${u.mbPerSec.toFixed(1)} MB/s (${u.seconds.toFixed(1)} s; HTTP ${u.status}; ${u.queued} queued, ${u.duplicate} duplicate, ${u.refused} refused)`, target: ">= 100 MB/s", met: u.mbPerSec >= 100 && u.status === 201 ? "yes" : "no" });
     add({ area: "upload", figure: `server RSS growth during the batch, ${where} (idle -> peak, with child processes)`, value: `${u.rssGrowthMb.toFixed(1)} MB (${u.rssIdleMb.toFixed(0)} -> ${u.rssPeakMb.toFixed(0)} MB)`, target: "< 100 MB", met: u.rssGrowthMb < 100 ? "yes" : "no" });
   }
-  notes.push("Upload: the real route handler (busboy streaming to local storage, SHA-256, one row and one job per file), once through `next start` and once in a plain Node HTTP server (tests/faults/serve.ts) to separate the framework's share; the client generating the body and the server share the 2 cores.");
+  notes.push("Upload: the real route handler (busboy streaming to local storage, SHA-256, one row and one job per file), once through `next start` as deployed (scripts/serve-app.sh, with its V8 setting --heap-growing-percent=100) and once in a plain Node HTTP server (tests/faults/serve.ts, V8's defaults) to separate the framework's share; the client generating the body and the server share the 2 cores.");
 }
 
 async function main() {
