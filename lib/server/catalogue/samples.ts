@@ -122,7 +122,7 @@ export async function listSamples({ studioId, libraryId, query }: { studioId: st
 async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, mode: SearchMode): Promise<{ rows: SampleRow[]; total: number }> {
   const k = db();
   const base = () => filtered(k, studioId, libraryId, query);
-  const page = (b: Knex.QueryBuilder) =>
+  const page = (b: Knex.QueryBuilder, { offset = true } = {}) =>
     b
       .leftJoin("instruments as i", function () {
         this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");
@@ -132,7 +132,7 @@ async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, 
       .orderBy(SORT_COLUMN[query.sort], query.dir)
       .orderBy("s.id", query.dir)
       .limit(query.pageSize)
-      .offset((query.page - 1) * query.pageSize)
+      .offset(offset ? (query.page - 1) * query.pageSize : 0)
       .select(LIST_COLS);
   const otherFilters = !!(query.family || query.articulation || query.instrument || query.flag || query.state);
 
@@ -206,7 +206,13 @@ async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, 
     rows = await rowsCapped(k, page(walkRows()), Math.max(WALK_ROWS_MIN, 3 * walkEstimate) * examinedPerRow);
     if (rows.length < expected) rows = null;
   }
-  const found = rows ?? (await page(fetchRows()));
+  // Fetch: the matches are put in order by the sort column alone, and only the page's rows are then read in full
+  // (with their instrument): sorting thousands of matches with every listed column cost a third more.
+  const fetchPage = async () => {
+    const ids = ((await fetchRows().orderBy(SORT_COLUMN[query.sort], query.dir).orderBy("s.id", query.dir).limit(query.pageSize).offset((query.page - 1) * query.pageSize).select("s.id")) as { id: string }[]).map((r) => r.id);
+    return ids.length ? await page(base().whereIn("s.id", ids), { offset: false }) : [];
+  };
+  const found = rows ?? (await fetchPage());
   return { rows: found.map(toRow), total };
 }
 
