@@ -122,18 +122,21 @@ export async function listSamples({ studioId, libraryId, query }: { studioId: st
 async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, mode: SearchMode): Promise<{ rows: SampleRow[]; total: number }> {
   const k = db();
   const base = () => filtered(k, studioId, libraryId, query);
-  const page = (b: Knex.QueryBuilder, { offset = true } = {}) =>
+  // one direction for the column and the id tie-breaker: the (library_id, column) index, whose entries end in the
+  // primary key, is then read in order and no sort is needed
+  const ordered = (b: Knex.QueryBuilder, { offset = true } = {}) =>
     b
-      .leftJoin("instruments as i", function () {
-        this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");
-      })
-      // one direction for the column and the id tie-breaker: the (library_id, column) index, whose entries end in
-      // the primary key, is then read in order and no sort is needed
       .orderBy(SORT_COLUMN[query.sort], query.dir)
       .orderBy("s.id", query.dir)
       .limit(query.pageSize)
-      .offset(offset ? (query.page - 1) * query.pageSize : 0)
-      .select(LIST_COLS);
+      .offset(offset ? (query.page - 1) * query.pageSize : 0);
+  const page = (b: Knex.QueryBuilder, opts?: { offset?: boolean }) =>
+    ordered(
+      b.leftJoin("instruments as i", function () {
+        this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");
+      }),
+      opts,
+    ).select(LIST_COLS);
   const otherFilters = !!(query.family || query.articulation || query.instrument || query.flag || query.state);
 
   if (!query.q) {
@@ -209,7 +212,7 @@ async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, 
   // Fetch: the matches are put in order by the sort column alone, and only the page's rows are then read in full
   // (with their instrument): sorting thousands of matches with every listed column cost a third more.
   const fetchPage = async () => {
-    const ids = ((await fetchRows().orderBy(SORT_COLUMN[query.sort], query.dir).orderBy("s.id", query.dir).limit(query.pageSize).offset((query.page - 1) * query.pageSize).select("s.id")) as { id: string }[]).map((r) => r.id);
+    const ids = ((await ordered(fetchRows()).select("s.id")) as { id: string }[]).map((r) => r.id);
     return ids.length ? await page(base().whereIn("s.id", ids), { offset: false }) : [];
   };
   const found = rows ?? (await fetchPage());

@@ -42,6 +42,14 @@ async function upload(files: { name: string; data: Uint8Array }[], user = ctx.us
   return call(uploadRoute.POST, { method: "POST", params: { studioId, libraryId: lib }, rawBody: body, headers: { "content-type": type }, user });
 }
 
+/** Sends a multipart body that arrives as the given stream (to cut it, or hold part of it back). */
+async function uploadStream(stream: ReadableStream<Uint8Array>, type: string) {
+  const cookie = await sessionCookie(ctx.users.editor);
+  const base = env().KW_APP_URL;
+  const req = new NextRequest(new URL("/api/x", base), { method: "POST", headers: { host: new URL(base).host, origin: new URL(base).origin, cookie: cookie!, "content-type": type }, body: stream, duplex: "half" } as unknown as ConstructorParameters<typeof NextRequest>[1]);
+  return uploadRoute.POST(req, { params: Promise.resolve({ studioId: ctx.studio.id, libraryId }) });
+}
+
 async function measureAll(lib: string) {
   const rows = await db()("samples").where({ library_id: lib, state: "queued" }).select("id", "studio_id");
   for (const r of rows) await measureSample({ sampleId: r.id, studioId: r.studio_id }, async (b) => measureFile(b));
@@ -194,10 +202,7 @@ describe("uploads", () => {
         setTimeout(() => c.error(new Error("aborted")), 20);
       },
     });
-    const cookie = await sessionCookie(ctx.users.editor);
-    const base = env().KW_APP_URL;
-    const req = new NextRequest(new URL("/api/x", base), { method: "POST", headers: { host: new URL(base).host, origin: new URL(base).origin, cookie: cookie!, "content-type": type }, body: stream, duplex: "half" } as unknown as ConstructorParameters<typeof NextRequest>[1]);
-    const res = await uploadRoute.POST(req, { params: Promise.resolve({ studioId: ctx.studio.id, libraryId }) });
+    const res = await uploadStream(stream, type);
     const out = await res.json();
     const two = await db()("samples").where({ library_id: libraryId, rel_path: "cut/two.wav" }).first();
     expect(two).toBeUndefined();
@@ -227,10 +232,7 @@ describe("uploads", () => {
         c.close();
       },
     });
-    const cookie = await sessionCookie(ctx.users.editor);
-    const base = env().KW_APP_URL;
-    const req = new NextRequest(new URL("/api/x", base), { method: "POST", headers: { host: new URL(base).host, origin: new URL(base).origin, cookie: cookie!, "content-type": type }, body: stream, duplex: "half" } as unknown as ConstructorParameters<typeof NextRequest>[1]);
-    const res = await uploadRoute.POST(req, { params: Promise.resolve({ studioId: ctx.studio.id, libraryId }) });
+    const res = await uploadStream(stream, type);
     expect(res.status).toBe(201);
     expect(firstQueuedEarly, "the first file's job was queued before the second file arrived").toBe(true);
     expect((await res.json()).counts).toEqual({ queued: 2, duplicate: 0, refused: 0 });
