@@ -215,3 +215,15 @@ export function getTemplate(name: string): Layout | null {
 export function templateSlotPlan(): LayoutSlot[] {
   return SLOT_PLAN.map((s) => ({ ...s }));
 }
+
+/**
+ * Our reading of a General MIDI Level 1 percussion key as a family and articulation (the same reading the
+ * GM template aims its pads with). Null for keys outside the GM Level 1 map (35-81).
+ */
+export function gmPercussionTruth(note: number): { name: string; slot: string; family: Family; articulation: Articulation } | null {
+  const gm = GM_PERCUSSION.find((g) => g.note === note);
+  const target = GM_TARGETS[note];
+  if (!gm || !target) return null;
+  const slot = SLOT_PLAN.find((s) => s.id === target[0])!;
+  return { name: gm.name, slot: slot.id, family: slot.family, articulation: target[1] };
+}
