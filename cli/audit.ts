@@ -3,8 +3,7 @@
 // Runs the coverage audit offline. Exit status: 0 when every pad plays something, 1 when any pad (or pedal
 // zone, or the pedal chick note) is silent, 2 on bad input (the message says what and where).
 
-import { readFile, readdir, stat, writeFile } from "node:fs/promises";
-import path from "node:path";
+import { readFile, stat, writeFile } from "node:fs/promises";
 import { hasSilentPads, runAudit } from "../lib/audit/audit";
 import { readCatalogue } from "../lib/audit/catalogue-input";
 import { auditToCsv, auditToJson } from "../lib/audit/export";
@@ -12,8 +11,7 @@ import { buildDefaultKit } from "../lib/audit/kits";
 import { parseKitFile, parseLayoutFile, SchemaError } from "../lib/audit/schema";
 import { auditToSmf } from "../lib/audit/smf";
 import { TEMPLATE_NAMES, getTemplate } from "../lib/audit/templates";
-import { tryMeasureBytes } from "../lib/audio";
-import { catalogueSamples, type CatalogueSampleInput } from "../lib/catalog/catalogue";
+import { catalogueFolder as sortFolder } from "./catalogue";
 import type { AuditResult, CatalogueInstrument, Kit, Layout, PlayFinding } from "../lib/audit/types";
 
 const USAGE = `usage: kitwright audit --layout <layout.json | template> --catalogue <folder | catalogue.json>
@@ -80,52 +78,17 @@ async function loadLayout(arg: string): Promise<Layout> {
   return parseLayoutFile(await readJson(arg, "layout"));
 }
 
-async function wavFiles(dir: string): Promise<string[]> {
-  const out: string[] = [];
-  const walk = async (d: string) => {
-    const entries = await readdir(d, { withFileTypes: true });
-    entries.sort((a, b) => a.name.localeCompare(b.name));
-    for (const e of entries) {
-      const p = path.join(d, e.name);
-      if (e.isDirectory()) await walk(p);
-      else if (e.isFile() && /\.wav$/i.test(e.name)) out.push(p);
-    }
-  };
-  await walk(dir);
-  return out;
-}
-
-/** Catalogue a folder as `kitwright catalogue` does: measure every WAV (lib/audio), sort them (lib/catalog). */
-async function catalogueFolder(dir: string, warn: (s: string) => void): Promise<CatalogueInstrument[]> {
-  const files = await wavFiles(dir);
-  if (files.length === 0) throw new UsageError(`no .wav files under ${dir}`);
-  const samples: CatalogueSampleInput[] = [];
-  const pitch = new Map<string, number>();
-  for (const file of files) {
-    const rel = path.relative(dir, file).split(path.sep).join("/");
-    const bytes = new Uint8Array(await readFile(file));
-    const m = tryMeasureBytes(bytes);
-    if (!m.ok) {
-      warn(`refused ${rel}: ${m.reason}`);
-      continue;
-    }
-    samples.push({ id: rel, path: rel, measurement: m.measurement });
-    if (m.measurement.pitchHz !== null) pitch.set(rel, m.measurement.pitchHz);
-  }
-  const result = catalogueSamples(samples);
-  const reading = readCatalogue(result);
+/**
+ * Catalogue a folder exactly as `kitwright catalogue` does (the same function: measure every WAV with lib/audio,
+ * sort with lib/catalog, instrument pitch included), then read it as the auditor's input with the converter the
+ * server uses too (lib/audit/catalogue-input.ts).
+ */
+function catalogueFolder(dir: string, warn: (s: string) => void): CatalogueInstrument[] {
+  const { catalogue, refused } = sortFolder(dir);
+  if (catalogue.samples.length === 0 && refused.length === 0) throw new UsageError(`no .wav files under ${dir}`);
+  for (const r of refused) warn(`refused ${r.path}: ${r.reason}`);
+  const reading = readCatalogue(catalogue);
   for (const p of reading.problems) warn(`catalogue: ${p}`);
-  // Instrument pitch (to order toms high to low): median measured pitch of its centre hits, else of all its samples.
-  const entries = result.samples;
-  for (const inst of reading.instruments) {
-    const mine = entries.filter((e) => e.instrumentKey === inst.id && pitch.has(e.id));
-    const centre = mine.filter((e) => e.articulation === "centre");
-    const values = (centre.length ? centre : mine).map((e) => pitch.get(e.id)!).sort((a, b) => a - b);
-    if (values.length && inst.pitchHz == null) {
-      const mid = values.length >> 1;
-      inst.pitchHz = values.length % 2 ? values[mid]! : (values[mid - 1]! + values[mid]!) / 2;
-    }
-  }
   return reading.instruments;
 }
 

@@ -115,7 +115,7 @@ export function toText(cat: Catalogue, refused: Refused[], folder: string): stri
   out.push(`${folder}: ${cat.samples.length} catalogued, ${refused.length} refused, ${cat.instruments.length} instruments, ${cat.groups.length} layer groups (curve: ${cat.curve.kind === "dls" ? "DLS Level 1" : "Dannenberg 2006"})`, "");
   for (const s of cat.samples) out.push(line(s));
   out.push("", "Instruments:");
-  for (const i of cat.instruments) out.push(`  ${i.displayName} (${i.family}): ${i.sampleIds.length} samples`);
+  for (const i of cat.instruments) out.push(`  ${i.displayName} (${i.family}): ${i.sampleIds.length} samples${i.pitchHz === null ? "" : `, pitch ${i.pitchHz.toFixed(1)} Hz`}`);
   out.push("", "Layer groups:");
   for (const g of cat.groups) {
     out.push(`  ${g.label}: ${g.layers.length} layer${g.layers.length === 1 ? "" : "s"} (${g.criterion})`);

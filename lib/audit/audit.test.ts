@@ -41,6 +41,18 @@ describe("default kit (toms high to low by pitch: common practice, no published 
     expect(bySlot["cowbell"]).toBe("cowbell");
   });
 
+  it("does not depend on the order the catalogue lists its instruments in: equally rich snares go by name", () => {
+    // two snares with the same articulations and takes; the app lists instruments by name, the command line by key
+    const piccolo = { ...cat.find((i) => i.id === "snare-14")!, id: "snare-13-piccolo", name: "Piccolo snare 13" };
+    const toms = cat.filter((i) => i.family === "tom").map((i) => ({ ...i, pitchHz: null }));
+    const a = [...cat, piccolo, ...toms.map((t) => ({ ...t, id: `${t.id}-b` }))];
+    const layout = getTemplate("grid-24")!;
+    const slots = (list: typeof a) => Object.fromEntries(buildDefaultKit(layout, list).slots.filter((s) => !s.id.startsWith("extra-")).map((s) => [s.id, s.instrumentId]));
+    expect(slots([...a].reverse())).toEqual(slots(a));
+    // "Piccolo snare 13" < "Snare 14 brass" (name order, not listing order)
+    expect(slots(a).snare).toBe("snare-13-piccolo");
+  });
+
   it("infers slot families from slot ids when a layout has no slot list", () => {
     const layout = getTemplate("grid-2x8")!;
     delete layout.slots;

@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { readCatalogue } from "./catalogue-input";
+import { catalogueSamples, type CatalogueSampleInput } from "../catalog/catalogue";
+import { measurement } from "../catalog/test-helpers";
+import { readCatalogue, readLayers } from "./catalogue-input";
 import { catalogueToFile } from "./schema";
 import { testCatalogue } from "./test-catalogue";
 
@@ -36,5 +38,59 @@ describe("reading catalogues for the audit", () => {
   it("says what it cannot read", () => {
     expect(readCatalogue({ foo: 1 }).problems).toEqual(["no instruments list found"]);
     expect(readCatalogue([{ id: "x", family: "bongo" }]).problems).toEqual(['instrument x: unknown family "bongo"']);
+  });
+
+  it("reads catalogueSamples()' output as it is: keys as ids, display names, pitch, every group's layers", () => {
+    const lib: CatalogueSampleInput[] = [];
+    const tom = { pitchHz: 140, bodyCentroidHz: 300, strikeCentroidHz: 1000, strikeFlatness: 0.03, bodyFlatness: 0.02, decaySec: 0.8 };
+    for (const [v, lufs] of [[1, -30], [2, -18]] as const) for (const rr of [1, 2]) lib.push({ id: `t${v}${rr}`, path: `Toms/Tom1_Center_v${v}_rr${rr}.wav`, measurement: measurement(tom, { strikeLufs: lufs + rr / 10 }) });
+    const cat = catalogueSamples(lib);
+    const r = readCatalogue(JSON.parse(JSON.stringify(cat)));
+    expect(r.problems).toEqual([]);
+    expect(r.instruments).toEqual([
+      {
+        id: "tom:1", name: "Tom 1", family: "tom", pitchHz: 140,
+        articulations: [{ articulation: "centre", mic: null, layers: cat.groups[0]!.layers.map(({ index, velocityLow, velocityHigh, meanStrikeLufs, sampleIds }) => ({ index, velocityLow, velocityHigh, meanStrikeLufs, sampleIds })) }],
+      },
+    ]);
+    expect(r.instruments[0]!.articulations[0]!.layers.map((l) => l.sampleIds)).toEqual([["t11", "t12"], ["t21", "t22"]]);
+  });
+
+  it("layers: velocities are whole numbers 1-127 (MIDI 1.0 note-on; 0 is note-off): rounded, clamped, each change reported", () => {
+    const problems: string[] = [];
+    const layers = readLayers(
+      [
+        { velocityLow: 0, velocityHigh: 40.6, sampleIds: ["a"] },
+        { index: 1, velocityLow: 42, velocityHigh: 300, meanStrikeLufs: -20, sampleIds: ["b", 7, "c"] },
+        { velocityLow: 90, velocityHigh: 80, sampleIds: ["d"] },
+        { velocityLow: "10", velocityHigh: 20, sampleIds: ["e"] },
+        { velocityLow: 1, velocityHigh: 2 },
+        "layer",
+      ],
+      "g",
+      problems,
+    );
+    expect(layers).toEqual([
+      { index: 0, velocityLow: 1, velocityHigh: 41, meanStrikeLufs: NaN, sampleIds: ["a"] },
+      { index: 1, velocityLow: 42, velocityHigh: 127, meanStrikeLufs: -20, sampleIds: ["b", "c"] },
+    ]);
+    expect(problems).toEqual([
+      "g.layers[0]: velocityLow 0 read as 1 (velocities are whole numbers 1-127)",
+      "g.layers[0]: velocityHigh 40.6 read as 41 (velocities are whole numbers 1-127)",
+      "g.layers[1]: velocityHigh 300 read as 127 (velocities are whole numbers 1-127)",
+      "g.layers[2]: velocityLow 90 is above velocityHigh 80; layer left out",
+      "g.layers[3]: needs velocityLow, velocityHigh and sampleIds",
+      "g.layers[4]: needs velocityLow, velocityHigh and sampleIds",
+      "g.layers[5]: not an object",
+    ]);
+  });
+
+  it("an instrument listed twice keeps the first; a pitch that is not a positive number is read as none", () => {
+    const r = readCatalogue([
+      { id: "t", family: "tom", name: "First", pitchHz: 0 },
+      { id: "t", family: "tom", name: "Second", pitchHz: 120 },
+    ]);
+    expect(r.instruments).toEqual([{ id: "t", name: "First", family: "tom", pitchHz: null, articulations: [] }]);
+    expect(r.problems).toEqual(["instrument t: pitchHz 0 is not a positive number; read as none", "instrument t: listed twice; the first is kept"]);
   });
 });

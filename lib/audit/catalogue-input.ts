@@ -1,6 +1,18 @@
-// Turning a catalogue from elsewhere (the cataloguer's output, a kitwright.catalogue/v1 file) into the
-// auditor's CatalogueInstrument list. Tolerant of field names (id/key, name/displayName), strict on values:
-// anything it cannot read is reported, nothing is silently invented.
+// The one converter from a catalogue to the auditor's CatalogueInstrument list. The command line feeds it the
+// cataloguer's output (lib/catalog catalogueSamples()) or a catalogue file; the server feeds it the rows the
+// regroup wrote (instruments + layer_groups, lib/server/kits/catalogue-for-audit.ts). Tolerant of field names
+// (id/key, name/displayName, instrumentId/instrumentKey), strict on values: anything it cannot read, and every
+// value it changes, is reported in `problems`, one line each; nothing is silently invented.
+//
+// Layers (readLayers, the only reader of layers):
+// - a layer needs numeric velocityLow and velocityHigh and a sampleIds list (its round robins); otherwise it is
+//   left out and reported;
+// - velocities are MIDI 1.0 note-on velocities, whole numbers 1-127 (0 means note-off): a bound that is not a
+//   whole number is rounded, one outside 1-127 is clamped into it, and each change is reported; a layer whose
+//   low bound is then above its high bound is left out and reported;
+// - index defaults to the layer's position in the list, meanStrikeLufs to NaN when absent or not finite;
+//   sampleIds keeps its strings.
+// An instrument's pitchHz is a positive number or null (anything else is reported and read as null).
 
 import { isArticulation, isFamily } from "../catalog/taxonomy";
 import { CATALOGUE_SCHEMA, parseCatalogueFile } from "./schema";
@@ -13,23 +25,35 @@ const num = (x: unknown): number | null => (typeof x === "number" && Number.isFi
 
 export interface CatalogueReading {
   instruments: CatalogueInstrument[];
-  /** What could not be read, one line each. */
+  /** What could not be read or was changed, one line each. */
   problems: string[];
 }
 
-function readLayers(raw: unknown, where: string, problems: string[]): CatalogueLayer[] {
+/** A velocity bound as a whole number 1-127 (rounded, then clamped); the change is reported. */
+function velocity(v: number, what: string, problems: string[]): number {
+  const out = Math.max(1, Math.min(127, Math.round(v)));
+  if (out !== v) problems.push(`${what} ${v} read as ${out} (velocities are whole numbers 1-127)`);
+  return out;
+}
+
+/** The layers of one articulation (rules in the header). */
+export function readLayers(raw: unknown, where: string, problems: string[]): CatalogueLayer[] {
   if (!Array.isArray(raw)) {
     problems.push(`${where}: no layers list`);
     return [];
   }
   const out: CatalogueLayer[] = [];
   raw.forEach((l, i) => {
-    if (!isObj(l)) return void problems.push(`${where}.layers[${i}]: not an object`);
+    const at = `${where}.layers[${i}]`;
+    if (!isObj(l)) return void problems.push(`${at}: not an object`);
     const lo = num(l.velocityLow);
     const hi = num(l.velocityHigh);
     const ids = Array.isArray(l.sampleIds) ? l.sampleIds.filter((s): s is string => typeof s === "string") : null;
-    if (lo === null || hi === null || ids === null) return void problems.push(`${where}.layers[${i}]: needs velocityLow, velocityHigh and sampleIds`);
-    out.push({ index: num(l.index) ?? i, velocityLow: lo, velocityHigh: hi, meanStrikeLufs: num(l.meanStrikeLufs) ?? NaN, sampleIds: ids });
+    if (lo === null || hi === null || ids === null) return void problems.push(`${at}: needs velocityLow, velocityHigh and sampleIds`);
+    const low = velocity(lo, `${at}: velocityLow`, problems);
+    const high = velocity(hi, `${at}: velocityHigh`, problems);
+    if (low > high) return void problems.push(`${at}: velocityLow ${low} is above velocityHigh ${high}; layer left out`);
+    out.push({ index: num(l.index) ?? i, velocityLow: low, velocityHigh: high, meanStrikeLufs: num(l.meanStrikeLufs) ?? NaN, sampleIds: ids });
   });
   return out;
 }
@@ -41,9 +65,18 @@ function readArticulation(raw: unknown, where: string, problems: string[]): Cata
   return { articulation: a, mic: str(raw.mic), layers: readLayers(raw.layers, where, problems) };
 }
 
+function readPitch(raw: unknown, where: string, problems: string[]): number | null {
+  if (raw === null || raw === undefined) return null;
+  const p = num(raw);
+  if (p !== null && p > 0) return p;
+  problems.push(`${where}: pitchHz ${JSON.stringify(raw)} is not a positive number; read as none`);
+  return null;
+}
+
 /**
- * Read a catalogue: a kitwright.catalogue/v1 document, a bare list of instruments, or an object with
- * `instruments` (and optionally `groups`: { instrumentId|instrumentKey, articulation, mic, layers }).
+ * Read a catalogue: a kitwright.catalogue/v1 document (validated by its schema, SchemaError when invalid), a bare
+ * list of instruments, or an object with `instruments` (and optionally `groups`: { instrumentId|instrumentKey,
+ * articulation, mic, layers }), such as catalogueSamples() returns. Instruments keep their input order.
  */
 export function readCatalogue(input: unknown): CatalogueReading {
   if (isObj(input) && input.schema === CATALOGUE_SCHEMA) return { instruments: parseCatalogueFile(input), problems: [] };
@@ -59,10 +92,11 @@ export function readCatalogue(input: unknown): CatalogueReading {
     const family = str(raw.family);
     if (!id) return void problems.push(`instruments[${i}]: no id`);
     if (!family || !isFamily(family)) return void problems.push(`instrument ${id}: unknown family ${JSON.stringify(raw.family)}`);
+    if (byId.has(id)) return void problems.push(`instrument ${id}: listed twice; the first is kept`);
     const arts = Array.isArray(raw.articulations)
       ? raw.articulations.map((a, j) => readArticulation(a, `instrument ${id}.articulations[${j}]`, problems)).filter((a): a is CatalogueArticulation => !!a)
       : [];
-    byId.set(id, { id, name: str(raw.name) ?? str(raw.displayName) ?? id, family, pitchHz: num(raw.pitchHz), articulations: arts });
+    byId.set(id, { id, name: str(raw.name) ?? str(raw.displayName) ?? id, family, pitchHz: readPitch(raw.pitchHz, `instrument ${id}`, problems), articulations: arts });
   });
   if (isObj(input) && Array.isArray(input.groups)) {
     input.groups.forEach((g, i) => {

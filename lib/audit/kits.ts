@@ -3,7 +3,9 @@
 // One slot per catalogued instrument: each slot the layout expects takes the next unused instrument of its
 // family. Toms go from high to low measured pitch (common practice, no published source: "toms are ordered
 // from high to low pitch"; toms without a pitch come after, by name). Other families take the instrument with
-// the most recorded articulations first, then the most samples, then catalogue order. Percussion slots
+// the most recorded articulations first, then the most samples, then by name (then id). The kit never depends
+// on the order the catalogue lists its instruments in: the server lists them by library and name, the command
+// line by key, and both must fill a layout's slots alike. Percussion slots
 // (hand drum, cowbell, shaker, other) first take an instrument whose name carries the slot's word.
 // An instrument is never used twice; expected slots with no instrument left stay empty (their pads go
 // silent); instruments no slot asked for are appended as extra slots so the kit holds all of them.
@@ -79,9 +81,11 @@ function recordedCount(i: CatalogueInstrument): number {
 function sampleCount(i: CatalogueInstrument): number {
   return i.articulations.reduce((s, a) => s + a.layers.reduce((t, l) => t + l.sampleIds.length, 0), 0);
 }
-/** Other families: the instrument with the most recorded articulations first, then the most samples (stable). */
+const byName = (a: CatalogueInstrument, b: CatalogueInstrument) => a.name.localeCompare(b.name) || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
+
+/** Other families: the instrument with the most recorded articulations first, then the most samples, then by name. */
 function richerFirst(a: CatalogueInstrument, b: CatalogueInstrument): number {
-  return recordedCount(b) - recordedCount(a) || sampleCount(b) - sampleCount(a);
+  return recordedCount(b) - recordedCount(a) || sampleCount(b) - sampleCount(a) || byName(a, b);
 }
 
 function tomOrder(a: CatalogueInstrument, b: CatalogueInstrument): number {
@@ -90,7 +94,7 @@ function tomOrder(a: CatalogueInstrument, b: CatalogueInstrument): number {
   if (pa !== null && pb !== null && pa !== pb) return pb - pa;
   if (pa !== null && pb === null) return -1;
   if (pa === null && pb !== null) return 1;
-  return a.name.localeCompare(b.name);
+  return byName(a, b);
 }
 
 /** Build a kit for `layout` from the instruments of `catalogue` (rules above). */

@@ -77,6 +77,18 @@ describe("catalogueSamples", () => {
     expect(b).toEqual(a);
     expect(() => catalogueSamples([lib[0]!, lib[0]!])).toThrow(/twice/);
   });
+  it("gives each instrument its pitch: the median of its centre hits (edge hits measure an upper mode), else null", () => {
+    const lib: CatalogueSampleInput[] = [];
+    const add = (path: string, pitchHz: number | null, lufs: number) => lib.push({ id: path, path, measurement: measurement({ ...TOM, pitchHz }, { strikeLufs: lufs }) });
+    add("Toms/Tom1_Center_v1.wav", 139, -30);
+    add("Toms/Tom1_Center_v2.wav", 142, -20);
+    for (const [i, hz] of [238, 240, 242].entries()) add(`Toms/Tom1_Edge_v${i + 1}.wav`, hz, -30 + 5 * i);
+    add("Toms/Tom2_Center_v1.wav", 180, -25);
+    lib.push({ id: "crash", path: "Crash/Crash_Hit_v1.wav", measurement: measurement(CRASH, { strikeLufs: -20 }) });
+    const pitch = Object.fromEntries(catalogueSamples(lib).instruments.map((i) => [i.key, i.pitchHz]));
+    // (139 + 142) / 2 = 140.5 (the median of an even count; NIST/SEMATECH e-Handbook 1.3.5.1, from memory)
+    expect(pitch).toEqual({ "tom:1": 140.5, "tom:2": 180, "crash:main": null });
+  });
   it("the Dannenberg curve can be chosen instead of DLS", () => {
     const c = catalogueSamples(library(), { curve: { kind: "dannenberg" } });
     const snare = c.groups.find((g) => g.instrumentKey === "snare:14x6.5-brass")!;

@@ -1,10 +1,12 @@
 // The whole sorted catalogue of a set of measured samples: per sample its family, articulation (with label
 // sources), instrument, mic, velocity layer and round robin; the instruments; the layer groups; the health
-// findings. Called by the CLI (`kitwright catalogue`) and by the server's regroup worker. Pure.
+// findings. Called by the CLI (`kitwright catalogue`, `kitwright audit`) and by the server's regroup worker, so
+// both give the same answers for the same files. Pure.
 
 import type { Measurement } from "../audio/types";
 import { articulationFromSound, nameSoundConflict, suggestFromSound, type LabelModel, type NameSoundConflict, type SoundSuggestion } from "./classify";
 import { conflictHealth, fileHealth, layerHealth, sortFindings, type HealthFinding, type HealthOptions } from "./health";
+import { instrumentPitchHz } from "./instrument-pitch";
 import { groupInstruments, instrumentDisplayName, splitByPitch, type Instrument } from "./instruments";
 import { sortLayers, type Layer, type LayerOptions } from "./layers";
 import { parseName, type MicPosition, type NameInfo } from "./names";
@@ -75,9 +77,15 @@ export interface LayerGroup {
   layers: Layer[];
 }
 
+/** An instrument of the catalogue with its pitch (instrument-pitch.ts: the one rule the app and the CLI use). */
+export interface SortedInstrument extends Instrument {
+  /** Median measured pitch of its main-stroke hits (else of all its samples), 0.01 Hz; null when none has a pitch. */
+  pitchHz: number | null;
+}
+
 export interface Catalogue {
   samples: CatalogueEntry[];
-  instruments: Instrument[];
+  instruments: SortedInstrument[];
   groups: LayerGroup[];
   health: HealthFinding[];
   curve: VelocityCurve;
@@ -252,5 +260,13 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
     };
   });
 
-  return { samples: entries, instruments, groups, health: sortFindings(findings), curve };
+  // 5. instrument pitch, from the hits as labelled above
+  const entryById = new Map(entries.map((e) => [e.id, e]));
+  const pitchOf = new Map(work.map((w) => [w.s.id, w.s.measurement.pitchHz]));
+  const withPitch: SortedInstrument[] = instruments.map((inst) => ({
+    ...inst,
+    pitchHz: instrumentPitchHz(inst.family, inst.sampleIds.map((id) => ({ articulation: entryById.get(id)!.articulation, pitchHz: pitchOf.get(id) }))),
+  }));
+
+  return { samples: entries, instruments: withPitch, groups, health: sortFindings(findings), curve };
 }

@@ -1,7 +1,8 @@
 import "server-only";
 // Regroup of a library: every catalogued sample + its confirmed labels + the studio's label model through
 // lib/catalog's catalogueSamples(); then, in one transaction, the per-sample labels, layers and round robins,
-// the instruments (upserted by key so ids stay stable; gone ones deleted), the layer groups and the health.
+// the instruments with their pitch (upserted by key so ids stay stable; gone ones deleted), the layer groups and
+// the health. Nothing is computed here that the command line would compute otherwise.
 import { buildLabelModel, catalogueSamples, featureVector, isArticulation, isFamily, MIC_POSITIONS, type CatalogueSampleInput, type LabelModel, type MicPosition } from "@/lib/catalog";
 import type { Measurement } from "@/lib/audio";
 import { DLS, type VelocityCurve } from "@/lib/catalog/velocity";
@@ -62,15 +63,10 @@ export async function regroupLibrary({ studioId, libraryId }: { studioId: string
     // instruments: stable ids per key; a member's name is kept
     const existing = await trx("instruments").where({ library_id: libraryId }).select("id", "key", "name_source");
     const exByKey = new Map(existing.map((x) => [x.key as string, x]));
-    const pitch = new Map<string, number[]>();
-    for (const s of inputs) {
-      const e = cat.samples.find((x) => x.id === s.id);
-      if (e && s.measurement.pitchHz) (pitch.get(e.instrumentKey) ?? pitch.set(e.instrumentKey, []).get(e.instrumentKey)!).push(s.measurement.pitchHz);
-    }
-    const median = (xs: number[]) => (xs.length ? [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]! : null);
     for (const inst of cat.instruments) {
       const ex = exByKey.get(inst.key);
-      const row = { family: inst.family, sample_count: inst.sampleIds.length, pitch_hz: median(pitch.get(inst.key) ?? []), updated_at: trx.fn.now(3) };
+      // the instrument's pitch comes from lib/catalog (instrument-pitch.ts), as the command line's does
+      const row = { family: inst.family, sample_count: inst.sampleIds.length, pitch_hz: inst.pitchHz, updated_at: trx.fn.now(3) };
       if (ex) await trx("instruments").where({ id: ex.id }).update(ex.name_source === "person" ? row : { ...row, name: inst.displayName.slice(0, 160) });
       else await trx("instruments").insert({ id: newId(), studio_id: studioId, library_id: libraryId, key: inst.key, name: inst.displayName.slice(0, 160), ...row });
     }

@@ -1,13 +1,24 @@
 import "server-only";
 // A studio's catalogue as the auditor reads it: the `instruments` rows of every library of the studio, with
 // their articulations from `layer_groups` (linked by library id + instrument key). The regroup job fills both
-// tables; until it has run, a studio simply has no instruments (audits then report empty slots / silence).
+// tables from lib/catalog (pitch included); until it has run, a studio simply has no instruments (audits then
+// report empty slots / silence). This module only reads the rows: they go through the same converter as the
+// command line's catalogues (lib/audit/catalogue-input.ts readCatalogue), so layers are read, clamped and
+// reported one way everywhere.
 import type { Knex } from "knex";
 import { db } from "../db";
-import { isArticulation, isFamily, type Family } from "@/lib/catalog/taxonomy";
-import type { CatalogueArticulation, CatalogueInstrument, CatalogueLayer } from "@/lib/audit/types";
+import type { Family } from "@/lib/catalog/taxonomy";
+import { readCatalogue } from "@/lib/audit/catalogue-input";
+import type { CatalogueInstrument } from "@/lib/audit/types";
 
-const parseJson = (v: unknown): unknown => (typeof v === "string" ? JSON.parse(v) : v);
+const parseJson = (v: unknown): unknown => {
+  if (typeof v !== "string") return v;
+  try {
+    return JSON.parse(v);
+  } catch {
+    return null; // reported by the converter as "no layers list"
+  }
+};
 
 /** One instrument as the kit editor lists it (family, library, sample counts). */
 export interface InstrumentChoice {
@@ -26,63 +37,42 @@ export interface StudioCatalogueInstrument extends CatalogueInstrument {
   libraryId: string;
 }
 
-function readLayers(raw: unknown): CatalogueLayer[] {
-  const arr = parseJson(raw);
-  if (!Array.isArray(arr)) return [];
-  const out: CatalogueLayer[] = [];
-  arr.forEach((l, i) => {
-    if (!l || typeof l !== "object") return;
-    const o = l as Record<string, unknown>;
-    const lo = Number(o.velocityLow);
-    const hi = Number(o.velocityHigh);
-    if (!Number.isFinite(lo) || !Number.isFinite(hi)) return;
-    out.push({
-      index: Number.isFinite(Number(o.index)) ? Number(o.index) : i,
-      velocityLow: Math.max(1, Math.min(127, Math.round(lo))),
-      velocityHigh: Math.max(1, Math.min(127, Math.round(hi))),
-      meanStrikeLufs: Number.isFinite(Number(o.meanStrikeLufs)) ? Number(o.meanStrikeLufs) : NaN,
-      sampleIds: Array.isArray(o.sampleIds) ? o.sampleIds.filter((s): s is string => typeof s === "string") : [],
-    });
+/**
+ * The studio's catalogue for lib/audit (every library, or only the given instrument ids), with what the
+ * converter could not read (rows with a family or articulation Kitwright does not know are left out and named).
+ */
+export async function readStudioCatalogue(
+  { studioId, instrumentIds }: { studioId: string; instrumentIds?: readonly string[] },
+  k: Knex = db(),
+): Promise<{ instruments: StudioCatalogueInstrument[]; problems: string[] }> {
+  if (instrumentIds && instrumentIds.length === 0) return { instruments: [], problems: [] };
+  const iq = k("instruments").where({ studio_id: studioId }).orderBy([{ column: "library_id" }, { column: "name" }]).select("id", "library_id", "key", "name", "family", "pitch_hz");
+  if (instrumentIds) iq.whereIn("id", [...instrumentIds]);
+  const insts = await iq;
+  if (!insts.length) return { instruments: [], problems: [] };
+  const libs = [...new Set(insts.map((r) => r.library_id as string))];
+  const groups = await k("layer_groups").where({ studio_id: studioId }).whereIn("library_id", libs).orderBy("id").select("library_id", "instrument_key", "articulation", "mic", "layers");
+  const idByKey = new Map(insts.map((r) => [`${r.library_id}\u0000${r.key}`, r.id as string]));
+  const reading = readCatalogue({
+    instruments: insts.map((r) => ({ id: r.id, name: r.name, family: r.family, pitchHz: r.pitch_hz === null || r.pitch_hz === undefined ? null : Number(r.pitch_hz) })),
+    // groups of instruments not asked for are not read
+    groups: groups.flatMap((g) => {
+      const instrumentId = idByKey.get(`${g.library_id}\u0000${g.instrument_key}`);
+      return instrumentId ? [{ instrumentId, articulation: g.articulation, mic: g.mic ?? null, layers: parseJson(g.layers) }] : [];
+    }),
   });
-  return out;
+  const libraryOf = new Map(insts.map((r) => [r.id as string, r.library_id as string]));
+  return { instruments: reading.instruments.map((i) => ({ ...i, libraryId: libraryOf.get(i.id)! })), problems: reading.problems };
 }
 
-/**
- * The studio's catalogue for lib/audit (every library, or only the given instrument ids).
- * Rows with a family or articulation Kitwright does not know are skipped.
- */
+/** The studio's catalogue for lib/audit; what could not be read is logged (and left out). */
 export async function loadStudioCatalogue(
   { studioId, instrumentIds }: { studioId: string; instrumentIds?: readonly string[] },
   k: Knex = db(),
 ): Promise<StudioCatalogueInstrument[]> {
-  if (instrumentIds && instrumentIds.length === 0) return [];
-  const iq = k("instruments").where({ studio_id: studioId }).orderBy([{ column: "library_id" }, { column: "name" }]).select("id", "library_id", "key", "name", "family", "pitch_hz");
-  if (instrumentIds) iq.whereIn("id", [...instrumentIds]);
-  const insts = await iq;
-  if (!insts.length) return [];
-  const libs = [...new Set(insts.map((r) => r.library_id as string))];
-  const groups = await k("layer_groups").where({ studio_id: studioId }).whereIn("library_id", libs).orderBy("id").select("library_id", "instrument_key", "articulation", "mic", "layers");
-  const byKey = new Map<string, CatalogueArticulation[]>();
-  for (const g of groups) {
-    if (!isArticulation(g.articulation)) continue;
-    const key = `${g.library_id}\u0000${g.instrument_key}`;
-    const list = byKey.get(key) ?? [];
-    list.push({ articulation: g.articulation, mic: g.mic ?? null, layers: readLayers(g.layers) });
-    byKey.set(key, list);
-  }
-  const out: StudioCatalogueInstrument[] = [];
-  for (const r of insts) {
-    if (!isFamily(r.family)) continue;
-    out.push({
-      id: r.id,
-      name: r.name,
-      family: r.family,
-      pitchHz: r.pitch_hz === null || r.pitch_hz === undefined ? null : Number(r.pitch_hz),
-      libraryId: r.library_id,
-      articulations: byKey.get(`${r.library_id}\u0000${r.key}`) ?? [],
-    });
-  }
-  return out;
+  const { instruments, problems } = await readStudioCatalogue({ studioId, instrumentIds }, k);
+  for (const p of problems) console.warn(`[catalogue] studio ${studioId}: ${p}`);
+  return instruments;
 }
 
 /** Instruments of the studio for the kit editor's picker. */

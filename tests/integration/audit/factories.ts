@@ -40,7 +40,7 @@ export async function addInstrument(k: Knex, studioId: string, libraryId: string
   return id;
 }
 
-export async function addLayerGroup(k: Knex, studioId: string, libraryId: string, instrumentKey: string, articulation: string, layers: ReturnType<typeof evenLayers>, mic: string | null = "close"): Promise<void> {
+export async function addLayerGroup(k: Knex, studioId: string, libraryId: string, instrumentKey: string, articulation: string, layers: { index: number; velocityLow: number; velocityHigh: number; meanStrikeLufs: number; sampleIds: string[] }[], mic: string | null = "close"): Promise<void> {
   await k("layer_groups").insert({
     studio_id: studioId, library_id: libraryId, group_key: `${instrumentKey}|${articulation}|${mic ?? ""}`, instrument_key: instrumentKey,
     articulation, mic, label: `${instrumentKey} ${articulation}`, count_from: "name", criterion: null, layers: JSON.stringify(layers),
