@@ -91,7 +91,7 @@ export const IDENTITY: IdentityParams = {
   pitchPerDb: 0.03,
   decayPerDb: 0.01,
   termCap: 4,
-  pitchCap: 1.5,
+  pitchCap: 2.5,
   bend: true,
   scalePerDb: 0.01,
   splitDistance: 1.05,
