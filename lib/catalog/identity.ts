@@ -111,9 +111,9 @@ const BARK_TO_DB = 20 / 0.23;
 
 export interface IdentityFeatures {
   /** Strike envelope: 24 band levels in dB relative to the loudest band, floored. */
-  strike: number[] | null;
+  strike: ArrayLike<number> | null;
   /** Body envelope (null when the body was too short to measure: the strike's is used). */
-  body: number[] | null;
+  body: ArrayLike<number> | null;
   /** Pitch in semitones re A440, or null. */
   pitchSt: number | null;
   /** log2 of the decay time in seconds, or null. */
@@ -122,7 +122,7 @@ export interface IdentityFeatures {
 }
 
 /** Band levels (dB re the loudest band, floored) of a spectral summary; null when it has no energy. */
-export function envelopeDb(s: SpectralSummary | null | undefined, floorDb = IDENTITY.floorDb, width = IDENTITY.bandWidth): number[] | null {
+export function envelopeDb(s: SpectralSummary | null | undefined, floorDb = IDENTITY.floorDb, width = IDENTITY.bandWidth): Float64Array | null {
   const raw = s?.barkLoudness;
   if (!raw || raw.length === 0) return null;
   // wider bands: the mean specific loudness of `width` neighbouring Bark bands
@@ -134,7 +134,7 @@ export function envelopeDb(s: SpectralSummary | null | undefined, floorDb = IDEN
   const db = b.map((v) => (Number.isFinite(v) && v > 0 ? BARK_TO_DB * Math.log10(v) : -Infinity));
   const max = Math.max(...db);
   if (!Number.isFinite(max)) return null;
-  return db.map((x) => Math.max(floorDb, x - max));
+  return Float64Array.from(db, (x) => Math.max(floorDb, x - max));
 }
 
 export function identityFeatures(m: Measurement, p: IdentityParams = IDENTITY): IdentityFeatures {
@@ -157,33 +157,58 @@ export function identityFeatures(m: Measurement, p: IdentityParams = IDENTITY): 
  * orthogonal to it (its value: how much higher both ends sit than the middle). A brighter stroke lifts the
  * upper bands above a knee rather than along a straight line: tilt and bend together follow that shape.
  */
-export function shapeResidualDb(a: number[], b: number[], maxShape: number, bend = true): { residualDb: number; tiltDb: number; bendDb: number } {
+export function shapeResidualDb(a: ArrayLike<number>, b: ArrayLike<number>, maxShape: number, bend = true): { residualDb: number; tiltDb: number; bendDb: number } {
+  const out = { residualDb: 0, tiltDb: 0, bendDb: 0 };
+  out.residualDb = shapeResidual(a, b, maxShape, bend, out);
+  return out;
+}
+
+/** shapeResidualDb without allocations (it runs once per pair of hits); fills `fit` when given. */
+function shapeResidual(a: ArrayLike<number>, b: ArrayLike<number>, maxShape: number, bend: boolean, fit?: { tiltDb: number; bendDb: number }): number {
   const n = Math.min(a.length, b.length);
-  if (n === 0) return { residualDb: 0, tiltDb: 0, bendDb: 0 };
-  const mid = (n - 1) / 2;
-  const span = Math.max(1, n - 1);
-  const x = Array.from({ length: n }, (_, i) => (i - mid) / span); // -0.5 .. 0.5
-  const mx2 = x.reduce((s, v) => s + v * v, 0) / n;
-  const q = x.map((v) => v * v - mx2); // orthogonal to the constant and (by symmetry) to x
-  const qEnds = 0.25 - mx2 - (0 - mx2); // end value minus middle value of q
-  const d = Array.from({ length: n }, (_, i) => a[i]! - b[i]!);
-  const mean = d.reduce((s, v) => s + v, 0) / n;
-  let sxd = 0, sxx = 0, sqd = 0, sqq = 0;
+  if (n === 0) return 0;
+  const { x, q, sxx, sqq } = basisOf(n);
+  let mean = 0;
+  for (let i = 0; i < n; i++) mean += a[i]! - b[i]!;
+  mean /= n;
+  let sxd = 0, sqd = 0;
   for (let i = 0; i < n; i++) {
-    sxd += x[i]! * (d[i]! - mean);
-    sxx += x[i]! * x[i]!;
-    sqd += q[i]! * (d[i]! - mean);
-    sqq += q[i]! * q[i]!;
+    const d = a[i]! - b[i]! - mean;
+    sxd += x[i]! * d;
+    sqd += q[i]! * d;
   }
-  const clamp = (v: number) => Math.max(-maxShape, Math.min(maxShape, v));
-  const t = clamp(sxx > 0 ? sxd / sxx : 0);
-  const k = bend && sqq > 0 ? clamp((sqd / sqq) * qEnds) / qEnds : 0;
+  // q runs from its middle value to its end values by exactly 0.25: the bend in dB is k / 4
+  const t = Math.max(-maxShape, Math.min(maxShape, sxx > 0 ? sxd / sxx : 0));
+  const k = bend && sqq > 0 ? Math.max(-maxShape, Math.min(maxShape, sqd / sqq / 4)) * 4 : 0;
   let ss = 0;
   for (let i = 0; i < n; i++) {
-    const r = d[i]! - mean - t * x[i]! - k * q[i]!;
+    const r = a[i]! - b[i]! - mean - t * x[i]! - k * q[i]!;
     ss += r * r;
   }
-  return { residualDb: Math.sqrt(ss / n), tiltDb: t, bendDb: k * qEnds };
+  if (fit) {
+    fit.tiltDb = t;
+    fit.bendDb = k / 4;
+  }
+  return Math.sqrt(ss / n);
+}
+
+const bases = new Map<number, { x: Float64Array; q: Float64Array; sxx: number; sqq: number }>();
+let lastBasis: { n: number; x: Float64Array; q: Float64Array; sxx: number; sqq: number } | null = null;
+/** Band positions x (-0.5 .. 0.5) and the parabola q = x^2 - mean(x^2), orthogonal to the constant and to x. */
+function basisOf(n: number): { x: Float64Array; q: Float64Array; sxx: number; sqq: number } {
+  if (lastBasis?.n === n) return lastBasis;
+  let b = bases.get(n);
+  if (!b) {
+    const mid = (n - 1) / 2;
+    const span = Math.max(1, n - 1);
+    const x = Float64Array.from({ length: n }, (_, i) => (i - mid) / span);
+    const mx2 = x.reduce((s, v) => s + v * v, 0) / n;
+    const q = x.map((v) => v * v - mx2);
+    b = { x, q, sxx: x.reduce((s, v) => s + v * v, 0), sqq: q.reduce((s, v) => s + v * v, 0) };
+    bases.set(n, b);
+  }
+  lastBasis = { n, ...b };
+  return b;
 }
 
 export interface HitDistance {
@@ -201,21 +226,53 @@ export interface HitDistance {
 export function hitDistance(a: IdentityFeatures, b: IdentityFeatures, p: IdentityParams = IDENTITY): HitDistance {
   const gap = Number.isFinite(a.strikeLufs) && Number.isFinite(b.strikeLufs) ? Math.abs(a.strikeLufs - b.strikeLufs) : 0;
   const maxTilt = p.tiltFreeDb + p.tiltPerDb * gap;
-  const strikeDb = a.strike && b.strike ? shapeResidualDb(a.strike, b.strike, maxTilt, p.bend).residualDb : null;
-  const bodyDb = a.body && b.body ? shapeResidualDb(a.body, b.body, maxTilt, p.bend).residualDb : null;
+  const strikeDb = a.strike && b.strike ? shapeResidual(a.strike, b.strike, maxTilt, p.bend) : null;
+  const bodyDb = a.body && b.body ? shapeResidual(a.body, b.body, maxTilt, p.bend) : null;
   const pitchSt = a.pitchSt !== null && b.pitchSt !== null ? Math.max(0, Math.abs(a.pitchSt - b.pitchSt) - p.pitchPerDb * gap) : null;
   const decayOct = a.log2Decay !== null && b.log2Decay !== null ? Math.max(0, Math.abs(a.log2Decay - b.log2Decay) - p.decayPerDb * gap) : null;
-  const terms: number[] = [];
-  const add = (x: number | null, scale: number) => {
-    if (x !== null) terms.push(Math.min(p.termCap, x / scale));
-  };
+  return { distance: combine(p, gap, strikeDb, bodyDb, pitchSt, decayOct), strikeDb, bodyDb, pitchSt, decayOct, loudnessGapDb: gap };
+}
+
+/** The distance alone (no record): what the clustering calls once per pair. */
+export function hitDistanceValue(a: IdentityFeatures, b: IdentityFeatures, p: IdentityParams = IDENTITY): number {
+  const gap = Number.isFinite(a.strikeLufs) && Number.isFinite(b.strikeLufs) ? Math.abs(a.strikeLufs - b.strikeLufs) : 0;
+  const maxTilt = p.tiltFreeDb + p.tiltPerDb * gap;
+  return combine(
+    p,
+    gap,
+    a.strike && b.strike ? shapeResidual(a.strike, b.strike, maxTilt, p.bend) : null,
+    a.body && b.body ? shapeResidual(a.body, b.body, maxTilt, p.bend) : null,
+    a.pitchSt !== null && b.pitchSt !== null ? Math.max(0, Math.abs(a.pitchSt - b.pitchSt) - p.pitchPerDb * gap) : null,
+    a.log2Decay !== null && b.log2Decay !== null ? Math.max(0, Math.abs(a.log2Decay - b.log2Decay) - p.decayPerDb * gap) : null,
+  );
+}
+
+/** Root mean square of the scaled, capped terms present. */
+function combine(p: IdentityParams, gap: number, strikeDb: number | null, bodyDb: number | null, pitchSt: number | null, decayOct: number | null): number {
   const grow = 1 + p.scalePerDb * gap;
-  add(strikeDb, p.scale.strikeDb * grow);
-  add(bodyDb, p.scale.bodyDb * grow);
-  add(pitchSt === null ? null : Math.min(pitchSt / p.scale.pitchSt, p.pitchCap) * p.scale.pitchSt, p.scale.pitchSt);
-  add(decayOct, p.scale.decayOct);
-  const distance = terms.length ? Math.sqrt(terms.reduce((s, x) => s + x * x, 0) / terms.length) : 0;
-  return { distance, strikeDb, bodyDb, pitchSt, decayOct, loudnessGapDb: gap };
+  let sum = 0;
+  let count = 0;
+  if (strikeDb !== null) {
+    const v = Math.min(p.termCap, strikeDb / (p.scale.strikeDb * grow));
+    sum += v * v;
+    count++;
+  }
+  if (bodyDb !== null) {
+    const v = Math.min(p.termCap, bodyDb / (p.scale.bodyDb * grow));
+    sum += v * v;
+    count++;
+  }
+  if (pitchSt !== null) {
+    const v = Math.min(p.termCap, p.pitchCap, pitchSt / p.scale.pitchSt);
+    sum += v * v;
+    count++;
+  }
+  if (decayOct !== null) {
+    const v = Math.min(p.termCap, decayOct / p.scale.decayOct);
+    sum += v * v;
+    count++;
+  }
+  return count ? Math.sqrt(sum / count) : 0;
 }
 
 // ---------------------------------------------------------------------------------------------------------------
@@ -407,7 +464,7 @@ export function splitBySound(inst: Instrument, members: IdentityMember[], opts: 
   for (const [, cell] of [...cells.entries()].sort((a, b) => a[0].localeCompare(b[0]))) {
     if (cell.length < 2 || cell.length > maxCell) continue;
     const f = cell.map((m) => identityFeatures(m.measurement, p));
-    const clusters = clusterAtHeight(cell.length, (i, j) => hitDistance(f[i]!, f[j]!, p).distance / (cell[i]!.series && cell[j]!.series ? p.seriesDiscount : 1), p.splitDistance);
+    const clusters = clusterAtHeight(cell.length, (i, j) => hitDistanceValue(f[i]!, f[j]!, p) / (cell[i]!.series && cell[j]!.series ? p.seriesDiscount : 1), p.splitDistance);
     if (clusters.length < 2) continue;
     // the largest cluster stays; on a tie the one holding the first path (clusters are ordered by first index)
     let main = 0;
