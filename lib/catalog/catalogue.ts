@@ -6,6 +6,7 @@
 import type { Measurement } from "../audio/types";
 import { articulationFromSound, nameSoundConflict, suggestFromSound, type LabelModel, type NameSoundConflict, type SoundSuggestion } from "./classify";
 import { conflictHealth, fileHealth, layerHealth, sortFindings, type HealthFinding, type HealthOptions } from "./health";
+import { namesMarkSeries, splitBySound, type IdentityMember, type SoundInstrument } from "./identity";
 import { instrumentPitchHz } from "./instrument-pitch";
 import { groupInstruments, instrumentDisplayName, splitByPitch, type Instrument } from "./instruments";
 import { sortLayers, type Layer, type LayerOptions } from "./layers";
@@ -78,7 +79,7 @@ export interface LayerGroup {
 }
 
 /** An instrument of the catalogue with its pitch (instrument-pitch.ts: the one rule the app and the CLI use). */
-export interface SortedInstrument extends Instrument {
+export interface SortedInstrument extends SoundInstrument {
   /** Median measured pitch of its main-stroke hits (else of all its samples), 0.01 Hz; null when none has a pitch. */
   pitchHz: number | null;
 }
@@ -170,7 +171,7 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
 
   // 2. instruments
   const { instruments: autoInstruments, bySample } = groupInstruments(work.map((w) => ({ id: w.s.id, family: w.family, stem: w.n.stem })));
-  let instruments = autoInstruments;
+  let instruments: SoundInstrument[] = autoInstruments;
   // drums named by sound only: tell several drums of one kind apart by their pitch
   const soundOnly = new Set(work.filter((w) => w.familySource === "sound").map((w) => w.s.id));
   const pitchById: Record<string, number | null> = Object.fromEntries(work.map((w) => [w.s.id, w.s.measurement.pitchHz]));
@@ -180,6 +181,8 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
     if (parts.length > 1) for (const p of parts) for (const id of p.sampleIds) bySample[id] = p.key;
     return parts;
   });
+  // same name, different drums: the sound splits what the names put together (identity.ts)
+  instruments = splitInstrumentsBySound(instruments, bySample, work);
   instruments.sort((a, b) => a.key.localeCompare(b.key));
   const confirmedMoves = work.filter((w) => w.s.confirmed?.instrumentKey && w.s.confirmed.instrumentKey !== bySample[w.s.id]);
   if (confirmedMoves.length) {
@@ -269,4 +272,31 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
   }));
 
   return { samples: entries, instruments: withPitch, groups, health: sortFindings(findings), curve };
+}
+
+/**
+ * Instrument identity (identity.ts): each instrument the names made is split into the drums its hits sound
+ * like; `bySample` is updated. Samples a person placed in an instrument are not moved by the sound.
+ */
+function splitInstrumentsBySound(
+  instruments: SoundInstrument[],
+  bySample: Record<string, string>,
+  work: { s: CatalogueSampleInput; n: NameInfo; articulation: Articulation; articulationSource: LabelSource; mic: MicPosition | null }[],
+): SoundInstrument[] {
+  const movable = new Map<string, IdentityMember[]>();
+  for (const w of work) {
+    if (w.s.confirmed?.instrumentKey) continue;
+    const key = bySample[w.s.id]!;
+    const list = movable.get(key) ?? [];
+    list.push({
+      id: w.s.id, path: w.s.path, measurement: w.s.measurement, series: namesMarkSeries(w.n),
+      cell: `${w.mic ?? "-"}|${w.articulationSource === "sound" ? "*" : w.articulation}`,
+    });
+    movable.set(key, list);
+  }
+  return instruments.flatMap((inst) => {
+    const parts = splitBySound(inst, movable.get(inst.key) ?? []);
+    if (parts.length > 1) for (const p of parts) for (const id of p.sampleIds) bySample[id] = p.key;
+    return parts;
+  });
 }

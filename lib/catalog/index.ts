@@ -7,6 +7,10 @@ export {
   type SoundSuggestion, type LabelModel, type LabelledExample, type NameSoundConflict,
 } from "./classify";
 export { groupInstruments, mergeInstruments, mergeInList, splitByPitch, instrumentKey, instrumentDisplayName, descriptorsOf, type Instrument, type InstrumentInput } from "./instruments";
+export {
+  hitDistance, identityFeatures, splitBySound, namesMarkSeries, averageLinkage, clusterAtHeight, shapeResidualDb, envelopeDb, IDENTITY, SPLIT_FAMILIES,
+  type IdentityParams, type IdentityFeatures, type HitDistance, type IdentityMember, type SoundInstrument,
+} from "./identity";
 export { sortLayers, layerCountFromGaps, clusterSizes, isMonotonic, type Layer, type LayerMember, type LayerSorting, type LayerIssue, type LayerIssueCode, type LayerOptions, type GapChoice } from "./layers";
 export { DLS, dlsAttenuationDb, dannenbergCoefficients, dannenbergGainDb, curveAttenuationDb, velocityForAttenuation, velocityRanges, type VelocityCurve, type VelocityRange } from "./velocity";
 export { fileHealth, layerHealth, conflictHealth, sortFindings, severityOf, type HealthCode, type HealthFinding, type HealthOptions, type HealthSample, type Severity } from "./health";
