@@ -44,6 +44,8 @@ describe("fileHealth: one finding per defect (thresholds: common practice unless
       "t.wav: the tail is cut off: the sound stops abruptly 31 dB below its peak, still 40 dB above the noise floor. Keep the full decay or fade it out.",
     );
     expect(msg({ tailEndDb: -44.6, tailEndAboveFloorDb: null })).toMatch(/stops abruptly 45 dB below its peak, no noise floor could be measured/);
+    // a lead-in of exact zeros is a floor of digital silence: no "150 dB above the noise floor"
+    expect(msg({ tailEndDb: -33.1, tailEndAboveFloorDb: 149.5, noiseFloorDbfs: -200 })).toMatch(/stops abruptly 33 dB below its peak, into digital silence \(the file has no noise floor\)\./);
     // a measurement from before MEASURE_VERSION 2 has no level at the stop: the finding still reads plainly
     expect(msg({})).toMatch(/^t\.wav: the tail is cut off before it decays to the noise floor/);
     // a faded or decayed tail is no finding, whatever its level at the stop

@@ -2,6 +2,7 @@
 // plain-words explanation. Thresholds are common practice of sample library editing (no published source) unless
 // a standard is named.
 
+import { SILENCE_DB } from "../audio/levels";
 import type { Measurement } from "../audio/types";
 import type { NameSoundConflict } from "./classify";
 import type { LayerIssue } from "./layers";
@@ -160,7 +161,9 @@ export function cutTailMessage(m: Measurement): string {
   const floor =
     m.tailEndAboveFloorDb === null || m.tailEndAboveFloorDb === undefined
       ? "no noise floor could be measured (no quiet lead-in or tail)"
-      : `still ${Math.round(m.tailEndAboveFloorDb)} dB above the noise floor`;
+      : m.noiseFloorDbfs <= SILENCE_DB
+        ? "into digital silence (the file has no noise floor)"
+        : `still ${Math.round(m.tailEndAboveFloorDb)} dB above the noise floor`;
   return `the tail is cut off: the sound stops abruptly ${below}, ${floor}. ${fix}`;
 }
 
