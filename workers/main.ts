@@ -10,7 +10,7 @@ import { measureSample, rejectSample, RetryableMeasureError } from "@/lib/server
 import { regroupLibrary } from "@/lib/server/catalogue/regroup";
 import { noteRegroupDuration } from "@/lib/server/catalogue/queue";
 import { closeQueues, JOBS, MAINTENANCE_QUEUE, maintenanceQueue, MEASURE_QUEUE, REGROUP_QUEUE, type MeasureJobData, type RegroupJobData } from "./jobs";
-import { runMaintenance } from "./maintenance";
+import { requeueOutdated, runMaintenance } from "./maintenance";
 import { MeasurePool } from "./measure-pool";
 
 async function main() {
@@ -66,6 +66,9 @@ async function main() {
   runMaintenance()
     .then((m) => (m.partials || m.requeued) && console.log(`[worker] start-up sweep: ${m.partials} partial file(s) removed, ${m.requeued} stranded sample(s) queued again`))
     .catch((e) => console.error(`[worker] start-up maintenance failed: ${e.message}`));
+  requeueOutdated()
+    .then((n) => n && console.log(`[worker] ${n} sample(s) measured by an older MEASURE_VERSION queued to be measured again`))
+    .catch((e) => console.error(`[worker] could not queue samples measured by an older version: ${e.message}`));
   console.log(`[worker] ready on ${env().KW_REDIS_URL}: measuring ${cores} at a time on ${pool.size} thread(s)`);
 
   const stop = async () => {

@@ -89,6 +89,14 @@ describe("catalogueSamples", () => {
     // (139 + 142) / 2 = 140.5 (the median of an even count; NIST/SEMATECH e-Handbook 1.3.5.1, from memory)
     expect(pitch).toEqual({ "tom:1": 140.5, "tom:2": 180, "crash:main": null });
   });
+  it("reads the names together: counters are round robins only where the folder shows a series (names.ts parseNames)", () => {
+    const c = catalogueSamples([
+      ...[1, 2, 3].map((k) => ({ id: `x${k}`, path: `Snare B/Snare_Center_x${k}.wav`, measurement: measurement(SNARE, { strikeLufs: -20 }) })),
+      ...[139, 512].map((k) => ({ id: `s${k}`, path: `Snare C/Snare_Center_s${k}.wav`, measurement: measurement(SNARE, { strikeLufs: -20 }) })),
+    ]);
+    const rr = Object.fromEntries(c.samples.map((e) => [e.id, e.name.roundRobin]));
+    expect(rr).toEqual({ x1: 1, x2: 2, x3: 3, s139: null, s512: null });
+  });
   it("the Dannenberg curve can be chosen instead of DLS", () => {
     const c = catalogueSamples(library(), { curve: { kind: "dannenberg" } });
     const snare = c.groups.find((g) => g.instrumentKey === "snare:14x6.5-brass")!;

@@ -10,7 +10,7 @@ import { namesMarkSeries, splitBySound, type IdentityMember, type SoundInstrumen
 import { instrumentPitchHz } from "./instrument-pitch";
 import { groupInstruments, instrumentDisplayName, splitByPitch, type Instrument } from "./instruments";
 import { sortLayers, type Layer, type LayerOptions } from "./layers";
-import { parseName, type MicPosition, type NameInfo } from "./names";
+import { parseNames, type MicPosition, type NameInfo } from "./names";
 import type { Articulation, Family } from "./taxonomy";
 import { DLS, type VelocityCurve } from "./velocity";
 
@@ -122,8 +122,10 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
     conflict: NameSoundConflict;
     mic: MicPosition | null;
   }
-  const work: Work[] = sorted.map((s) => {
-    const n = parseName(s.path);
+  // names are read together: a counter in a name is a round robin only when its folder shows a series
+  const names = parseNames(sorted.map((s) => s.path));
+  const work: Work[] = sorted.map((s, i) => {
+    const n = names[i]!;
     const snd = suggestFromSound(s.measurement, opts.labelModel);
     const conflict = nameSoundConflict({ family: n.family, articulation: n.articulation }, snd, { measurement: s.measurement });
     let family: Family;
