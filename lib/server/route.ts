@@ -53,6 +53,18 @@ function zodMessage(err: z.ZodError, where: string): AppError {
   return new AppError("invalid-input", first ? `${first.path}: ${first.message}` : `Invalid ${where}.`, { issues });
 }
 
+const UUID_SHAPE = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/**
+ * Route params as the handler sees them: every id (a UUID, RFC 9562) in lower case. Our ids are generated in
+ * lower case and MariaDB compares them without regard to case, so an upper-case spelling in a URL finds the
+ * row; without this it would also be written in that spelling (a sample's library id, a counter row).
+ */
+export function normaliseParams(raw: Record<string, string | string[]>): Record<string, string | string[]> {
+  const low = (v: string) => (UUID_SHAPE.test(v) ? v.toLowerCase() : v);
+  return Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, Array.isArray(v) ? v.map(low) : low(v)]));
+}
+
 function parseWith<S extends AnySchema | undefined>(schema: S, value: unknown, where: string): Out<S> {
   if (!schema) return undefined as Out<S>;
   const r = schema.safeParse(value);
@@ -119,10 +131,10 @@ export function route<A extends Access, PS extends AnySchema | undefined = undef
   const wrapped = async (req: NextRequest, ctx: { params: Promise<Record<string, string | string[]>> }) => {
     try {
       checkSameOrigin(req);
-      const rawParams = (await ctx?.params) ?? {};
+      const rawParams = normaliseParams((await ctx?.params) ?? {});
       let user: Ctx<unknown, unknown, unknown>["user"] = null;
       let studio: Ctx<unknown, unknown, unknown>["studio"] = null;
-      const studioId = spec.access.kind === "studio" && typeof rawParams.studioId === "string" && /^[0-9a-f-]{36}$/i.test(rawParams.studioId) ? rawParams.studioId : null;
+      const studioId = spec.access.kind === "studio" && typeof rawParams.studioId === "string" && UUID_SHAPE.test(rawParams.studioId) ? rawParams.studioId : null;
       let role: string | null = null;
       if (spec.access.kind !== "public") {
         const who = await sessionUserWithRole(req, studioId);
