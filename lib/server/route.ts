@@ -8,9 +8,8 @@ import { getToken } from "next-auth/jwt";
 import { z } from "zod";
 import { env } from "./env";
 import { AppError, forbidden, notFound, toErrorBody } from "./errors";
-import { db } from "./db";
+import { liveSessionUser } from "./auth/sessions";
 import { can, isRole, type Permission, type Role } from "@/lib/permissions";
-import type { Knex } from "knex";
 
 export const MAX_JSON_BYTES = 256 * 1024;
 
@@ -110,18 +109,11 @@ export async function sessionUser(req: NextRequest): Promise<{ id: string; email
   return (await sessionUserWithRole(req, null))?.user ?? null;
 }
 
-/** The signed-in user and, when a studio is named, their role in it: one query for both. */
+/** The signed-in user of a live session and, when a studio is named, their role in it: one query for all. */
 async function sessionUserWithRole(req: NextRequest, studioId: string | null): Promise<{ user: { id: string; email: string; name: string }; role: string | null } | null> {
   const e = env();
   const token = await getToken({ req, secret: e.NEXTAUTH_SECRET, secureCookie: e.KW_APP_URL.startsWith("https://") });
-  if (!token?.uid) return null;
-  const q = db()("users as u").where("u.id", token.uid);
-  if (studioId)
-    q.leftJoin("memberships as m", function (this: Knex.JoinClause) {
-      this.on("m.user_id", "u.id").andOnVal("m.studio_id", studioId);
-    });
-  const r = await q.first(["u.id", "u.email", "u.name", studioId ? "m.role" : db().raw("NULL as role")]);
-  return r ? { user: { id: r.id, email: r.email, name: r.name }, role: r.role ?? null } : null;
+  return liveSessionUser(token, studioId);
 }
 
 export function route<A extends Access, PS extends AnySchema | undefined = undefined, QS extends AnySchema | undefined = undefined, BS extends AnySchema | undefined = undefined>(

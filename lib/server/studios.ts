@@ -7,6 +7,7 @@ import { hashToken, newId, newToken } from "./ids";
 import { appUrl, sendMail } from "./mail";
 import { logActivity } from "./activity";
 import { sendVerificationMail } from "./auth/accounts";
+import { endAllSessions } from "./auth/sessions";
 import { isRole, type Role } from "@/lib/permissions";
 
 const INVITE_TTL_MS = 7 * 24 * 3600_000;
@@ -74,6 +75,8 @@ export async function removeMember({ studioId, actorId, userId }: { studioId: st
     if (!m) throw notFound("That member");
     if (m.role === "owner" && owners <= 1) throw new AppError("conflict", "The last owner cannot be removed: make someone else an owner first.");
     await trx("memberships").where({ studio_id: studioId, user_id: userId }).delete();
+    // the removed person is signed out everywhere: a session is not a pass into the studio they left
+    await endAllSessions(trx, userId);
     await logActivity(trx, { studioId, actorId, action: "member.removed", subjectType: "user", subjectId: userId, details: { email: m.email, role: m.role } });
   });
 }

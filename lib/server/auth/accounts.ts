@@ -1,10 +1,12 @@
 import "server-only";
 // Accounts: sign-up, e-mail verification, password reset, and credential checks with rate limits.
 import bcrypt from "bcryptjs";
+import type { Knex } from "knex";
 import { db } from "../db";
 import { AppError } from "../errors";
 import { hashToken, newId, newToken } from "../ids";
 import { appUrl, sendMail } from "../mail";
+import { endAllSessions } from "./sessions";
 import type { SignUpInput } from "@/lib/validation/auth";
 
 const BCRYPT_COST = 11;
@@ -68,8 +70,9 @@ export async function signUp(input: SignUpInput, opts: { sendVerification?: bool
 }
 
 /** Consumes a single-use token of a kind; returns its user id or throws a clear 422. */
-async function consumeToken(token: string, kind: "verify-email" | "reset-password"): Promise<string> {
-  return db().transaction(async (trx) => {
+async function consumeToken(token: string, kind: "verify-email" | "reset-password", outer?: Knex.Transaction): Promise<string> {
+  const run = <T>(f: (trx: Knex.Transaction) => Promise<T>) => (outer ? f(outer) : db().transaction(f));
+  return run(async (trx) => {
     const row = await trx("auth_tokens").where({ token_hash: hashToken(token), kind }).forUpdate().first();
     const what = kind === "verify-email" ? "confirmation link" : "reset link";
     if (!row) throw new AppError("invalid-input", `This ${what} is not valid.`);
@@ -103,11 +106,21 @@ export async function requestPasswordReset(email: string): Promise<void> {
   });
 }
 
+/**
+ * Sets a new password with a reset link. In one transaction: the link is used, every other unused reset link
+ * of the account stops working, the password changes, and every session of the account ends (whoever had
+ * the old password is signed out everywhere).
+ */
 export async function resetPassword(token: string, password: string): Promise<void> {
-  const userId = await consumeToken(token, "reset-password");
   const password_hash = await hashPassword(password);
-  // A reset link proves control of the address, so it also confirms it.
-  await db()("users").where({ id: userId }).update({ password_hash, updated_at: new Date(), email_verified_at: db().raw("COALESCE(email_verified_at, CURRENT_TIMESTAMP(3))") });
+  const userId = await db().transaction(async (trx) => {
+    const id = await consumeToken(token, "reset-password", trx);
+    await trx("auth_tokens").where({ user_id: id, kind: "reset-password" }).whereNull("used_at").update({ used_at: new Date() });
+    // A reset link proves control of the address, so it also confirms it.
+    await trx("users").where({ id }).update({ password_hash, updated_at: new Date(), email_verified_at: trx.raw("COALESCE(email_verified_at, CURRENT_TIMESTAMP(3))") });
+    await endAllSessions(trx, id);
+    return id;
+  });
   await db()("sign_in_attempts").where({ email: (await findUserById(userId))!.email }).delete();
 }
 

@@ -1,12 +1,13 @@
 import "server-only";
-// next-auth configuration: e-mail + password credentials, JWT sessions carrying the user id only.
-// Membership and role are read from the database on every request (lib/server/session.ts), so a removed
-// member loses access at once.
+// next-auth configuration: e-mail + password credentials, JWT sessions carrying the user id and the id of a
+// session row (lib/server/auth/sessions.ts). The session row, membership and role are read from the database
+// on every request, so signing out, a password reset or a removal takes effect at once.
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { env } from "../env";
 import { AppError } from "../errors";
 import { checkCredentials } from "./accounts";
+import { endSession, SESSION_MAX_AGE_S, startSession } from "./sessions";
 import { signInSchema } from "@/lib/validation/auth";
 
 function clientIp(headers: Record<string, string | string[] | undefined> | undefined): string {
@@ -20,9 +21,15 @@ export function authOptions(): NextAuthOptions {
   const secure = e.KW_APP_URL.startsWith("https://");
   return {
     secret: e.NEXTAUTH_SECRET,
-    session: { strategy: "jwt", maxAge: 7 * 24 * 3600 },
+    session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_S },
     useSecureCookies: secure,
     pages: { signIn: "/sign-in", error: "/sign-in" },
+    events: {
+      // signing out ends this device's session: a copy of its cookie no longer works
+      async signOut({ token }) {
+        if (typeof token?.sid === "string") await endSession(token.sid);
+      },
+    },
     providers: [
       CredentialsProvider({
         name: "E-mail and password",
@@ -42,7 +49,10 @@ export function authOptions(): NextAuthOptions {
     ],
     callbacks: {
       async jwt({ token, user }) {
-        if (user) token.uid = user.id;
+        if (user) {
+          token.uid = user.id;
+          token.sid = await startSession(user.id);
+        }
         return token;
       },
       async session({ session, token }) {
