@@ -31,6 +31,16 @@ const schema = z.object({
   MAIL_FROM: z.string().default("Kitwright <no-reply@kitwright.localhost>"),
   /** Set when the local SMTP fake is in use: the folder it keeps mail in. The mail page exists only then. */
   KW_MAIL_FAKE_DIR: z.string().optional(),
+  /**
+   * Proxies whose forwarding headers (X-Forwarded-For, X-Forwarded-Host) are believed: IP addresses and CIDR
+   * ranges, comma-separated. Empty (the default): none, the socket's peer is the client.
+   */
+  KW_TRUSTED_PROXIES: z.string().default(""),
+  /**
+   * The request header that holds the socket's peer address. Set by the web server's guard
+   * (scripts/serve-guard.cjs) in its own process, which writes that header on every request; never set by hand.
+   */
+  KW_PEER_HEADER: z.string().regex(/^x-[a-z0-9-]+$/).optional(),
 });
 
 export type Env = z.infer<typeof schema>;

@@ -16,6 +16,7 @@ import yauzl from "yauzl";
 import { db } from "../db";
 import { env } from "../env";
 import { AppError } from "../errors";
+import { mediaType } from "../media-type";
 import { logActivity } from "../activity";
 import { newId } from "../ids";
 import { storage } from "../storage";
@@ -447,7 +448,12 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   const maxFile = e.KW_UPLOAD_MAX_FILE_BYTES;
   const maxBatch = e.KW_UPLOAD_MAX_BATCH_BYTES;
   const type = req.headers.get("content-type") ?? "";
-  if (!type.toLowerCase().startsWith("multipart/form-data")) throw new AppError("invalid-input", "Send the files as multipart/form-data.");
+  const media = mediaType(type);
+  if (media?.type !== "multipart/form-data") throw new AppError("invalid-input", "Send the files as multipart/form-data.");
+  // RFC 2046 section 5.1.1: the boundary parameter is required, 1 to 70 characters
+  const boundary = media.parameters.boundary ?? "";
+  if (!boundary) throw new AppError("invalid-input", "The upload names no multipart boundary (Content-Type: multipart/form-data; boundary=...); nothing was stored.");
+  if (boundary.length > 70) throw new AppError("invalid-input", "The upload's multipart boundary is longer than 70 characters (RFC 2046); nothing was stored.");
   const declared = Number(req.headers.get("content-length") ?? "0");
   if (declared > maxBatch) throw new AppError("too-large", `This upload is ${mb(declared)}; one batch may hold at most ${mb(maxBatch)}. Send the files in smaller batches.`);
   if (!req.body) throw new AppError("invalid-input", "The upload is empty.");
@@ -473,7 +479,12 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   const ctx: Ctx = { ...base, recorder: new Recorder(base) };
   const tasks: Promise<void>[] = [];
   const tmpFiles: string[] = [];
-  const bb = busboy({ headers: { "content-type": type }, preservePath: true, defParamCharset: "utf8", highWaterMark: STREAM_BUFFER, fileHwm: STREAM_BUFFER, limits: { fileSize: Number.MAX_SAFE_INTEGER, files: 50_000, fields: 50, parts: 50_100 } });
+  let bb: busboy.Busboy;
+  try {
+    bb = busboy({ headers: { "content-type": type }, preservePath: true, defParamCharset: "utf8", highWaterMark: STREAM_BUFFER, fileHwm: STREAM_BUFFER, limits: { fileSize: Number.MAX_SAFE_INTEGER, files: 50_000, fields: 50, parts: 50_100 } });
+  } catch (err) {
+    throw new AppError("invalid-input", `The upload's multipart header could not be read (${(err as Error).message.replace(/^Multipart: /, "")}); nothing was stored.`);
+  }
   bb.on("file", (_field, file, info) => {
     // browsers and undici percent-encode quotes and line breaks in multipart file names
     const rel = cleanRelPath((info.filename ?? "").replace(/%22/g, '"').replace(/%0D/gi, "").replace(/%0A/gi, ""));
