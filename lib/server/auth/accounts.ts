@@ -12,7 +12,8 @@ import type { SignUpInput } from "@/lib/validation/auth";
 const BCRYPT_COST = 11;
 const VERIFY_TTL_MS = 48 * 3600_000;
 const RESET_TTL_MS = 3600_000;
-export const RATE = { windowMs: 15 * 60_000, perAccount: 5, perAddress: 20 } as const;
+/** Sign-in limits (see checkCredentials). */
+export const RATE = { windowMs: 15 * 60_000, perPair: 5, perAddress: 20, firstDelayMs: 60_000, maxDelayMs: 15 * 60_000 } as const;
 
 export interface UserRow {
   id: string;
@@ -124,24 +125,40 @@ export async function resetPassword(token: string, password: string): Promise<vo
   await db()("sign_in_attempts").where({ email: (await findUserById(userId))!.email }).delete();
 }
 
-function minutesLeft(oldest: Date): number {
-  return Math.max(1, Math.ceil((oldest.getTime() + RATE.windowMs - Date.now()) / 60_000));
+const minutes = (ms: number) => Math.max(1, Math.ceil(ms / 60_000));
+const inMinutes = (ms: number) => (minutes(ms) === 1 ? "1 minute" : `${minutes(ms)} minutes`);
+
+/** The wait after `n` failures of one account from one address: none below the limit, then doubling. */
+export function pairDelayMs(n: number): number {
+  if (n < RATE.perPair) return 0;
+  return Math.min(RATE.maxDelayMs, RATE.firstDelayMs * 2 ** (n - RATE.perPair));
 }
 
 /**
- * Checks an e-mail + password. Failures are counted per account and per client address over a 15-minute
- * window; past the limit every attempt is refused with the time to wait, even with the right password.
+ * Checks an e-mail + password from a client address (lib/server/client-address.ts). Failures are counted over a
+ * 15-minute window, per account and address together and per address:
+ * - after 5 failures for one account from one address, that address waits before its next try for that account:
+ *   1 minute, then 2, 4, 8, at most 15 (each failure after a wait doubles it). The account's owner, at any other
+ *   address, is not held up: guessing slows down, nobody is locked out by someone else's failures.
+ * - after 20 failures from one address across accounts, that address waits until its oldest failure leaves
+ *   the window.
+ * While an address waits, every try is refused with the time left, even with the right password (or the
+ * answer would tell a guess was right). A successful sign-in clears that address's failures for the account;
+ * a password reset clears all of the account's.
  */
 export async function checkCredentials(emailRaw: string, password: string, ip: string): Promise<{ id: string; email: string; name: string }> {
   const email = emailRaw.trim().toLowerCase();
-  const since = new Date(Date.now() - RATE.windowMs);
-  const [acc] = await db()("sign_in_attempts").where({ email, succeeded: false }).andWhere("created_at", ">", since).count({ n: "*" }).min({ oldest: "created_at" });
-  if (Number(acc.n) >= RATE.perAccount) {
-    throw new AppError("rate-limited", `Too many failed sign-ins for this account. Try again in ${minutesLeft(new Date(acc.oldest as string))} minutes, or reset your password.`);
+  const now = Date.now();
+  const since = new Date(now - RATE.windowMs);
+  const [pair] = await db()("sign_in_attempts").where({ email, ip, succeeded: false }).andWhere("created_at", ">", since).count({ n: "*" }).max({ last: "created_at" });
+  const wait = pairDelayMs(Number(pair.n));
+  const waited = pair.last ? now - new Date(pair.last as string).getTime() : Infinity;
+  if (wait > 0 && waited < wait) {
+    throw new AppError("rate-limited", `Too many failed sign-ins for this account from your network. Try again in ${inMinutes(wait - waited)}, or reset your password.`);
   }
   const [addr] = await db()("sign_in_attempts").where({ ip, succeeded: false }).andWhere("created_at", ">", since).count({ n: "*" }).min({ oldest: "created_at" });
   if (Number(addr.n) >= RATE.perAddress) {
-    throw new AppError("rate-limited", `Too many failed sign-ins from your network. Try again in ${minutesLeft(new Date(addr.oldest as string))} minutes.`);
+    throw new AppError("rate-limited", `Too many failed sign-ins from your network. Try again in ${inMinutes(new Date(addr.oldest as string).getTime() + RATE.windowMs - now)}.`);
   }
   const user = await findUserByEmail(email);
   // Compare against a dummy hash when the account does not exist, so timing does not reveal it.
@@ -149,6 +166,6 @@ export async function checkCredentials(emailRaw: string, password: string, ip: s
   await db()("sign_in_attempts").insert({ email, ip, succeeded: ok && !!user });
   if (!user || !ok) throw new AppError("unauthenticated", "That e-mail and password do not match an account.");
   if (!user.email_verified_at) throw new AppError("forbidden", "Confirm your e-mail address first: use the link we sent you (or ask for a new one below).");
-  await db()("sign_in_attempts").where({ email, succeeded: false }).delete();
+  await db()("sign_in_attempts").where({ email, ip, succeeded: false }).delete();
   return { id: user.id, email: user.email, name: user.name };
 }

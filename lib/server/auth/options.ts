@@ -5,16 +5,11 @@ import "server-only";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { env } from "../env";
+import { clientAddress } from "../client-address";
 import { AppError } from "../errors";
 import { checkCredentials } from "./accounts";
 import { endSession, SESSION_MAX_AGE_S, startSession } from "./sessions";
 import { signInSchema } from "@/lib/validation/auth";
-
-function clientIp(headers: Record<string, string | string[] | undefined> | undefined): string {
-  const xff = headers?.["x-forwarded-for"];
-  const first = (Array.isArray(xff) ? xff[0] : xff)?.split(",")[0]?.trim();
-  return first || "local";
-}
 
 export function authOptions(): NextAuthOptions {
   const e = env();
@@ -38,7 +33,7 @@ export function authOptions(): NextAuthOptions {
           const parsed = signInSchema.safeParse({ email: credentials?.email ?? "", password: credentials?.password ?? "" });
           if (!parsed.success) throw new Error("Enter your e-mail address and password.");
           try {
-            const u = await checkCredentials(parsed.data.email, parsed.data.password, clientIp(req?.headers));
+            const u = await checkCredentials(parsed.data.email, parsed.data.password, clientAddress(req?.headers));
             return { id: u.id, email: u.email, name: u.name };
           } catch (err) {
             if (err instanceof AppError) throw new Error(err.message);
