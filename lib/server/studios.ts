@@ -8,6 +8,7 @@ import { appUrl, sendMail } from "./mail";
 import { logActivity } from "./activity";
 import { sendVerificationMail } from "./auth/accounts";
 import { endAllSessions } from "./auth/sessions";
+import { later } from "./later";
 import { isRole, type Role } from "@/lib/permissions";
 
 const INVITE_TTL_MS = 7 * 24 * 3600_000;
@@ -159,6 +160,6 @@ export async function acceptInvitationForNewAccount({ token, userId, email }: { 
   const view = await viewInvitation(token);
   if (view.state === "pending" && view.email === email) return acceptInvitation({ token, userId });
   const u = await db()("users").where({ id: userId }).first("id", "email", "name");
-  await sendVerificationMail(u);
+  later("verification mail", () => sendVerificationMail(u));
   return null;
 }

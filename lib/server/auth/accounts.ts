@@ -7,6 +7,7 @@ import { AppError } from "../errors";
 import { hashToken, newId, newToken } from "../ids";
 import { appUrl, sendMail } from "../mail";
 import { endAllSessions } from "./sessions";
+import { later } from "../later";
 import type { SignUpInput } from "@/lib/validation/auth";
 
 const BCRYPT_COST = 11;
@@ -45,28 +46,53 @@ async function issueToken(userId: string, kind: "verify-email" | "reset-password
   return token;
 }
 
-export async function sendVerificationMail(user: { id: string; email: string; name: string }): Promise<void> {
+export async function sendVerificationMail(user: { id: string; email: string; name: string }, headers?: Record<string, string>): Promise<void> {
   const token = await issueToken(user.id, "verify-email", VERIFY_TTL_MS);
   await sendMail({
     to: user.email,
     subject: "Confirm your e-mail address for Kitwright",
     text: `Hello ${user.name},\n\nconfirm your address to start using Kitwright:\n\n${appUrl(`/verify?token=${token}`)}\n\nThe link works once and expires in 48 hours. If you did not sign up, ignore this message.\n`,
+    headers,
   });
 }
 
-/** Creates an unverified account and mails the verification link. A taken address is a 409. */
-export async function signUp(input: SignUpInput, opts: { sendVerification?: boolean } = {}): Promise<{ id: string }> {
+/** To the owner of an address someone tried to sign up with again: no link that does anything by itself. */
+async function sendAlreadyRegisteredMail(user: { email: string; name: string }): Promise<void> {
+  await sendMail({
+    to: user.email,
+    subject: "This address already has a Kitwright account",
+    text: `Hello ${user.name},\n\nsomeone (perhaps you) tried to create a Kitwright account with this address, which already has one. Sign in at:\n\n${appUrl("/sign-in")}\n\nIf you forgot your password, ask for a reset link at:\n\n${appUrl("/forgot")}\n\nIf it was not you, ignore this message: nothing was changed.\n`,
+  });
+}
+
+/**
+ * Creates an unverified account and mails the verification link (`mailHeaders` go on that message). When the
+ * address already has an account nothing changes and its owner is told by mail instead. Either way the same
+ * work is done before the answer (a lookup and a bcrypt of the password) and the mail goes after it, so the
+ * caller cannot tell the two apart: `id` is for the server's own use (joining an invitation), never answered.
+ */
+export async function signUp(input: SignUpInput, opts: { sendVerification?: boolean; mailHeaders?: Record<string, string> } = {}): Promise<{ id: string | null }> {
   const existing = await findUserByEmail(input.email);
-  if (existing) throw new AppError("conflict", "An account with this e-mail address already exists. Sign in or reset your password.");
-  const id = newId();
   const password_hash = await hashPassword(input.password);
-  try {
-    await db()("users").insert({ id, email: input.email, name: input.name, password_hash });
-  } catch (e) {
-    if ((e as { errno?: number }).errno === 1062) throw new AppError("conflict", "An account with this e-mail address already exists.");
-    throw e;
+  let id: string | null = null;
+  if (!existing) {
+    id = newId();
+    try {
+      await db()("users").insert({ id, email: input.email, name: input.name, password_hash });
+    } catch (e) {
+      if ((e as { errno?: number }).errno !== 1062) throw e;
+      id = null; // signed up a moment ago by another request
+    }
   }
-  if (opts.sendVerification !== false) await sendVerificationMail({ id, email: input.email, name: input.name });
+  if (id) {
+    const user = { id, email: input.email, name: input.name };
+    if (opts.sendVerification !== false) later("verification mail", () => sendVerificationMail(user, opts.mailHeaders));
+  } else {
+    later("already-registered mail", async () => {
+      const u = await findUserByEmail(input.email);
+      if (u) await sendAlreadyRegisteredMail(u);
+    });
+  }
   return { id };
 }
 
@@ -90,13 +116,23 @@ export async function verifyEmail(token: string): Promise<{ userId: string }> {
   return { userId };
 }
 
-/** Always succeeds from the caller's view (no account enumeration); mails only existing accounts. */
-export async function resendVerification(email: string): Promise<void> {
-  const u = await findUserByEmail(email);
-  if (u && !u.email_verified_at) await sendVerificationMail(u);
+/**
+ * A new confirmation link for an unconfirmed account. Nothing is looked up before the answer: the work is done
+ * after it (lib/server/later.ts), so neither the answer nor its time tells whether the address has an account.
+ */
+export function resendVerification(email: string): void {
+  later("verification mail", async () => {
+    const u = await findUserByEmail(email);
+    if (u && !u.email_verified_at) await sendVerificationMail(u);
+  });
 }
 
-export async function requestPasswordReset(email: string): Promise<void> {
+/** A reset link for the address's account, if there is one; like resendVerification, all of it after the answer. */
+export function requestPasswordReset(email: string): void {
+  later("password reset mail", () => sendPasswordReset(email));
+}
+
+async function sendPasswordReset(email: string): Promise<void> {
   const u = await findUserByEmail(email);
   if (!u) return;
   const token = await issueToken(u.id, "reset-password", RESET_TTL_MS);

@@ -1,5 +1,6 @@
 // POST /api/auth/signup – create an account; mails a verification link, or, with a matching invitation
-// token, confirms the address and joins the studio at once.
+// token, confirms the address and joins the studio at once. A taken address gets the same answer as a new
+// one (its owner is told by mail), so the answer never says whether an address has an account.
 import { z } from "zod";
 import { route } from "@/lib/server/route";
 import { signUp } from "@/lib/server/auth/accounts";
@@ -11,10 +12,7 @@ export const POST = route(
   async ({ body }) => {
     const { invite, ...input } = body;
     const { id } = await signUp(input, { sendVerification: !invite });
-    if (invite) {
-      const joined = await acceptInvitationForNewAccount({ token: invite, userId: id, email: input.email });
-      return { id, verified: !!joined, studioId: joined?.studioId ?? null };
-    }
-    return { id, verified: false, studioId: null };
+    const joined = invite && id ? await acceptInvitationForNewAccount({ token: invite, userId: id, email: input.email }) : null;
+    return { verified: !!joined, studioId: joined?.studioId ?? null };
   },
 );
