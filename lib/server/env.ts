@@ -32,6 +32,14 @@ const schema = z.object({
   /** Set when the local SMTP fake is in use: the folder it keeps mail in. The mail page exists only then. */
   KW_MAIL_FAKE_DIR: z.string().optional(),
   /**
+   * "1": the caught-mail page (/mail) exists in a production build too. Without it the page exists only in
+   * development and tests (NODE_ENV not "production"); either way only while KW_MAIL_FAKE_DIR is set. Our
+   * scripts set it for the local demo and test profiles (scripts/env.sh); never set it where real people sign up.
+   */
+  KW_MAIL_PAGE: z.enum(["0", "1"]).default("0"),
+  /** The one account that may read every caught message on the mail page (the demo's owner; scripts/demo.sh). */
+  KW_MAIL_PAGE_ALL_TO: z.string().trim().toLowerCase().email().optional(),
+  /**
    * Proxies whose forwarding headers (X-Forwarded-For, X-Forwarded-Host) are believed: IP addresses and CIDR
    * ranges, comma-separated. Empty (the default): none, the socket's peer is the client.
    */

@@ -156,10 +156,10 @@ export async function acceptInvitation({ token, userId }: { token: string; userI
  * invitation is accepted (which also confirms the address). Otherwise nothing happens and the account
  * gets the usual verification mail.
  */
-export async function acceptInvitationForNewAccount({ token, userId, email }: { token: string; userId: string; email: string }): Promise<{ studioId: string } | null> {
+export async function acceptInvitationForNewAccount({ token, userId, email, mailHeaders }: { token: string; userId: string; email: string; mailHeaders?: Record<string, string> }): Promise<{ studioId: string } | null> {
   const view = await viewInvitation(token);
   if (view.state === "pending" && view.email === email) return acceptInvitation({ token, userId });
   const u = await db()("users").where({ id: userId }).first("id", "email", "name");
-  later("verification mail", () => sendVerificationMail(u));
+  later("verification mail", () => sendVerificationMail(u, mailHeaders));
   return null;
 }
