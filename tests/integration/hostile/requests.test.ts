@@ -135,9 +135,11 @@ describe("multipart uploads without a usable boundary (RFC 2046 section 5.1.1: b
     });
   }
   it("the media type's case does not matter (Multipart/Form-Data with a boundary is read)", async () => {
-    const r = await hostileCall(uploadRoute.POST, { method: "POST", user: ctx.users.editor, params: { studioId: ctx.studio.id, libraryId }, rawBody: body, headers: { "content-type": "Multipart/Form-Data; boundary=x" } });
+    const notWav = new TextEncoder().encode('--x\r\nContent-Disposition: form-data; name="file"; filename="a.wav"\r\n\r\nnot a wave file\r\n--x--\r\n');
+    const r = await hostileCall(uploadRoute.POST, { method: "POST", user: ctx.users.editor, params: { studioId: ctx.studio.id, libraryId }, rawBody: notWav, headers: { "content-type": "Multipart/Form-Data; boundary=x" } });
+    // read, and its one file refused (not a WAV): an all-refused batch is a 422 with the outcomes
     expect(r.status).toBe(422);
-    expect(r.json.files[0]).toMatchObject({ name: "a.wav", status: "refused" });
+    expect(r.json.error.details.files[0]).toMatchObject({ name: "a.wav", status: "refused", code: "not-wav" });
   });
 });
 
