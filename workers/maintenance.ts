@@ -1,6 +1,6 @@
 // Maintenance, run by the worker at start and on a schedule:
-// - auth tokens used or expired for more than a day, and sign-in attempts older than a day (the rate limit
-//   looks back 15 minutes), are deleted;
+// - auth tokens used or expired for more than a day, sessions ended more than a day ago, and sign-in attempts
+//   older than a day (the rate limit looks back 15 minutes), are deleted;
 // - partial files left by uploads cut off by a crash (`<key>.part-<hex>` in local storage, `kw-zip-*.zip` in the
 //   temp folder) are deleted once they are an hour old (a live upload writes to its file continuously);
 // - samples still `queued` a few minutes after their last change have their measure job queued again: an
@@ -18,14 +18,16 @@ import { env } from "@/lib/server/env";
 import { storage } from "@/lib/server/storage";
 import { enqueueMeasure } from "@/lib/server/catalogue/queue";
 import { sweepOrphanWords } from "@/lib/server/catalogue/words";
+import { purgeSessions } from "@/lib/server/auth/sessions";
 
 const HOUR = 3600_000;
 
-export async function purgeAuthRows(now = new Date()): Promise<{ tokens: number; attempts: number }> {
+export async function purgeAuthRows(now = new Date()): Promise<{ tokens: number; attempts: number; sessions: number }> {
   const dayAgo = new Date(now.getTime() - 24 * HOUR);
   const tokens = await db()("auth_tokens").where("expires_at", "<", dayAgo).orWhere("used_at", "<", dayAgo).delete();
   const attempts = await db()("sign_in_attempts").where("created_at", "<", dayAgo).delete();
-  return { tokens, attempts };
+  const sessions = await purgeSessions(now);
+  return { tokens, attempts, sessions };
 }
 
 async function* walk(dir: string): AsyncGenerator<string> {
@@ -83,7 +85,7 @@ export async function requeueOutdated({ pageSize = 5000 } = {}): Promise<number>
   }
 }
 
-export async function runMaintenance(): Promise<{ tokens: number; attempts: number; partials: number; requeued: number; orphanWords: number }> {
+export async function runMaintenance(): Promise<{ tokens: number; attempts: number; sessions: number; partials: number; requeued: number; orphanWords: number }> {
   const auth = await purgeAuthRows();
   const partials = await sweepPartials({ storageRoot: storage().kind === "local" ? path.resolve(env().KW_STORAGE_DIR) : null });
   const requeued = await requeueStranded();
