@@ -8,6 +8,7 @@ import { articulationFromSound, nameSoundConflict, suggestFromSound, type LabelM
 import { conflictHealth, fileHealth, layerHealth, sortFindings, type HealthFinding, type HealthOptions } from "./health";
 import { namesMarkSeries, splitBySound, type IdentityMember, type SoundInstrument } from "./identity";
 import { instrumentPitchHz } from "./instrument-pitch";
+import type { SoundModel } from "./sound-model";
 import { groupInstruments, instrumentDisplayName, splitByPitch, type Instrument } from "./instruments";
 import { sortLayers, type Layer, type LayerOptions } from "./layers";
 import { parseNames, type MicPosition, type NameInfo } from "./names";
@@ -34,6 +35,8 @@ export interface CatalogueOptions {
   curve?: VelocityCurve;
   /** Nearest-neighbour model from the studio's confirmed labels (buildLabelModel). */
   labelModel?: LabelModel;
+  /** The trained sound model (default: the committed one); null sorts by the rules of thumb alone. */
+  soundModel?: SoundModel | null;
   layers?: Omit<LayerOptions, "curve">;
   health?: HealthOptions;
 }
@@ -126,7 +129,10 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
   const names = parseNames(sorted.map((s) => s.path));
   const work: Work[] = sorted.map((s, i) => {
     const n = names[i]!;
-    const snd = suggestFromSound(s.measurement, opts.labelModel);
+    const snd = suggestFromSound(s.measurement, opts.labelModel, {
+      soundModel: opts.soundModel,
+      cacheKey: s.sha256 ? `${s.id}|${s.sha256}|${s.measurement.measureVersion}` : undefined,
+    });
     const conflict = nameSoundConflict({ family: n.family, articulation: n.articulation }, snd, { measurement: s.measurement });
     let family: Family;
     let familySource: LabelSource;
