@@ -34,7 +34,9 @@ describe("sound model on held-out real recordings (grouped 5-fold cross-validati
   }, 900_000);
 });
 
+// This setting reached family 77.2 %, articulation 66.7 % (28 of 42), 95.6 % right over a 0.8 vote share (65 of 68)
+// on 2026-12-02; the committed model (60 trees, generator rows too) reached 80.0 % and 66.7 % (RESULTS.md).
 const CI_TREES = 20;
-const FAMILY_FLOOR = 0.7;
-const ARTICULATION_FLOOR = 0.5;
-const SURE_FLOOR = 0.85;
+const FAMILY_FLOOR = 0.74;
+const ARTICULATION_FLOOR = 0.6;
+const SURE_FLOOR = 0.9;
