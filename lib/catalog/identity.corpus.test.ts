@@ -10,7 +10,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { decodeWav, encodeWav, measureBytes } from "../audio";
 import type { Measurement } from "../audio/types";
 import { catalogueSamples, type Catalogue, type CatalogueSampleInput } from "./catalogue";
-import { rng } from "./test-helpers";
+import { shuffled } from "./test-helpers";
 
 const CORPUS = process.env.KW_CORPUS_DIR ?? path.resolve(import.meta.dirname, "../../.data/corpus/fluid-gm");
 const present = fs.existsSync(path.join(CORPUS, "labels.json")) && fs.existsSync(path.join(CORPUS, "wav"));
@@ -82,15 +82,6 @@ function atLevel(r: Recording, gainDb: number): Measurement {
   return measureBytes(encodeWav(d.channels.map((c) => c.map((x) => x * g)), { sampleRate: d.format.sampleRate, bits: 24 }));
 }
 
-function shuffled<T>(xs: T[], seed: number): T[] {
-  const r = rng(seed);
-  const out = [...xs];
-  for (let i = out.length - 1; i > 0; i--) {
-    const j = Math.floor(r() * (i + 1));
-    [out[i], out[j]] = [out[j]!, out[i]!];
-  }
-  return out;
-}
 
 /** Instruments of a catalogue as sorted lists of sample ids, sorted. */
 const partition = (cat: Catalogue) => cat.instruments.map((i) => [...i.sampleIds].sort()).sort((a, b) => a[0]!.localeCompare(b[0]!));

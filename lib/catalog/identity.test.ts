@@ -6,7 +6,7 @@ import { layerVelocity } from "../synth/scenario";
 import { catalogueSamples, type CatalogueSampleInput } from "./catalogue";
 import { averageLinkage, clusterAtHeight, hitDistance, IDENTITY, identityFeatures, namesMarkSeries, shapeResidualDb, splitBySound } from "./identity";
 import { parseName } from "./names";
-import { rng } from "./test-helpers";
+import { shuffled } from "./test-helpers";
 
 const SR = 48000;
 const KICK22: SoundSpec = { family: "kick", instrument: { diameterIn: 22, depthIn: 18, tuneHz: 55, beater: "felt" }, articulation: "centre" };
@@ -22,16 +22,6 @@ function take(sound: SoundSpec, velocity: number, seed: string, gainDb = 0): Mea
   return measureBytes(encodeWav(chs, { sampleRate: SR, bits: 24 }));
 }
 
-/** Shuffled copy (so names and input order carry no information about which take is which). */
-function shuffled<T>(xs: T[], seed: number): T[] {
-  const r = rng(seed);
-  const out = [...xs];
-  for (let i = out.length - 1; i > 0; i--) {
-    const j = Math.floor(r() * (i + 1));
-    [out[i], out[j]] = [out[j]!, out[i]!];
-  }
-  return out;
-}
 
 /** A folder of takes named `<stem>_01.wav`, `<stem>_02.wav` ... in shuffled order (bare numbers: they mark nothing). */
 function numberedFolder(folder: string, stem: string, takes: { id: string; m: Measurement }[], seed: number): CatalogueSampleInput[] {

@@ -4,7 +4,8 @@
 import type { Measurement, SpectralSummary } from "../audio/types";
 
 /** mulberry32 (lib/synth/rng.ts): repeatable test data. */
-export { mulberry32 as rng } from "../synth/rng";
+import { mulberry32 } from "../synth/rng";
+export { mulberry32 as rng };
 
 export function spectral(p: Partial<SpectralSummary> = {}): SpectralSummary {
   return {
@@ -77,4 +78,15 @@ export function measurement(shape: Partial<DrumShape> = {}, over: Partial<Measur
     warnings: [],
     ...over,
   };
+}
+
+/** Shuffled copy, Fisher-Yates with a seeded generator (so names and input order carry no information). */
+export function shuffled<T>(xs: T[], seed: number): T[] {
+  const r = mulberry32(seed);
+  const out = [...xs];
+  for (let i = out.length - 1; i > 0; i--) {
+    const j = Math.floor(r() * (i + 1));
+    [out[i], out[j]] = [out[j]!, out[i]!];
+  }
+  return out;
 }
