@@ -11,7 +11,7 @@ import { regroupLibrary } from "@/lib/server/catalogue/regroup";
 import { noteRegroupDuration } from "@/lib/server/catalogue/queue";
 import { closeQueues, JOBS, MAINTENANCE_QUEUE, maintenanceQueue, MEASURE_QUEUE, REGROUP_QUEUE, type MeasureJobData, type RegroupJobData } from "./jobs";
 import { runMaintenance } from "./maintenance";
-import { MeasurePool } from "./measure-pool";
+import { MeasurePool } from "@/lib/audio-pool/pool";
 
 async function main() {
   const connection = { url: env().KW_REDIS_URL, maxRetriesPerRequest: null };
@@ -33,7 +33,7 @@ async function main() {
   const measure = new Worker<MeasureJobData>(
     MEASURE_QUEUE,
     async (job: Job<MeasureJobData>) => {
-      const out = await measureSample({ sampleId: job.data.sampleId, studioId: job.data.studioId }, (bytes) => pool.measure(bytes));
+      const out = await measureSample({ sampleId: job.data.sampleId, studioId: job.data.studioId }, (bytes) => pool.measureWav(bytes));
       return { outcome: out };
     },
     { connection, concurrency: cores, ...lockOpts },

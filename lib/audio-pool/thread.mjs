@@ -1,5 +1,8 @@
-// Bootstrap of a measuring thread: registers the TypeScript loader in this thread, then loads the entry.
-import { register } from "tsx/esm/api";
+// Bootstrap of a measuring thread: registers tsx's CommonJS loader in this thread (package.json has no "type",
+// so .ts files load as CommonJS, as in bin/kitwright.mjs), then loads the entry. Works whether or not the
+// parent process runs under `--import tsx` (the worker does, the CLI and vitest do not).
+import { createRequire } from "node:module";
+import { register } from "tsx/cjs/api";
 
 register();
-await import("./measure-thread.ts");
+createRequire(import.meta.url)("./thread.ts");
