@@ -15,7 +15,7 @@ import { env } from "@/lib/server/env";
 import { createStudio, createUser } from "@/db/factories";
 import { createLibrary } from "@/lib/server/catalogue/libraries";
 import { measureSample } from "@/lib/server/catalogue/measure";
-import { closeQueues } from "@/workers/jobs";
+import { closeQueues } from "@/lib/server/jobs";
 import { measureWav } from "@/lib/audio";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
 import { bases, mutant } from "./mutate";

@@ -14,7 +14,7 @@ import { NextRequest } from "next/server";
 import { call, makeStudioWithRoles, sessionCookie, uniq } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
 import { env } from "@/lib/server/env";
-import { closeQueues, measureJobId, measureQueue } from "@/workers/jobs";
+import { closeQueues, measureJobId, measureQueue } from "@/lib/server/jobs";
 import { measureSample } from "@/lib/server/catalogue/measure";
 import { regroupLibrary } from "@/lib/server/catalogue/regroup";
 import { measureWav } from "@/lib/audio";

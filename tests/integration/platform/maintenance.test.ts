@@ -6,8 +6,10 @@ import path from "node:path";
 import crypto from "node:crypto";
 import { afterAll, describe, expect, it } from "vitest";
 import { db, closeDb } from "@/lib/server/db";
-import { purgeAuthRows, requeueStranded, sweepPartials } from "@/workers/maintenance";
-import { closeQueues, measureJobId, measureQueue } from "@/workers/jobs";
+import { purgeAuthRows } from "@/lib/server/auth/maintenance";
+import { requeueStranded } from "@/lib/server/catalogue/maintenance";
+import { sweepPartials } from "@/lib/server/storage";
+import { closeQueues, measureJobId, measureQueue } from "@/lib/server/jobs";
 import { makeStudioWithRoles, makeUser } from "../helpers";
 
 afterAll(async () => {
