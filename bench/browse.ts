@@ -6,10 +6,9 @@
 // Prints one JSON line: { rows, seedSec, pages: [{ name, p50, p95, max, n }], plans: [...] }.
 import crypto from "node:crypto";
 import { NextRequest } from "next/server";
-import { encode } from "next-auth/jwt";
 import { db } from "@/lib/server/db";
 import { env } from "@/lib/server/env";
-import { createStudio, createUser } from "@/db/factories";
+import { createSessionCookie, createStudio, createUser } from "@/db/factories";
 import { insertSamplesWithWords } from "@/lib/server/catalogue/words";
 import { FAMILIES, FAMILY_ARTICULATIONS } from "@/lib/catalog/taxonomy";
 import * as samplesRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/samples/route";
@@ -69,11 +68,11 @@ async function seed(): Promise<{ studioId: string; libraryId: string; userId: st
 
 async function main() {
   const s = await seed();
-  const token = await encode({ token: { uid: s.userId, sub: s.userId }, secret: env().NEXTAUTH_SECRET });
+  const cookie = await createSessionCookie(db(), s.userId, env().NEXTAUTH_SECRET);
   const base = env().KW_APP_URL;
   const pathOf = (qs: string) => `/api/studios/${s.studioId}/libraries/${s.libraryId}/samples${qs}`;
   const get = async (qs: string) => {
-    const req = new NextRequest(new URL(pathOf(qs), base), { headers: { host: new URL(base).host, cookie: `next-auth.session-token=${token}` } });
+    const req = new NextRequest(new URL(pathOf(qs), base), { headers: { host: new URL(base).host, cookie } });
     const res = await samplesRoute.GET(req, { params: Promise.resolve({ studioId: s.studioId, libraryId: s.libraryId }) });
     const body = await res.json();
     if (res.status !== 200) throw new Error(`${qs}: ${res.status} ${JSON.stringify(body)}`);

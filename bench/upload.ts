@@ -13,8 +13,7 @@ import http from "node:http";
 import os from "node:os";
 import path from "node:path";
 import knexFactory from "knex";
-import { encode } from "next-auth/jwt";
-import { createStudio, createUser } from "../db/factories";
+import { createSessionCookie, createStudio, createUser } from "../db/factories";
 import { benchFile } from "./generate";
 
 export interface UploadBench { bytes: number; files: number; seconds: number; mbPerSec: number; rssIdleMb: number; rssPeakMb: number; rssGrowthMb: number; status: number; queued: number; refused: number; duplicate: number }
@@ -68,7 +67,7 @@ export async function runUploadBench(baseEnv: NodeJS.ProcessEnv, opts: { totalBy
   const studio = await createStudio(k, { name: `Upload bench ${crypto.randomBytes(3).toString("hex")}`, ownerId: user.id });
   const libraryId = crypto.randomUUID();
   await k("libraries").insert({ id: libraryId, studio_id: studio.id, name: "upload-bench", created_by: user.id });
-  const cookie = `next-auth.session-token=${await encode({ token: { uid: user.id, sub: user.id }, secret: env.NEXTAUTH_SECRET! })}`;
+  const cookie = await createSessionCookie(k, user.id, env.NEXTAUTH_SECRET!);
 
   const log: string[] = [];
   const nodeFlags = [...(process.env.KW_BENCH_TRACE_GC ? ["--trace-gc"] : []), ...(process.env.KW_BENCH_NODE_FLAGS ?? "").split(" ").filter(Boolean)];

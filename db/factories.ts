@@ -2,6 +2,7 @@
 import crypto from "node:crypto";
 import bcrypt from "bcryptjs";
 import type { Knex } from "knex";
+import { encode } from "next-auth/jwt";
 
 export type Role = "owner" | "editor" | "viewer";
 
@@ -18,6 +19,16 @@ export async function createUser(
     email_verified_at: u.verified === false ? null : new Date(),
   });
   return { id, email: u.email.toLowerCase(), name: u.name, password: u.password };
+}
+
+/**
+ * A session of the user and its cookie (`name=value`), as signing in makes them (lib/server/auth/sessions.ts,
+ * lib/server/auth/options.ts): a `sessions` row, and a next-auth JWT naming the user and that row.
+ */
+export async function createSessionCookie(k: Knex, userId: string, secret: string): Promise<string> {
+  const sid = crypto.randomUUID();
+  await k("sessions").insert({ id: sid, user_id: userId, expires_at: new Date(Date.now() + 7 * 24 * 3600_000) });
+  return `next-auth.session-token=${await encode({ token: { uid: userId, sid, sub: userId }, secret })}`;
 }
 
 export async function createStudio(k: Knex, s: { name: string; ownerId: string }): Promise<{ id: string; name: string }> {

@@ -18,7 +18,8 @@ kw_profile() {
   export KW_DB_HOST=127.0.0.1 KW_DB_USER=kitwright KW_DB_PASSWORD="${KW_DB_PASSWORD:-kitwright-local}"
   export KW_REDIS_URL="redis://127.0.0.1:$KW_REDIS_PORT"
   export KW_STORAGE_DIR="$KW_STATE/storage"
-  export SMTP_HOST=127.0.0.1 KW_MAIL_FAKE_DIR="$KW_STATE/mail"
+  # the SMTP fake keeps the mail; KW_MAIL_PAGE=1 lets the production build show it at /mail (each person their own)
+  export SMTP_HOST=127.0.0.1 KW_MAIL_FAKE_DIR="$KW_STATE/mail" KW_MAIL_PAGE=1
   export KW_APP_URL="${KW_APP_URL:-http://localhost:$KW_APP_PORT}" NEXTAUTH_URL="${KW_APP_URL:-http://localhost:$KW_APP_PORT}"
   mkdir -p "$KW_STATE" "$KW_RUN"
   if [ ! -f "$KW_STATE/secret" ]; then head -c 32 /dev/urandom | base64 | tr -d '\n' >"$KW_STATE/secret"; fi

@@ -11,4 +11,4 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 # shellcheck disable=SC2086 # KW_APP_NODE_FLAGS is a list of flags
-exec node --heap-growing-percent=100 ${KW_APP_NODE_FLAGS:-} node_modules/next/dist/bin/next start "$@"
+exec node --heap-growing-percent=100 --require ./scripts/serve-guard-preload.cjs ${KW_APP_NODE_FLAGS:-} node_modules/next/dist/bin/next start "$@"

@@ -17,6 +17,7 @@ create_database "$KW_RUN" "$KW_DB_NAME" fresh
 node --import tsx db/migrate.ts
 
 step() { log "── $1"; }
+step "corpus of real recordings (npm run corpus; reused when up to date)"; npm run -s corpus
 step "type check"; npx tsc --noEmit -p .
 step "unit tests"; npx vitest run --project unit
 step "integration tests"; npx vitest run --project integration

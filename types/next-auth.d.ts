@@ -10,5 +10,7 @@ declare module "next-auth" {
 declare module "next-auth/jwt" {
   interface JWT {
     uid?: string;
+    /** The session row (lib/server/auth/sessions.ts). */
+    sid?: string;
   }
 }

@@ -1,20 +1,21 @@
 // The worker's maintenance schedule: at start and every 10 minutes (a BullMQ job scheduler with a fixed id, so
 // one schedule however many workers run), each module that owns tables or files tidies its own:
-// - auth: tokens and sign-in attempts older than a day (lib/server/auth/maintenance.ts);
+// - auth: tokens, sessions ended and sign-in attempts older than a day (lib/server/auth/maintenance.ts);
 // - storage: partial upload files and .zip spools older than an hour (lib/server/storage.ts sweepPartials);
 // - catalogue: samples stranded `queued` queued again, search words of deleted libraries removed
-//   (lib/server/catalogue/maintenance.ts).
+//   (lib/server/catalogue/maintenance.ts); at start only, samples measured by an older MEASURE_VERSION queued
+//   to be measured again (requeueOutdated; they stay catalogued meanwhile).
 // Nothing here touches a table or a file itself.
 import { Worker } from "bullmq";
 import type IORedis from "ioredis";
 import { purgeAuthRows } from "@/lib/server/auth/maintenance";
 import { sweepPartials } from "@/lib/server/storage";
-import { requeueStranded, sweepOrphanWords } from "@/lib/server/catalogue/maintenance";
+import { requeueOutdated, requeueStranded, sweepOrphanWords } from "@/lib/server/catalogue/maintenance";
 import { JOBS, MAINTENANCE_QUEUE, maintenanceQueue } from "@/lib/server/jobs";
 
 const EVERY_MS = 600_000;
 
-export async function runMaintenance(): Promise<{ tokens: number; attempts: number; partials: number; requeued: number; orphanWords: number }> {
+export async function runMaintenance(): Promise<{ tokens: number; attempts: number; sessions: number; partials: number; requeued: number; orphanWords: number }> {
   const auth = await purgeAuthRows();
   const partials = await sweepPartials();
   const requeued = await requeueStranded();
@@ -22,7 +23,7 @@ export async function runMaintenance(): Promise<{ tokens: number; attempts: numb
   return { ...auth, partials, requeued, orphanWords };
 }
 
-/** Starts the maintenance consumer, schedules the job every 10 minutes and runs one sweep now. */
+/** Starts the maintenance consumer, schedules the job every 10 minutes, runs one sweep now and queues samples of an older MEASURE_VERSION. */
 export async function startMaintenance(connection: IORedis): Promise<Worker> {
   const worker = new Worker(
     MAINTENANCE_QUEUE,
@@ -37,5 +38,8 @@ export async function startMaintenance(connection: IORedis): Promise<Worker> {
   runMaintenance()
     .then((m) => (m.partials || m.requeued) && console.log(`[worker] start-up sweep: ${m.partials} partial file(s) removed, ${m.requeued} stranded sample(s) queued again`))
     .catch((e) => console.error(`[worker] start-up maintenance failed: ${e.message}`));
+  requeueOutdated()
+    .then((n) => n && console.log(`[worker] ${n} sample(s) measured by an older MEASURE_VERSION queued to be measured again`))
+    .catch((e) => console.error(`[worker] could not queue samples measured by an older version: ${e.message}`));
   return worker;
 }

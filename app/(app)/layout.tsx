@@ -3,12 +3,12 @@ import Link from "next/link";
 import { Wordmark } from "@/components/logo";
 import { StudioSwitcher, SignOutButton } from "@/components/app-header";
 import { currentUser, myStudios } from "@/lib/server/session";
-import { env } from "@/lib/server/env";
+import { mailPageEnabled } from "@/lib/server/mail-catcher";
 
 export default async function AppLayout({ children }: { children: React.ReactNode }) {
   const user = await currentUser();
   const studios = user ? await myStudios(user.id) : [];
-  const mailFake = !!env().KW_MAIL_FAKE_DIR;
+  const mailFake = mailPageEnabled();
   return (
     <div className="min-h-screen">
       <header className="no-print border-b border-line bg-card">

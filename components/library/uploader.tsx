@@ -65,7 +65,9 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
           const item = list[next++]!;
           update(item.id, { state: "sending", loaded: 0 });
           const r = await send(url, item, (loaded) => update(item.id, { loaded }));
-          if (r.status === 201 && r.body?.files) update(item.id, { state: "done", loaded: item.file.size, results: r.body.files });
+          // 201: outcomes per file; 422/413 with outcomes: nothing in it was accepted, each file says why
+          const outcomes = r.status === 201 ? r.body?.files : r.body?.error?.details?.files;
+          if (Array.isArray(outcomes)) update(item.id, { state: "done", loaded: item.file.size, results: outcomes });
           else {
             const reason = r.body?.error?.message ?? (r.status === 0 ? "the connection failed" : `the server answered ${r.status}`);
             update(item.id, { state: "failed", results: [{ name: item.path, status: "refused", reason }] });

@@ -26,6 +26,16 @@ describe("measure(): the whole record on generated one-shots", () => {
     expect(Math.abs(m.noiseFloorDbfs + 78)).toBeLessThan(2);
     expect(m.noiseFloorMeasured).toBe(true);
   });
+  it("reports where the tail stops: far down (and at the floor) for this decayed hit; a hit stopped 20 dB down is cut and says so", () => {
+    expect(m.tailEndDb!).toBeLessThan(-60);
+    expect(Math.abs(m.tailEndAboveFloorDb!)).toBeLessThan(3);
+    // e^(-t/tau) falls 8.6859 dB per tau (handbook): tau 0.3 s stopped 20 / 8.6859 tau after the strike
+    const cut = measureBytes(encodeWav([hit(fs, 0.01 + (20 / 8.6859) * 0.3, { f: 180, tau: 0.3, leadSec: 0.01, noiseDb: -90 })], { sampleRate: fs, bits: 24 }));
+    expect(cut.tail).toBe("cut");
+    expect(Math.abs(cut.tailEndDb! + 20)).toBeLessThanOrEqual(1);
+    expect(cut.tailEndAboveFloorDb!).toBeGreaterThan(60);
+    expect(cut.warnings).toContain("tail cut off while still sounding (it stops 20 dB under its peak level)");
+  });
   it("levels are consistent: true peak >= sample peak, crest = peak - RMS, correlation 1 for scaled copies", () => {
     expect(m.truePeakDbtp).toBeGreaterThanOrEqual(m.samplePeakDbfs - 1e-9);
     expect(m.crestDb).toBeCloseTo(m.samplePeakDbfs - m.rmsDbfs, 9);

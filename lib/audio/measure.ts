@@ -53,6 +53,7 @@ export function measure(decoded: DecodedWav): Measurement {
       ...base,
       samplePeakDbfs: SILENCE_DB, truePeakDbtp: SILENCE_DB, rmsDbfs: SILENCE_DB, strikeLufs: SILENCE_DB, integratedLufs: null,
       crestDb: 0, onsetMs: 0, attackMs: 0, edtSec: null, t20Sec: null, tail: "decayed", noiseFloorDbfs: SILENCE_DB,
+      tailEndDb: SILENCE_DB, tailEndAboveFloorDb: null,
       pitchHz: null, strike: emptySummary(), body: null, warnings,
       perChannel: channels.map(() => ({ samplePeakDbfs: SILENCE_DB, truePeakDbtp: SILENCE_DB, rmsDbfs: SILENCE_DB, dcOffset: 0, clippedRuns: 0 })),
     };
@@ -63,8 +64,8 @@ export function measure(decoded: DecodedWav): Measurement {
   const ld = loudness(channels, fs, decoded.channelMask);
   const onset = onsetIndex(channels, fs, lv.samplePeak, lv.perChannel.map((c) => c.dc));
   const attack = attackMs(channels, fs, onset, lv.loudestChannel);
-  const dec = analyseDecay(channels, fs, onset);
-  if (dec.tail === "cut") warnings.push("tail cut off while still sounding");
+  const dec = analyseDecay(channels, fs, onset, { pcmBits: format.encoding === "pcm" ? format.validBits : null });
+  if (dec.tail === "cut") warnings.push(`tail cut off while still sounding (it stops ${Math.round(-dec.tailEndDb)} dB under its peak level)`);
 
   const N = frameSizeFor(fs);
   const hop = N / 2;
@@ -108,6 +109,8 @@ export function measure(decoded: DecodedWav): Measurement {
     tail: dec.tail,
     noiseFloorDbfs: dec.noiseFloorDbfs,
     noiseFloorMeasured: dec.noiseFloorKnown,
+    tailEndDb: dec.tailEndDb,
+    tailEndAboveFloorDb: dec.tailEndAboveFloorDb,
     pitchHz,
     strike: strikeFrames.length ? summarize(strikeFrames, N, fs) : emptySummary(),
     body,

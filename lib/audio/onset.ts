@@ -42,10 +42,13 @@ export function getFft(n: number): FFT {
   return f;
 }
 
-/** Hilbert envelope |x + j H{x}| of x[start, start + len) (zero-padded to a power of two). */
-export function hilbertEnvelope(x: ArrayLike<number>, start: number, len: number): Float64Array {
+/**
+ * Hilbert envelope |x + j H{x}| of x[start, start + len), zero-padded to a power of two of at least
+ * `padding` times len (the default quarter of padding keeps circular wrap-around away from the start).
+ */
+export function hilbertEnvelope(x: ArrayLike<number>, start: number, len: number, padding = 1.25): Float64Array {
   let N = 1;
-  while (N < 1.25 * len) N *= 2; // a quarter of padding keeps circular wrap-around away from the start
+  while (N < padding * len) N *= 2;
   const f = getFft(N);
   const input = new Float64Array(N);
   for (let i = 0; i < len && start + i < x.length; i++) input[i] = x[start + i];

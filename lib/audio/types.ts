@@ -24,6 +24,7 @@ export interface SpectralSummary {
   barkLoudness: number[]; // 24 Bark bands, specific loudness
 }
 
+/** "cut": the sound stops abruptly while still sounding; "decayed": it died away or was faded out (decay.ts). */
 export type TailState = "decayed" | "cut";
 
 export interface Measurement {
@@ -52,6 +53,10 @@ export interface Measurement {
   warnings: string[];
   perChannel?: ChannelLevels[]; // added in MEASURE_VERSION 1: the level figures of each channel, in file order
   noiseFloorMeasured?: boolean; // true when the floor was measured on a lead-in or a stationary tail; false: an upper bound (quietest 10 ms)
+  // added in MEASURE_VERSION 2 (decay.ts): where the sound stops, i.e. the level of its last millisecond before
+  // any trailing digital silence
+  tailEndDb?: number; // dB re the loudest 10 ms (e.g. -31: stops 31 dB under its peak level)
+  tailEndAboveFloorDb?: number | null; // dB above the measured noise floor; null when no floor could be measured
 }
 
 export interface ChannelLevels {

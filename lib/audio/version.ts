@@ -1,3 +1,4 @@
 // Version of the measurement algorithms in lib/audio. Bump it whenever a change alters any number in a
 // Measurement (filters, thresholds, frame sizes, summaries) so stored samples are re-measured.
-export const MEASURE_VERSION = 1;
+// 2: the tail test reads the level at the stop and tells fades from cuts; tailEndDb and tailEndAboveFloorDb.
+export const MEASURE_VERSION = 2;

@@ -29,8 +29,13 @@ function library(): CatalogueSampleInput[] {
   return out;
 }
 
+// These fixtures are shaped for the rules of thumb (their spectra are not real recordings), so the sound comes
+// from the rules here (soundModel: null); the trained model is judged on real audio in sound-model.test.ts and
+// scripts/sound-model/floors.test.ts.
+const RULES = { soundModel: null } as const;
+
 describe("catalogueSamples", () => {
-  const cat = catalogueSamples(library());
+  const cat = catalogueSamples(library(), RULES);
   const byPath = (p: string) => cat.samples.find((s) => s.path === p)!;
 
   it("labels each sample with its sources", () => {
@@ -88,6 +93,14 @@ describe("catalogueSamples", () => {
     const pitch = Object.fromEntries(catalogueSamples(lib).instruments.map((i) => [i.key, i.pitchHz]));
     // (139 + 142) / 2 = 140.5 (the median of an even count; NIST/SEMATECH e-Handbook 1.3.5.1, from memory)
     expect(pitch).toEqual({ "tom:1": 140.5, "tom:2": 180, "crash:main": null });
+  });
+  it("reads the names together: counters are round robins only where the folder shows a series (names.ts parseNames)", () => {
+    const c = catalogueSamples([
+      ...[1, 2, 3].map((k) => ({ id: `x${k}`, path: `Snare B/Snare_Center_x${k}.wav`, measurement: measurement(SNARE, { strikeLufs: -20 }) })),
+      ...[139, 512].map((k) => ({ id: `s${k}`, path: `Snare C/Snare_Center_s${k}.wav`, measurement: measurement(SNARE, { strikeLufs: -20 }) })),
+    ]);
+    const rr = Object.fromEntries(c.samples.map((e) => [e.id, e.name.roundRobin]));
+    expect(rr).toEqual({ x1: 1, x2: 2, x3: 3, s139: null, s512: null });
   });
   it("the Dannenberg curve can be chosen instead of DLS", () => {
     const c = catalogueSamples(library(), { curve: { kind: "dannenberg" } });

@@ -8,9 +8,10 @@ import { articulationFromSound, nameSoundConflict, suggestFromSound, type LabelM
 import { conflictHealth, fileHealth, layerHealth, sortFindings, type HealthFinding, type HealthOptions } from "./health";
 import { namesMarkSeries, splitBySound, type IdentityMember, type SoundInstrument } from "./identity";
 import { instrumentPitchHz } from "./instrument-pitch";
+import type { SoundModel } from "./sound-model";
 import { groupInstruments, instrumentDisplayName, splitByPitch, type Instrument } from "./instruments";
 import { sortLayers, type Layer, type LayerOptions } from "./layers";
-import { parseName, type MicPosition, type NameInfo } from "./names";
+import { parseNames, type MicPosition, type NameInfo } from "./names";
 import type { Articulation, Family } from "./taxonomy";
 import { DLS, type VelocityCurve } from "./velocity";
 
@@ -34,6 +35,8 @@ export interface CatalogueOptions {
   curve?: VelocityCurve;
   /** Nearest-neighbour model from the studio's confirmed labels (buildLabelModel). */
   labelModel?: LabelModel;
+  /** The trained sound model (default: the committed one); null sorts by the rules of thumb alone. */
+  soundModel?: SoundModel | null;
   layers?: Omit<LayerOptions, "curve">;
   health?: HealthOptions;
 }
@@ -122,9 +125,14 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
     conflict: NameSoundConflict;
     mic: MicPosition | null;
   }
-  const work: Work[] = sorted.map((s) => {
-    const n = parseName(s.path);
-    const snd = suggestFromSound(s.measurement, opts.labelModel);
+  // names are read together: a counter in a name is a round robin only when its folder shows a series
+  const names = parseNames(sorted.map((s) => s.path));
+  const work: Work[] = sorted.map((s, i) => {
+    const n = names[i]!;
+    const snd = suggestFromSound(s.measurement, opts.labelModel, {
+      soundModel: opts.soundModel,
+      cacheKey: s.sha256 ? `${s.id}|${s.sha256}|${s.measurement.measureVersion}` : undefined,
+    });
     const conflict = nameSoundConflict({ family: n.family, articulation: n.articulation }, snd, { measurement: s.measurement });
     let family: Family;
     let familySource: LabelSource;

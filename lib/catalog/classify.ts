@@ -19,6 +19,9 @@
 
 import type { Measurement } from "../audio/types";
 import { decaySec, distance, featureVector, fitStandardiser, standardise, type Standardiser } from "./features";
+import { soundFeatures } from "./sound-features";
+import { predictSound, type SoundModel } from "./sound-model";
+import { trainedSoundModel } from "./sound-model-file";
 import { FAMILY_ARTICULATIONS, type Articulation, type Family } from "./taxonomy";
 
 export interface SoundSuggestion {
@@ -28,7 +31,8 @@ export interface SoundSuggestion {
   confidence: number;
   /** Plain words: the measured values and what decided. */
   reasons: string[];
-  source: "rules" | "labels";
+  /** model: the trained sound model; rules: the rules of thumb; labels: the studio's confirmed labels. */
+  source: "model" | "rules" | "labels";
   /** The other families considered, best first, with their score (rules) or vote share (labels). */
   alternatives: { family: Family; score: number }[];
   /** How well each family fits, 0..1: rule score (rules) or neighbour vote share (labels). */
@@ -209,6 +213,65 @@ export function suggestByRules(m: Measurement): SoundSuggestion {
 }
 
 // ---------------------------------------------------------------------------------------------------------------
+// The trained model (sound-model.ts), explained in the rules' words
+
+/** The sound in a drummer's words: "decay 1.9 s, bright, noisy" (bands: common practice, no published source). */
+export function soundInWords(m: Measurement): string {
+  const f = feat(m);
+  const bright = f.sc < 800 ? "dark" : f.sc < 2500 ? "warm" : f.sc < 6000 ? "bright" : "very bright";
+  const noise = f.bf < 0.06 ? "tonal" : f.bf < 0.25 ? "some noise" : "noisy";
+  const parts = [`decay ${fmtS(f.decay)}`, bright, noise];
+  if (f.pitch !== null && f.bf < 0.25) parts.push(`pitch ${fmtHz(f.pitch)}`);
+  return parts.join(", ");
+}
+
+/** What of the sound fits a family's rules of thumb, in words ("decay fits a hi-hat; spectrum fits a hi-hat"). */
+function fitWords(m: Measurement, family: Family): string | null {
+  if (family === "other") return null;
+  const f = feat(m);
+  const words: Record<Key, string> = { decay: "decay", sc: "brightness", bc: "body colour", sf: "strike noise", bf: "body noise", pitch: "pitch", attack: "attack", rolloff: "top end" };
+  const good = RULES[family].filter((r) => membership(f, r) > 0.6).map((r) => words[r[0]]);
+  const bad = RULES[family].filter((r) => membership(f, r) < 0.1).map((r) => words[r[0]]);
+  const out: string[] = [];
+  if (good.length) out.push(`${[...new Set(good)].join(", ")} as expected of a ${family}`);
+  if (bad.length) out.push(`unusual ${[...new Set(bad)].join(", ")} for a ${family}`);
+  return out.length ? out.join("; ") : null;
+}
+
+const pctWord = (x: number) => `${Math.round(x * 100)} %`;
+
+/**
+ * Family and articulation from the trained sound model. The confidence is calibrated on held-out recordings;
+ * the articulation comes from the model's stroke forest where it has one for the family, else from the rules
+ * of thumb. The reasons stay in plain words: the sound, the model's choice with its runner-up, and what of the
+ * sound fits (or not) the family's rules of thumb.
+ */
+export function suggestByModel(m: Measurement, model: SoundModel): SoundSuggestion {
+  const x = soundFeatures(m);
+  const p = predictSound(model, x, (family, a) => FAMILY_ARTICULATIONS[family].includes(a));
+  const ranked = (Object.entries(p.familyVotes) as [Family, number][]).sort((a, b) => b[1] - a[1]);
+  const next = ranked[1];
+  const rulesArt = articulationFromSound(m, p.family);
+  const articulation = p.articulation ?? rulesArt.articulation;
+  const reasons = [
+    soundInWords(m),
+    `sounds most like a ${p.family}${next ? `; next: ${next[0]}` : ""} (trained on real recordings; right ${pctWord(p.confidence)} of the time at this certainty)`,
+  ];
+  const fit = fitWords(m, p.family);
+  if (fit) reasons.push(fit);
+  reasons.push(p.articulation && p.articulation !== rulesArt.articulation ? `${articulation}: the stroke its sound is most like` : rulesArt.reason);
+  return {
+    family: p.family,
+    articulation,
+    confidence: p.confidence,
+    reasons,
+    source: "model",
+    alternatives: ranked.slice(1, 4).map(([family, score]) => ({ family, score: Math.round(score * 100) / 100 })),
+    familyScores: Object.fromEntries(ranked.map(([f, v]) => [f, Math.round(v * 1000) / 1000])),
+  };
+}
+
+// ---------------------------------------------------------------------------------------------------------------
 // Learning from confirmed labels: k nearest neighbours over standardised features, within one studio
 
 export interface LabelledExample {
@@ -244,13 +307,41 @@ export function buildLabelModel(labelled: LabelledExample[], opts: { k?: number;
   return { standardiser, rows, familyCounts, learned, k, minPerFamily, typicalDistance };
 }
 
+export interface SuggestOptions {
+  /** The trained sound model; null uses the rules of thumb instead. Default: the committed model. */
+  soundModel?: SoundModel | null;
+  /**
+   * A key that names this measurement for good (sample id + content hash + measure version): the model's answer
+   * is then kept, so a library sorted again and again (every regroup) asks the forests once per sample.
+   */
+  cacheKey?: string;
+}
+
+/** Model answers by cacheKey and model version; bounded (oldest dropped first). */
+const modelAnswers = new Map<string, SoundSuggestion>();
+const MODEL_ANSWERS_MAX = 200_000;
+
+function cachedByModel(m: Measurement, model: SoundModel, key: string | undefined): SoundSuggestion {
+  if (!key) return suggestByModel(m, model);
+  const k = `${model.version}|${key}`;
+  let s = modelAnswers.get(k);
+  if (!s) {
+    s = suggestByModel(m, model);
+    if (modelAnswers.size >= MODEL_ANSWERS_MAX) modelAnswers.delete(modelAnswers.keys().next().value!);
+    modelAnswers.set(k, s);
+  }
+  return { ...s, reasons: [...s.reasons], alternatives: [...s.alternatives], familyScores: { ...s.familyScores } };
+}
+
 /**
- * Family + articulation suggestion for a measured sample. Without a model (or with no family learned yet) it
- * uses the rules of thumb; with one it votes among the nearest confirmed samples, unless the rules point to a
- * family with too few confirmed labels and the sample is far from everything confirmed.
+ * Family + articulation suggestion for a measured sample. Without confirmed labels (or with no family learned
+ * yet) it uses the trained sound model (or, with soundModel: null, the rules of thumb); with confirmed labels it
+ * votes among the nearest confirmed samples, unless the base suggestion points to a family with too few
+ * confirmed labels and the sample is far from everything confirmed.
  */
-export function suggestFromSound(m: Measurement, model?: LabelModel): SoundSuggestion {
-  const rules = suggestByRules(m);
+export function suggestFromSound(m: Measurement, model?: LabelModel, opts: SuggestOptions = {}): SoundSuggestion {
+  const soundModel = opts.soundModel === undefined ? trainedSoundModel() : opts.soundModel;
+  const rules = soundModel ? cachedByModel(m, soundModel, opts.cacheKey) : suggestByRules(m);
   if (!model || model.learned.length === 0) {
     if (model) rules.reasons.push(`not enough confirmed labels yet (${model.minPerFamily} per family needed)`);
     return rules;
@@ -275,7 +366,7 @@ export function suggestFromSound(m: Measurement, model?: LabelModel): SoundSugge
   const far = nearest > 2.5 * model.typicalDistance;
 
   if (!model.learned.includes(rules.family) && rules.confidence >= 0.3 && (far || share < 0.5)) {
-    rules.reasons.push(`${rules.family} has too few confirmed labels (${model.familyCounts[rules.family] ?? 0}); rules of thumb used`);
+    rules.reasons.push(`${rules.family} has too few confirmed labels (${model.familyCounts[rules.family] ?? 0}); ${rules.source === "model" ? "the trained model" : "rules of thumb"} used`);
     return rules;
   }
   const closeness = Math.exp(-Math.max(0, nearest / model.typicalDistance - 1) / 2);

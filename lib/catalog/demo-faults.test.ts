@@ -42,5 +42,21 @@ describe("the demo library's planted faults", () => {
     expect(conflicts).toEqual([DEMO_FAULTS.find((f) => f.kind === "mislabelled")!.path]);
     const errors = cat.health.filter((h) => h.severity === "error").flatMap((h) => h.sampleIds);
     expect(new Set(errors)).toEqual(new Set([DEMO_FAULTS.find((f) => f.kind === "clipped")!.path]));
+    // every take ends with the synthesizer's 30 ms fade into its noise floor: only the planted one is cut
+    const cuts = cat.health.filter((h) => h.code === "cut-tail").flatMap((h) => h.sampleIds);
+    expect(cuts).toEqual([DEMO_FAULTS.find((f) => f.kind === "cut-tail")!.path]);
+  }, 180_000);
+
+  it("leave the rest of the library without a cut tail (the folders that carry no fault)", () => {
+    const folders = new Set(DEMO_FAULTS.map((f) => f.path.split("/").slice(0, -1).join("/")));
+    const files = demoScenario().filter((f) => !folders.has(f.path.split("/").slice(0, -1).join("/")));
+    expect(files.length).toBeGreaterThan(40);
+    const cut: string[] = [];
+    for (const f of files) {
+      const r = measureWav(renderScenarioFile(f));
+      if (!r.ok) throw new Error(`${f.path}: ${r.reason}`);
+      if (r.measurement.tail === "cut") cut.push(f.path);
+    }
+    expect(cut).toEqual([]);
   }, 180_000);
 });

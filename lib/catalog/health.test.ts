@@ -38,6 +38,19 @@ describe("fileHealth: one finding per defect (thresholds: common practice unless
     expect(f.find((x) => x.code === "late-onset")!.message).toMatch(/25 ms.*few milliseconds/);
     expect(f.find((x) => x.code === "clipping")!.severity).toBe("error");
   });
+  it("a cut tail says in plain words where the sound stops: dB under its peak and above the noise floor (decay.ts rule)", () => {
+    const msg = (over: Partial<Measurement>) => fileHealth([s("t", { tail: "cut", ...over })]).find((x) => x.code === "cut-tail")!.message;
+    expect(msg({ tailEndDb: -31.2, tailEndAboveFloorDb: 40.4 })).toBe(
+      "t.wav: the tail is cut off: the sound stops abruptly 31 dB below its peak, still 40 dB above the noise floor. Keep the full decay or fade it out.",
+    );
+    expect(msg({ tailEndDb: -44.6, tailEndAboveFloorDb: null })).toMatch(/stops abruptly 45 dB below its peak, no noise floor could be measured/);
+    // a lead-in of exact zeros is a floor of digital silence: no "150 dB above the noise floor"
+    expect(msg({ tailEndDb: -33.1, tailEndAboveFloorDb: 149.5, noiseFloorDbfs: -200 })).toMatch(/stops abruptly 33 dB below its peak, into digital silence \(the file has no noise floor\)\./);
+    // a measurement from before MEASURE_VERSION 2 has no level at the stop: the finding still reads plainly
+    expect(msg({})).toMatch(/^t\.wav: the tail is cut off before it decays to the noise floor/);
+    // a faded or decayed tail is no finding, whatever its level at the stop
+    expect(fileHealth([s("f", { tail: "decayed", tailEndDb: -38, tailEndAboveFloorDb: 45 })])).toEqual([]);
+  });
   it("distant mics may start later: sound travels ~0.34 m/ms (physics), a room mic 10 m away hears the hit ~29 ms late", () => {
     const room = (id: string, onsetMs: number, mic: string | null): HealthSample => ({ ...s(id, { onsetMs }), mic });
     const f = fileHealth([room("room14", 14, "room"), room("room45", 45, "room"), room("close14", 14, "close"), room("oh20", 20, "overhead")]);

@@ -2,6 +2,7 @@
 // plain-words explanation. Thresholds are common practice of sample library editing (no published source) unless
 // a standard is named.
 
+import { SILENCE_DB } from "../audio/levels";
 import type { Measurement } from "../audio/types";
 import type { NameSoundConflict } from "./classify";
 import type { LayerIssue } from "./layers";
@@ -147,9 +148,23 @@ export function fileHealth(samples: HealthSample[], opts: HealthOptions = {}): H
     if (m.onsetMs > lateMs + (distant ? DISTANT_EXTRA_MS : 0)) {
       one("late-onset", `the hit starts ${r1(m.onsetMs)} ms into the file; it is common practice to trim leading silence to a few milliseconds, with one offset for all layers, round robins and microphones, so pads feel tight${distant ? ` (a ${s.mic} mic may start up to about ${DISTANT_EXTRA_MS} ms later than the close mics, not more)` : ""}.`);
     }
-    if (m.tail === "cut") one("cut-tail", "the tail is cut off before it decays to the noise floor: the sound stops abruptly. Keep the full decay or fade it out.");
+    if (m.tail === "cut") one("cut-tail", cutTailMessage(m));
   }
   return out;
+}
+
+/** Plain words for a cut tail, with the level at the stop when the measurement has it (MEASURE_VERSION 2). */
+export function cutTailMessage(m: Measurement): string {
+  const fix = "Keep the full decay or fade it out.";
+  if (m.tailEndDb === undefined) return `the tail is cut off before it decays to the noise floor: the sound stops abruptly. ${fix}`;
+  const below = `${Math.round(-m.tailEndDb)} dB below its peak`;
+  const floor =
+    m.tailEndAboveFloorDb === null || m.tailEndAboveFloorDb === undefined
+      ? "no noise floor could be measured (no quiet lead-in or tail)"
+      : m.noiseFloorDbfs <= SILENCE_DB
+        ? "into digital silence (the file has no noise floor)"
+        : `still ${Math.round(m.tailEndAboveFloorDb)} dB above the noise floor`;
+  return `the tail is cut off: the sound stops abruptly ${below}, ${floor}. ${fix}`;
 }
 
 /** Findings from the layer sorting of one group (label such as "Snare 14x6.5 Brass / centre / top"). */

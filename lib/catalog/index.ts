@@ -1,6 +1,6 @@
 // Public API of the cataloguer (pure TypeScript: measurements and paths in, plain objects out).
 export * from "./taxonomy";
-export { parseName, tokenise, MIC_POSITIONS, type MicPosition, type NameInfo, type VelocityHint, type VelocityScheme } from "./names";
+export { parseName, parseNames, isRoundRobinSeries, tokenise, MIC_POSITIONS, type MicPosition, type NameCounter, type NameInfo, type VelocityHint, type VelocityScheme } from "./names";
 export { featureVector, fitStandardiser, standardise, distance, decaySec, FEATURE_NAMES, FEATURE_COUNT, type Standardiser } from "./features";
 export {
   suggestFromSound, suggestByRules, ruleScores, articulationFromSound, describeSound, buildLabelModel, nameSoundConflict,

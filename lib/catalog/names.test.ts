@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { parseName, tokenise } from "./names";
+import { isRoundRobinSeries, parseName, parseNames, tokenise } from "./names";
 
 // Names invented in the style of the trade (common practice of drum sample libraries, no published source):
 // separators, camelCase, abbreviations, dynamics marks, take numbers, folder structures.
@@ -71,6 +71,26 @@ const TABLE: Row[] = [
   ["Cymbals/Crash 18/soft/take 1.wav", { family: "crash", velocity: ["word", 1], rr: 1, stem: ["crash", "18in"] }],
   // names that say nothing
   ["Audio 0012.wav", { family: null, articulation: null, rr: 12 }],
+  // more spellings of the trade
+  ["Cymbals/Chinese Cymbal 18/Chinese_Crash_v2.wav", { family: "china", articulation: "crash-hit", velocity: ["v", 2] }],
+  ["Chinese_18_Bell_f_02.wav", { family: "china", articulation: "bell", velocity: ["dynamic", 6], rr: 2 }],
+  ["Snare_Muffled_v2_rr1.wav", { family: "snare", articulation: "mute", velocity: ["v", 2], rr: 1 }],
+  ["Tom 2 Muted 03.wav", { family: "tom", articulation: "mute", rr: 3 }],
+  ["Cowbell_Mouth_mf_01.wav", { family: "cowbell", articulation: "open-tone", velocity: ["dynamic", 5], rr: 1 }],
+  ["Cowbell/CB_Mouth_Hard_3.wav", { family: "cowbell", articulation: "open-tone", velocity: ["word", 3], rr: 3 }],
+  ["Snare_Ghost_03.wav", { family: "snare", articulation: "centre", velocity: ["word", 1], rr: 3 }],
+  ["Snare 14x6.5/Ghost Notes/sn_ghost_rr2.wav", { family: "snare", articulation: "centre", velocity: ["word", 1], rr: 2 }],
+  ["Snare/Ghost Notes/Snare_rr3.wav", { family: "snare", articulation: "centre", velocity: ["word", 1], rr: 3 }],
+  ["Snare_Rimshot_Ghost_1.wav", { family: "snare", articulation: "rim-shot", velocity: ["word", 1], rr: 1 }],
+  ["HH_Closed_Ghost_2.wav", { family: "hi-hat", articulation: "closed", velocity: ["word", 1], rr: 2 }],
+  ["Hi-Mid Tom 2.wav", { family: "tom", velocity: null, stem: ["high", "mid", "tom", "2"] }],
+  ["Low-Mid Tom_Center_ff.wav", { family: "tom", articulation: "centre", velocity: ["dynamic", 7], stem: ["low", "mid", "tom"] }],
+  ["Agogo_Low_02.wav", { family: "cowbell", stem: ["agogo"], rr: 2 }],
+  ["Snare_Center_Piano_02.wav", { family: "snare", articulation: "centre", velocity: ["dynamic", 3], rr: 2 }],
+  ["Kick_Fortissimo_1.wav", { family: "kick", velocity: ["dynamic", 7], rr: 1 }],
+  ["Crash_Grabbed_01.wav", { family: "crash", articulation: "choke", rr: 1 }],
+  ["Guiro_Long_01.wav", { family: "other", stem: ["guiro", "long"], rr: 1 }],
+  ["Percussion/Vibraslap.wav", { family: "other", stem: ["vibraslap"] }],
 ];
 
 describe("parseName over a table of trade-style names (common practice, no published source)", () => {
@@ -89,6 +109,72 @@ describe("parseName over a table of trade-style names (common practice, no publi
     });
   }
   it("has at least 40 rows", () => expect(TABLE.length).toBeGreaterThanOrEqual(40));
+});
+
+describe("counters: a letter + number with no trade meaning is not a round robin on its own (our rule, see names.ts)", () => {
+  it("s139, x7, smp0042 and note36 are ids, not round robins, in a path read alone", () => {
+    for (const [path, prefix, value] of [
+      ["Snares/Snare_Top_s139.wav", "s", 139],
+      ["Kick_x7.wav", "x", 7],
+      ["pack/smp0042.wav", "smp", 42],
+      ["Kit/Snare_Center_v3_note36.wav", "note", 36],
+    ] as const) {
+      const n = parseName(path);
+      expect(n.roundRobin, path).toBeNull();
+      expect(n.counter, path).toMatchObject({ kind: "id", prefix, value });
+    }
+    // the velocity hint beside an id is still read
+    expect(parseName("Kit/Snare_Center_v3_note36.wav").velocity).toMatchObject({ scheme: "v", rank: 3 });
+  });
+  it("a word of the trade glued to a number keeps its reading (rr2, v3, tom2, kd22, Hard2, Center3)", () => {
+    expect(parseName("Snare_rr2.wav")).toMatchObject({ roundRobin: 2, counter: null });
+    expect(parseName("Snare_v3.wav").velocity).toMatchObject({ scheme: "v", rank: 3 });
+    expect(parseName("Tom2_Center_01.wav")).toMatchObject({ stem: ["tom", "2"], roundRobin: 1, counter: null });
+    expect(parseName("Snare_Hard2.wav")).toMatchObject({ roundRobin: 2, counter: null });
+    expect(parseName("Snare_Center3.wav")).toMatchObject({ articulation: "centre", roundRobin: 3, counter: null });
+  });
+  it("a take number is read as the round robin by parseName (nothing else is known) and marked as a take counter", () => {
+    expect(parseName("Snare_take12.wav")).toMatchObject({ roundRobin: 12, counter: { kind: "take", prefix: "take", value: 12 } });
+  });
+  it("a round-robin word elsewhere in the path makes an id the round robin (folder 'Round Robins', 'RR', a name with 'alt')", () => {
+    expect(parseName("Snare/Round Robins/Snare_x3.wav")).toMatchObject({ roundRobin: 3, counter: { rrWord: true } });
+    expect(parseName("Snare/RR/Snare_s4.wav").roundRobin).toBe(4);
+    expect(parseName("Snare/Snare_alt_x3.wav").roundRobin).toBe(3); // not the 2 a bare "alt" stands for
+    expect(parseName("Snare/Alternates/smp0042.wav").roundRobin).toBe(42);
+  });
+});
+
+describe("parseNames: counters become round robins only where the folder shows a series", () => {
+  it("files of one folder differing only by a small counter from 1 are round robins 1..n", () => {
+    const n = parseNames(["Snare/Snare_x1.wav", "Snare/Snare_x2.wav", "Snare/Snare_x3.wav"]);
+    expect(n.map((x) => x.roundRobin)).toEqual([1, 2, 3]);
+  });
+  it("keeps input order, and groups by the rest of the name: each velocity layer is its own series", () => {
+    const paths = ["K/kick_v2_s2.wav", "K/kick_v1_s1.wav", "K/kick_v2_s1.wav", "K/kick_v1_s2.wav", "K/kick_v1_s3.wav"];
+    expect(parseNames(paths).map((x) => [x.velocity?.rank, x.roundRobin])).toEqual([[2, 2], [1, 1], [2, 1], [1, 2], [1, 3]]);
+  });
+  it("large consecutive values (s139, s140, s141) are ids: a running sample number, not round robins", () => {
+    expect(parseNames(["Snare/Snare_s139.wav", "Snare/Snare_s140.wav", "Snare/Snare_s141.wav"]).map((x) => x.roundRobin)).toEqual([null, null, null]);
+  });
+  it("a lone take12 is not a round robin; takes 1, 2, 3 of one name are", () => {
+    expect(parseNames(["Kick/Kick_Hard_take12.wav", "Kick/Kick_Soft_take3.wav"]).map((x) => x.roundRobin)).toEqual([null, null]);
+    expect(parseNames(["Kick/Kick_take1.wav", "Kick/Kick_take2.wav", "Kick/Kick_take3.wav"]).map((x) => x.roundRobin)).toEqual([1, 2, 3]);
+  });
+  it("the same names in different folders are no series; explicit round robins and bare numbers are untouched", () => {
+    expect(parseNames(["A/Snare_x1.wav", "B/Snare_x2.wav"]).map((x) => x.roundRobin)).toEqual([null, null]);
+    expect(parseNames(["A/Snare_rr7.wav", "A/Kick_03.wav", "Audio 0012.wav"]).map((x) => x.roundRobin)).toEqual([7, 3, 12]);
+  });
+  it("isRoundRobinSeries: distinct values from 0 or 1, at most 32, at most one in four missing", () => {
+    expect(isRoundRobinSeries([1, 2])).toBe(true);
+    expect(isRoundRobinSeries([0, 1, 2])).toBe(true);
+    expect(isRoundRobinSeries([1, 2, 4, 5])).toBe(true); // one discarded take
+    expect(isRoundRobinSeries([1, 3])).toBe(false);
+    expect(isRoundRobinSeries([2, 3, 4])).toBe(false);
+    expect(isRoundRobinSeries([1, 1, 2])).toBe(false);
+    expect(isRoundRobinSeries([1])).toBe(false);
+    expect(isRoundRobinSeries(Array.from({ length: 33 }, (_, i) => i + 1))).toBe(false);
+    expect(isRoundRobinSeries(Array.from({ length: 32 }, (_, i) => i + 1))).toBe(true);
+  });
 });
 
 describe("tokenise", () => {

@@ -2,7 +2,18 @@
 // velocity hint, round-robin index, microphone position).
 //
 // The synonym tables are trade vocabulary (common practice of drum sample libraries, no published source).
-// Pure: takes a path string, returns a plain object.
+// Pure: takes a path string, returns a plain object; parseNames() reads a whole library's paths, so a counter in a
+// name can be judged by its folder.
+//
+// Counters (our rule; common practice, no published source). Explicit round-robin words with a number (rr2, robin 3,
+// alt 2, var 4, seq 1) and a bare trailing number (kick_03) give the round robin, as before. A letter run with no
+// trade meaning glued to a number (s139, x7, smp0042, note36) is an id, not a round robin, and a take number
+// (take 3, tk12) is read as one only when nothing else is known: both become a `counter`, and parseNames() keeps
+// them as the round robin only where the folder shows a series: two or more files in one folder whose names
+// differ only by that counter, with distinct values starting at 0 or 1, at most 32 (drum libraries record a
+// handful to about 20 round robins per layer), and at most one value in four missing (a discarded take). A
+// round-robin word elsewhere in the path (a folder "Round Robins", "RR", "alternates", "variations") makes the
+// counter the round robin on its own.
 
 import type { Articulation, Family } from "./taxonomy";
 
@@ -36,6 +47,20 @@ export interface NameInfo {
   velocity: VelocityHint | null;
   roundRobin: number | null;
   mic: MicPosition | null;
+  /** A number in the file name that is not known to be a round robin (see the top comment). */
+  counter: NameCounter | null;
+}
+
+export interface NameCounter {
+  /** "take": take 3, tk12 (parseName reads it as the round robin); "id": a letter run with no trade meaning (not read) */
+  kind: "take" | "id";
+  /** the letters before the number, lower case */
+  prefix: string;
+  value: number;
+  /** index of the number in `tokens` */
+  at: number;
+  /** the path says round robin elsewhere (rr, robin, alt, var... without a number, in a folder or the name) */
+  rrWord: boolean;
 }
 
 // ---------------------------------------------------------------------------------------------------------------
@@ -51,7 +76,13 @@ const INCHES = /(\d+(?:[.,]\d+)?)\s*(?:"|''|in(?:ch(?:es)?)?)(?![a-z])/gi;
  * and rejoined by the parser.
  */
 export function tokenise(name: string): string[] {
+  return tokeniseGlued(name).tokens;
+}
+
+/** tokenise(), also saying which tokens are digits written straight after letters in the name ("s139": "139"). */
+function tokeniseGlued(name: string): { tokens: string[]; glued: boolean[] } {
   const out: string[] = [];
+  const glued: boolean[] = [];
   // protect sizes first
   const protectedParts: string[] = [];
   let s = name.replace(DIMENSION, (_m, a: string, b: string) => {
@@ -72,6 +103,7 @@ export function tokenise(name: string): string[] {
     const prot = /^\u0000(\d+)\u0000$/.exec(chunk);
     if (prot) {
       out.push(protectedParts[Number(prot[1])]!);
+      glued.push(false);
       continue;
     }
     const cleaned = chunk.replace(/\u0000/g, "");
@@ -83,10 +115,14 @@ export function tokenise(name: string): string[] {
       .replace(/([A-Z]+)([A-Z][a-z])/g, "$1 $2")
       .replace(/([A-Za-z])(\d)/g, "$1 $2")
       .replace(/(\d)([A-Za-z])/g, "$1 $2")
-      .split(/\s+/);
-    for (const p of parts) if (p) out.push(p.toLowerCase());
+      .split(/\s+/)
+      .filter((p) => p.length > 0);
+    parts.forEach((p, j) => {
+      out.push(p.toLowerCase());
+      glued.push(j > 0 && /^\d/.test(p) && /[A-Za-z]$/.test(parts[j - 1]!));
+    });
   }
-  return out;
+  return { tokens: out, glued };
 }
 
 /** Own-property lookup (so "constructor" or "toString" in a name never matches a table). */
@@ -125,16 +161,18 @@ fam("hi-hat", ["hi-hat"], ["hho", "ohh"], { articulation: "open" });
 fam("hi-hat", ["hi-hat"], ["hhp", "phh", "hhpedal"], { articulation: "pedal" });
 fam("crash", ["crash"], ["crash", "crashes", "cr", "crsh", "crs"]);
 fam("ride", ["ride"], ["ride", "rides", "rd", "rde"]);
-fam("china", ["china"], ["china", "chinas", "chn", "chna", "ch", "trash"]);
+fam("china", ["china"], ["china", "chinas", "chinese", "chn", "chna", "ch", "trash"]);
 fam("splash", ["splash"], ["splash", "splashes", "spl", "spsh", "splsh"]);
 fam("stack", ["stack"], ["stack", "stacks", "stk", "stacker"]);
 fam("cowbell", ["cowbell"], ["cowbell", "cowbells", "cb", "cbell", "cow"]);
+// the agogo (a pair of bells played with a stick) sorts with the cowbell: one struck, pitched bell each
+fam("cowbell", ["agogo"], ["agogo", "agogos"]);
 fam("hand-drum", ["conga"], ["conga", "congas", "tumba", "quinto"]);
 fam("hand-drum", ["bongo"], ["bongo", "bongos"]);
 fam("hand-drum", ["djembe"], ["djembe"]);
 fam("hand-drum", ["cajon"], ["cajon"]);
 fam("hand-drum", ["timbale"], ["timbale", "timbales", "timb"]);
-fam("hand-drum", ["darbuka"], ["darbuka", "doumbek", "tabla", "frame"]);
+fam("hand-drum", ["darbuka"], ["darbuka", "doumbek", "dumbek", "tabla", "frame"]);
 fam("shaker", ["shaker"], ["shaker", "shakers", "shk", "shkr", "egg"]);
 fam("shaker", ["maraca"], ["maraca", "maracas", "cabasa"]);
 fam("shaker", ["tambourine"], ["tambourine", "tamb", "tambo", "tamborine"]);
@@ -143,6 +181,10 @@ fam("other", ["clave"], ["clave", "claves"]);
 fam("other", ["woodblock"], ["woodblock", "block", "wb"]);
 fam("other", ["triangle"], ["triangle", "tri"]);
 fam("other", ["snap"], ["snap", "fingersnap"]);
+fam("other", ["guiro"], ["guiro", "guiros"]);
+fam("other", ["vibraslap"], ["vibraslap"]);
+fam("other", ["cuica"], ["cuica", "cuicas"]);
+fam("other", ["castanets"], ["castanet", "castanets"]);
 
 /** Two-token family names ("bass drum", "hi hat", "floor tom"); checked before single tokens. */
 const FAMILY_BIGRAMS: Record<string, FamilyWord> = {
@@ -162,6 +204,7 @@ const FAMILY_BIGRAMS: Record<string, FamilyWord> = {
   "snare drum": { family: "snare", words: ["snare"] },
   "hand clap": { family: "other", words: ["clap"] },
   "wood block": { family: "other", words: ["woodblock"] },
+  "chinese cymbal": { family: "china", words: ["china"] },
 };
 
 const ARTICULATION_WORDS: Record<string, Articulation> = {};
@@ -178,16 +221,19 @@ art("flam", ["flam", "flams"]);
 art("drag", ["drag", "drags", "ruff"]);
 art("roll", ["roll", "rolls", "swell"]);
 art("buzz", ["buzz", "press", "pressroll"]);
-art("mute", ["mute", "muted", "dead", "damp", "damped", "dampened"]);
+art("mute", ["mute", "mutes", "muted", "muffled", "muffle", "dead", "damp", "damped", "dampened"]);
 art("slap", ["slap", "slaps"]);
 art("open-tone", ["tone", "opentone"]);
+// A cowbell's "mouth" stroke: the stick's shaft across the open end, the full, ringing open sound, as against the
+// dry stroke on its closed neck (common practice); it is the cowbell's open-tone.
+art("open-tone", ["mouth"]);
 art("heel", ["heel"]);
 art("toe", ["toe"]);
 art("bell", ["bell", "cup", "bl", "bel"]);
 art("bow", ["bow", "ping", "body"]);
 art("tip", ["tip", "tips"]);
 art("shank", ["shank", "shoulder", "shk2"]);
-art("choke", ["choke", "choked", "grab", "chk", "stopped", "chokes"]);
+art("choke", ["choke", "choked", "grab", "grabbed", "chk", "stopped", "chokes"]);
 art("closed", ["closed", "cl", "clsd", "cls", "tight", "shut", "clsed", "closd"]);
 art("quarter-open", ["quarter", "qtr", "loose", "slightly", "semiopen", "semi", "threequarter"]);
 art("half-open", ["half", "halfopen", "ho", "hlf", "hopen"]);
@@ -246,8 +292,12 @@ const MIC_BIGRAMS: Record<string, MicPosition> = {
 };
 
 const DYNAMICS: Record<string, number> = { ppp: 1, pp: 2, p: 3, mp: 4, mf: 5, f: 6, ff: 7, fff: 8 };
+/** The same marks written out in full (Italian dynamics). */
+const DYNAMIC_NAMES: Record<string, number> = { pianissimo: 2, piano: 3, mezzopiano: 4, mezzoforte: 5, forte: 6, fortissimo: 7 };
+/** A ghost note: a very soft stroke, on a drum at its centre (common practice). */
+const GHOST_WORDS = new Set(["ghost", "ghosts", "ghosted", "ghostnote", "ghostnotes"]);
 const DYNAMIC_WORDS: Record<string, number> = {
-  ghost: 1, whisper: 1, soft: 1, softer: 1, light: 1, gentle: 1, quiet: 1, lo: 1, low: 1,
+  whisper: 1, soft: 1, softer: 1, light: 1, gentle: 1, quiet: 1, lo: 1, low: 1,
   medium: 2, med: 2, mid: 2, moderate: 2, normalvel: 2,
   hard: 3, loud: 3, strong: 3, heavy: 3, accent: 3, hi: 3, high: 3,
   harder: 4, max: 4,
@@ -255,6 +305,11 @@ const DYNAMIC_WORDS: Record<string, number> = {
 const VEL_PREFIX = new Set(["v", "vel", "velo", "velocity", "vl", "layer", "lay", "lyr", "dyn", "dynamic"]);
 const RR_PREFIX = new Set(["rr", "rob", "robin", "roundrobin", "alt", "take", "tk", "var", "variation", "seq", "r"]);
 const RR_WORDS_NO_NUMBER = new Set(["alt", "alternate"]);
+/** Words saying a folder or name holds round robins (they make a counter in the name the round robin). */
+const RR_CONTEXT = new Set([
+  "rr", "rrs", "robin", "robins", "roundrobin", "roundrobins", "alt", "alts", "alternate", "alternates", "var", "vars", "variation", "variations",
+]);
+const TAKE_PREFIX = new Set(["take", "tk"]);
 
 /** Words that carry no instrument identity (file and folder boilerplate). */
 const NOISE_WORDS = new Set([
@@ -264,6 +319,7 @@ const NOISE_WORDS = new Set([
   "hits", "hit", "articulations", "processed", "raw", "clean", "v", "vel", "x", "l", "r", "left", "right",
   "dynamic", "dynamics", "mixed", "all", "misc", "various", "audio", "untitled", "file", "files", "track", "recording", "rec",
   "percussion", "perc", "bounce", "export", "exported", "copy", "edit", "edited", "sound", "sounds", "sfx", "wavs", "tmp", "temp", "folder",
+  "note", "notes",
 ]);
 
 /** Families where several instruments of one kind are usual, so "tom 2" or "crash 1" names the instrument. */
@@ -284,16 +340,29 @@ interface Parsed {
   stem: string[];
   velocity: VelocityHint | null;
   rr: number | null;
+  /** the round robin came from a bare "alt" (read as the second take) */
+  rrFromAltWord: boolean;
+  counter: NameCounter | null;
+  ghost: boolean;
   mic: MicPosition | null;
   ambiguous: string[];
 }
 
 const isNum = (t: string | undefined): boolean => t !== undefined && /^\d+$/.test(t);
 
-function parseTokens(tokens: string[], isFile: boolean): Parsed {
+/** A word of the trade (any table above): a number written straight after it keeps its usual reading. */
+function isTradeWord(t: string): boolean {
+  return (
+    get(FAMILY_WORDS, t) !== undefined || get(ARTICULATION_WORDS, t) !== undefined || get(MIC_WORDS, t) !== undefined ||
+    get(DYNAMICS, t) !== undefined || get(DYNAMIC_NAMES, t) !== undefined || get(DYNAMIC_WORDS, t) !== undefined ||
+    VEL_PREFIX.has(t) || RR_PREFIX.has(t) || GHOST_WORDS.has(t) || t === "round" || t === "robin"
+  );
+}
+
+function parseTokens(tokens: string[], isFile: boolean, glued: boolean[] = []): Parsed {
   const p: Parsed = {
     family: null, familyWeak: null, familyArticulation: null, laterFamilies: [], articulation: null, articulationWords: [],
-    stem: [], velocity: null, rr: null, mic: null, ambiguous: [],
+    stem: [], velocity: null, rr: null, rrFromAltWord: false, counter: null, ghost: false, mic: null, ambiguous: [],
   };
   const used = new Array<boolean>(tokens.length).fill(false);
   const numbers: { i: number; raw: string }[] = [];
@@ -331,6 +400,8 @@ function parseTokens(tokens: string[], isFile: boolean): Parsed {
     }
     if (RR_PREFIX.has(t) && isNum(next)) {
       p.rr = Number(next);
+      p.rrFromAltWord = false;
+      if (TAKE_PREFIX.has(t)) p.counter = { kind: "take", prefix: t, value: Number(next), at: i + 1, rrWord: false };
       used[i] = used[i + 1] = true;
       i++;
       continue;
@@ -357,6 +428,12 @@ function parseTokens(tokens: string[], isFile: boolean): Parsed {
       p.mic = get(MIC_BIGRAMS, bigram)!;
       used[i] = used[i + 1] = true;
       i++;
+      continue;
+    }
+    if (isNum(t) && isFile && glued[i] && /^[a-z]+$/.test(tokens[i - 1] ?? "") && !isTradeWord(tokens[i - 1]!)) {
+      // letters with no trade meaning glued to a number (s139, x7, smp0042): an id, not a take number
+      p.counter = { kind: "id", prefix: tokens[i - 1]!, value: Number(t), at: i, rrWord: false };
+      used[i] = true;
       continue;
     }
     if (isNum(t)) {
@@ -412,6 +489,17 @@ function parseTokens(tokens: string[], isFile: boolean): Parsed {
       used[i] = true;
       continue;
     }
+    if (GHOST_WORDS.has(t)) {
+      p.ghost = true;
+      if (!p.velocity || p.velocity.scheme === "word") p.velocity = { scheme: "word", rank: 1, raw: t };
+      used[i] = true;
+      continue;
+    }
+    if (get(DYNAMIC_NAMES, t) !== undefined) {
+      p.velocity = { scheme: "dynamic", rank: get(DYNAMIC_NAMES, t)!, raw: t };
+      used[i] = true;
+      continue;
+    }
     if (get(DYNAMICS, t) !== undefined && (t.length > 1 || i > 0)) {
       p.velocity = { scheme: "dynamic", rank: get(DYNAMICS, t)!, raw: t };
       used[i] = true;
@@ -419,7 +507,10 @@ function parseTokens(tokens: string[], isFile: boolean): Parsed {
     }
     if (get(DYNAMIC_WORDS, t) !== undefined) {
       // "hi"/"lo"/"mid"/"high"/"low" next to "tom" are drum positions, not strengths
-      const nearTom = get(FAMILY_WORDS, next ?? "")?.family === "tom" || get(FAMILY_WORDS, tokens[i - 1] ?? "")?.family === "tom";
+      // (also through a second position word: "hi mid tom", "low mid tom")
+      const isTom = (w: string | undefined) => get(FAMILY_WORDS, w ?? "")?.family === "tom";
+      const position = (w: string | undefined) => w !== undefined && ["hi", "lo", "low", "high", "mid"].includes(w);
+      const nearTom = isTom(next) || isTom(tokens[i - 1]) || (position(next) && isTom(tokens[i + 2]));
       if (nearTom && ["hi", "lo", "low", "high", "mid"].includes(t)) {
         p.stem.push(t === "hi" ? "high" : t === "lo" ? "low" : t);
       } else if (!p.velocity || p.velocity.scheme === "word") {
@@ -430,7 +521,10 @@ function parseTokens(tokens: string[], isFile: boolean): Parsed {
     }
     if (RR_WORDS_NO_NUMBER.has(t)) {
       used[i] = true;
-      if (p.rr === null) p.rr = 2;
+      if (p.rr === null) {
+        p.rr = 2;
+        p.rrFromAltWord = true;
+      }
       continue;
     }
     if (/^\d+(\.\d+)?x\d+(\.\d+)?$/.test(t) || /^\d+(\.\d+)?in$/.test(t)) {
@@ -503,9 +597,9 @@ function fitArticulation(a: Articulation | null, family: Family | null, laterFam
 export function parseName(path: string): NameInfo {
   const parts = path.split(/[\\/]+/).filter((s) => s.length > 0 && s !== ".");
   const fileName = (parts.pop() ?? "").replace(/\.(wav|wave|bwf|aif|aiff|flac)$/i, "");
-  const tokens = tokenise(fileName);
+  const { tokens, glued } = tokeniseGlued(fileName);
   const folderTokens = parts.map(tokenise);
-  const file = parseTokens(tokens, true);
+  const file = parseTokens(tokens, true, glued);
   const folders = folderTokens.map((t) => parseTokens(t, false));
 
   // the file name wins; otherwise the innermost folder that says it
@@ -536,10 +630,23 @@ export function parseName(path: string): NameInfo {
   }
   articulation = fitArticulation(articulation, family, laterFamilies);
   if (articulation && !articulationFrom) articulationFrom = "file";
+  // a ghost note on a drum (said by the name or a folder) is a soft stroke at its centre
+  const ghost = file.ghost || folders.some((f) => f.ghost);
+  if (!articulation && ghost && (family === "snare" || family === "tom" || family === "kick")) {
+    articulation = "centre";
+    articulationFrom = file.ghost ? "file" : "folder";
+  }
 
   let velocity = file.velocity;
   let roundRobin = file.rr;
   let micPos = file.mic;
+  // a counter is the round robin when the path says round robins elsewhere (a folder "RR", a word "alt"...)
+  let counter: NameCounter | null = null;
+  if (file.counter) {
+    const rrWord = [tokens.filter((_t, i) => i !== file.counter!.at - 1), ...folderTokens].some((ts) => ts.some((t) => RR_CONTEXT.has(t)));
+    counter = { ...file.counter, rrWord };
+    if (rrWord && counter.kind === "id" && (roundRobin === null || file.rrFromAltWord)) roundRobin = counter.value;
+  }
   for (let i = folders.length - 1; i >= 0; i--) {
     const f = folders[i]!;
     if (!velocity && f.velocity) velocity = f.velocity;
@@ -557,5 +664,45 @@ export function parseName(path: string): NameInfo {
     if (inch && stem.some((w) => w.startsWith(`${inch[1]}x`))) stem.splice(i, 1);
   }
 
-  return { tokens, folderTokens, family, familyFrom, articulation, articulationFrom, stem, velocity, roundRobin, mic: micPos };
+  return { tokens, folderTokens, family, familyFrom, articulation, articulationFrom, stem, velocity, roundRobin, mic: micPos, counter };
+}
+
+/** Largest counter value read as a round robin in a series (see the top comment). */
+export const MAX_SERIES_ROUND_ROBIN = 32;
+
+/** True when counter values make a round-robin series: distinct, from 0 or 1, small, at most one in four missing. */
+export function isRoundRobinSeries(values: readonly number[]): boolean {
+  if (values.length < 2 || new Set(values).size !== values.length) return false;
+  const lo = Math.min(...values), hi = Math.max(...values);
+  return lo <= 1 && hi <= MAX_SERIES_ROUND_ROBIN && hi - lo + 1 - values.length <= Math.floor(values.length / 4);
+}
+
+/**
+ * Parses the paths of a whole library (or any set of them), in order. Each is read as parseName() reads it; then
+ * counters (take numbers, ids such as s139) are kept as round robins only where the folder shows a series: files
+ * of one folder whose names differ only by the counter (see the top comment).
+ */
+export function parseNames(paths: readonly string[]): NameInfo[] {
+  const infos = paths.map(parseName);
+  const groups = new Map<string, number[]>();
+  infos.forEach((n, i) => {
+    const c = n.counter;
+    if (!c || c.rrWord) return;
+    const folder = paths[i]!.split(/[\\/]+/).filter((x) => x.length > 0 && x !== ".").slice(0, -1).join("/");
+    const shape = n.tokens.map((t, k) => (k === c.at ? "#" : t)).join(" ");
+    const key = `${folder}\u0000${c.kind}\u0000${shape}`;
+    const g = groups.get(key) ?? [];
+    g.push(i);
+    groups.set(key, g);
+  });
+  const out = infos.slice();
+  for (const members of groups.values()) {
+    const series = isRoundRobinSeries(members.map((i) => infos[i]!.counter!.value));
+    for (const i of members) {
+      const n = infos[i]!, c = n.counter!;
+      if (series && n.roundRobin === null) out[i] = { ...n, roundRobin: c.value };
+      else if (!series && c.kind === "take" && n.roundRobin === c.value) out[i] = { ...n, roundRobin: null };
+    }
+  }
+  return out;
 }

@@ -31,6 +31,24 @@ const schema = z.object({
   MAIL_FROM: z.string().default("Kitwright <no-reply@kitwright.localhost>"),
   /** Set when the local SMTP fake is in use: the folder it keeps mail in. The mail page exists only then. */
   KW_MAIL_FAKE_DIR: z.string().optional(),
+  /**
+   * "1": the caught-mail page (/mail) exists in a production build too. Without it the page exists only in
+   * development and tests (NODE_ENV not "production"); either way only while KW_MAIL_FAKE_DIR is set. Our
+   * scripts set it for the local demo and test profiles (scripts/env.sh); never set it where real people sign up.
+   */
+  KW_MAIL_PAGE: z.enum(["0", "1"]).default("0"),
+  /** The one account that may read every caught message on the mail page (the demo's owner; scripts/demo.sh). */
+  KW_MAIL_PAGE_ALL_TO: z.string().trim().toLowerCase().email().optional(),
+  /**
+   * Proxies whose forwarding headers (X-Forwarded-For, X-Forwarded-Host) are believed: IP addresses and CIDR
+   * ranges, comma-separated. Empty (the default): none, the socket's peer is the client.
+   */
+  KW_TRUSTED_PROXIES: z.string().default(""),
+  /**
+   * The request header that holds the socket's peer address. Set by the web server's guard
+   * (scripts/serve-guard.cjs) in its own process, which writes that header on every request; never set by hand.
+   */
+  KW_PEER_HEADER: z.string().regex(/^x-[a-z0-9-]+$/).optional(),
 });
 
 export type Env = z.infer<typeof schema>;

@@ -18,8 +18,8 @@ function transporter(): Transporter {
   return transport;
 }
 
-export async function sendMail(m: { to: string; subject: string; text: string }): Promise<void> {
-  await transporter().sendMail({ from: env().MAIL_FROM, to: m.to, subject: m.subject, text: m.text });
+export async function sendMail(m: { to: string; subject: string; text: string; headers?: Record<string, string> }): Promise<void> {
+  await transporter().sendMail({ from: env().MAIL_FROM, to: m.to, subject: m.subject, text: m.text, headers: m.headers });
 }
 
 export function appUrl(path: string): string {

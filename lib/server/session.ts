@@ -4,18 +4,19 @@ import "server-only";
 // Each is wrapped in React's cache(): the layouts and the page of one request share one session decode, one
 // user row and one list of the user's studios (with roles), instead of each asking again.
 import { cache } from "react";
-import { getServerSession } from "next-auth";
+import { cookies, headers } from "next/headers";
+import { getToken } from "next-auth/jwt";
 import { notFound, redirect } from "next/navigation";
-import { authOptions } from "./auth/options";
-import { findUserById } from "./auth/accounts";
+import { env } from "./env";
+import { liveSessionUser } from "./auth/sessions";
 import { listStudiosForUser, type StudioSummary } from "./studios";
 import type { Role } from "@/lib/permissions";
 
+/** The signed-in user while their session is live (lib/server/auth/sessions.ts), else null. */
 export const currentUser = cache(async (): Promise<{ id: string; email: string; name: string } | null> => {
-  const s = await getServerSession(authOptions());
-  if (!s?.user?.id) return null;
-  const u = await findUserById(s.user.id);
-  return u ? { id: u.id, email: u.email, name: u.name } : null;
+  const e = env();
+  const token = await getToken({ req: { cookies: await cookies(), headers: await headers() } as never, secret: e.NEXTAUTH_SECRET, secureCookie: e.KW_APP_URL.startsWith("https://") });
+  return (await liveSessionUser(token))?.user ?? null;
 });
 
 /** The user's studios with their role in each (one query per request). */

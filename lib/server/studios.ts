@@ -7,6 +7,8 @@ import { hashToken, newId, newToken } from "./ids";
 import { appUrl, sendMail } from "./mail";
 import { logActivity } from "./activity";
 import { sendVerificationMail } from "./auth/accounts";
+import { endAllSessions } from "./auth/sessions";
+import { later } from "./later";
 import { isRole, type Role } from "@/lib/permissions";
 
 const INVITE_TTL_MS = 7 * 24 * 3600_000;
@@ -74,6 +76,8 @@ export async function removeMember({ studioId, actorId, userId }: { studioId: st
     if (!m) throw notFound("That member");
     if (m.role === "owner" && owners <= 1) throw new AppError("conflict", "The last owner cannot be removed: make someone else an owner first.");
     await trx("memberships").where({ studio_id: studioId, user_id: userId }).delete();
+    // the removed person is signed out everywhere: a session is not a pass into the studio they left
+    await endAllSessions(trx, userId);
     await logActivity(trx, { studioId, actorId, action: "member.removed", subjectType: "user", subjectId: userId, details: { email: m.email, role: m.role } });
   });
 }
@@ -152,10 +156,10 @@ export async function acceptInvitation({ token, userId }: { token: string; userI
  * invitation is accepted (which also confirms the address). Otherwise nothing happens and the account
  * gets the usual verification mail.
  */
-export async function acceptInvitationForNewAccount({ token, userId, email }: { token: string; userId: string; email: string }): Promise<{ studioId: string } | null> {
+export async function acceptInvitationForNewAccount({ token, userId, email, mailHeaders }: { token: string; userId: string; email: string; mailHeaders?: Record<string, string> }): Promise<{ studioId: string } | null> {
   const view = await viewInvitation(token);
   if (view.state === "pending" && view.email === email) return acceptInvitation({ token, userId });
   const u = await db()("users").where({ id: userId }).first("id", "email", "name");
-  await sendVerificationMail(u);
+  later("verification mail", () => sendVerificationMail(u, mailHeaders));
   return null;
 }

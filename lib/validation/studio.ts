@@ -7,7 +7,8 @@ export const studioNameSchema = z.strictObject({ name: z.string().trim().min(1, 
 export const roleSchema = z.enum(ROLES);
 export const inviteSchema = z.strictObject({ email, role: roleSchema });
 export const changeRoleSchema = z.strictObject({ role: roleSchema });
-export const idParam = z.string().uuid("That is not a valid id.");
+/** A UUID, in lower case whatever the spelling sent (ids are generated and stored in lower case). */
+export const idParam = z.string().uuid("That is not a valid id.").transform((s) => s.toLowerCase());
 export const studioParams = z.strictObject({ studioId: idParam });
 export const memberParams = z.strictObject({ studioId: idParam, userId: idParam });
 export const invitationParams = z.strictObject({ studioId: idParam, invitationId: idParam });

@@ -215,6 +215,9 @@ function main() {
     }
   }
 
+  // edits of one recording kept as separate samples in the font (one cut shorter or faded) are one recording
+  mergeEdits(renders, groups);
+
   if (args.has("--inspect")) {
     for (const r of renders) {
       const t = gmPercussionTruth(r.key)!;
@@ -230,12 +233,13 @@ function main() {
   const byHash = new Map<string, CorpusItem>();
   for (const r of renders) {
     const truth = gmPercussionTruth(r.key)!;
+    const labelled = truthAt(r.program, r.key, r.channels[0]!.length / OUTPUT_RATE);
     const prior = byHash.get(r.hash);
     if (prior) {
       prior.alsoAt.push({ program: r.program, key: r.key, velocity: r.velocity });
-      const other = gmPercussionTruth(r.key)!;
-      if (!prior.excluded && (other.family !== prior.family || (prior.articulation !== null && other.articulation !== prior.articulation))) {
-        prior.excluded = `the same sound is played for ${prior.gmName} and ${other.name}: its label is not known`;
+      const other = truthAt(r.program, r.key, r.channels[0]!.length / OUTPUT_RATE);
+      if (!prior.excluded && (other.family !== prior.family || other.articulation !== prior.articulation)) {
+        prior.excluded = `the same sound is played for ${prior.gmName} and ${gmPercussionTruth(r.key)!.name}: its label is not known`;
       }
       continue;
     }
@@ -248,14 +252,14 @@ function main() {
       key: r.key,
       gmName: truth.name,
       velocity: r.velocity,
-      family: truth.family,
-      articulation: truth.articulation,
+      family: labelled.family,
+      articulation: labelled.articulation,
       channels: r.channels.length,
       durationSec: Math.round((r.channels[0]!.length / OUTPUT_RATE) * 1000) / 1000,
       alsoAt: [],
     };
-    const note = labelNote(item);
-    if (note) Object.assign(item, note);
+    if (labelled.note) item.note = labelled.note;
+    if (labelled.excluded) item.excluded = labelled.excluded;
     byHash.set(r.hash, item);
     writeFileSync(path.join(out, "wav", item.file), encodeWav(r.channels, { sampleRate: OUTPUT_RATE, bits: 24 }));
   }
@@ -276,22 +280,63 @@ function main() {
   log(`${items.length} distinct renders (${used.length} used, ${items.length - used.length} excluded), ${new Set(used.map((i) => i.group)).size} recordings, in ${out}`);
 }
 
+/** Mono mix of the first 100 ms after the onset (first sample within 40 dB of the peak), unit energy. */
+function headOf(channels: Float32Array[]): Float32Array {
+  const n = channels[0]!.length;
+  const mono = new Float32Array(n);
+  for (const c of channels) for (let i = 0; i < n; i++) mono[i]! += c[i]!;
+  let peak = 0;
+  for (const x of mono) peak = Math.max(peak, Math.abs(x));
+  let on = 0;
+  while (on < n && Math.abs(mono[on]!) < peak / 100) on++;
+  const head = mono.slice(on, on + Math.round(0.1 * OUTPUT_RATE));
+  let e = 0;
+  for (const x of head) e += x * x;
+  const g = e > 0 ? 1 / Math.sqrt(e) : 0;
+  return head.map((x) => x * g);
+}
+
+/**
+ * Unites the groups of renders whose first 100 ms correlate at 0.9 or more (at a lag of up to 1 ms) within one
+ * family: the font keeps some recordings twice, once trimmed or faded, under different sample names.
+ */
+function mergeEdits(renders: Render[], groups: Groups) {
+  const heads = renders.map((r) => headOf(r.channels));
+  const lag = Math.round(0.001 * OUTPUT_RATE);
+  for (let a = 0; a < renders.length; a++) {
+    for (let b = a + 1; b < renders.length; b++) {
+      const ra = renders[a]!, rb = renders[b]!;
+      if (gmPercussionTruth(ra.key)!.family !== gmPercussionTruth(rb.key)!.family) continue;
+      if (groups.find(ra.voices[0]!.sample) === groups.find(rb.voices[0]!.sample)) continue;
+      const x = heads[a]!, y = heads[b]!;
+      let best = 0;
+      for (let l = -lag; l <= lag; l++) {
+        let s = 0;
+        for (let i = Math.max(0, -l); i < x.length && i + l < y.length; i++) s += x[i]! * y[i + l]!;
+        best = Math.max(best, s);
+      }
+      if (best >= 0.9) groups.union(ra.voices[0]!.sample, rb.voices[0]!.sample);
+    }
+  }
+}
+
 function presetInstrumentName(preset: { zones: { instrument: { name: string; zones: { sample: SampleRef }[] } }[] }, sample: number): string {
   for (const z of preset.zones) if (z.instrument.zones.some((iz) => iz.sample.index === sample)) return z.instrument.name;
   return "";
 }
 
-/** Label corrections and exclusions after looking at the data (README.md says why). */
-function labelNote(i: CorpusItem): Partial<CorpusItem> | null {
-  if (i.kitKind === "brush" && i.key >= 38 && i.key <= 40) {
+/** The truth of a key of a kit: the GM key map, with the corrections made after looking at the data (README.md). */
+function truthAt(program: number, key: number, seconds: number): Pick<CorpusItem, "family" | "articulation" | "note" | "excluded"> {
+  const t = gmPercussionTruth(key)!;
+  if (BRUSH_PROGRAMS.has(program) && key >= 38 && key <= 40) {
     // brush kits put brush strokes on the snare keys (39 is a brush slap here, not a clap)
     return { family: "snare", articulation: null, note: "brush stroke on a snare: family only" };
   }
-  if (i.program === 25 && i.key === 44 && i.durationSec > 1.5) {
+  if (program === 25 && key === 44 && seconds > 1.5) {
     // this kit's pedal key plays its open-hat recording for over three seconds: whatever a pedal chick is, not this
-    return { excluded: "the pedal hi-hat key plays the open-hat recording at full length" };
+    return { family: t.family, articulation: t.articulation, excluded: "the pedal hi-hat key plays the open-hat recording at full length" };
   }
-  return null;
+  return { family: t.family, articulation: t.articulation };
 }
 
 main();

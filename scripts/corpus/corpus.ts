@@ -6,7 +6,7 @@ import path from "node:path";
 import type { Articulation, Family } from "../../lib/catalog/taxonomy";
 
 /** Bump when the rendering or the labels change: the corpus is then rebuilt. */
-export const CORPUS_BUILDER_VERSION = 1;
+export const CORPUS_BUILDER_VERSION = 2;
 
 export interface CorpusItem {
   /** Opaque file name under wav/ (says nothing of the sound). */

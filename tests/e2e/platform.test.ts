@@ -1,6 +1,7 @@
 // The platform in a real browser: sign up, confirm by the caught mail, sign in, create a studio, invite a
 // second person, who signs up from the invitation as a viewer and cannot reach editor actions in the UI
 // or the API. Also checks the security headers on real responses.
+import http from "node:http";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { BASE, launch, screenshot, signIn, waitForMailLink } from "./browser";
@@ -9,6 +10,7 @@ const tag = Math.random().toString(36).slice(2, 8);
 const owner = { name: "Ines Varga", email: `ines-${tag}@example.test`, password: "owner-pass-123" };
 const guest = { name: "Bo Lindahl", email: `bo-${tag}@example.test`, password: "viewer-pass-123" };
 const studioName = `Saltmarsh Room ${tag}`;
+let otherStudioUrl = "";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -25,6 +27,21 @@ describe("platform flow in Chromium", () => {
     expect(res.headers.get("x-content-type-options")).toBe("nosniff");
     expect(res.headers.get("x-frame-options")).toBe("DENY");
     expect(res.headers.get("x-powered-by")).toBeNull();
+  });
+
+  it("answers TRACE with 405 (the server's guard; Next.js answered 500), never echoing the request", async () => {
+    const r = await new Promise<{ status: number; allow?: string; body: string }>((resolve, reject) => {
+      const req = http.request(`${BASE}/api/health`, { method: "TRACE", headers: { cookie: "secret=1" } }, (res) => {
+        let body = "";
+        res.on("data", (c) => (body += c));
+        res.on("end", () => resolve({ status: res.statusCode!, allow: res.headers.allow, body }));
+      });
+      req.on("error", reject);
+      req.end();
+    });
+    expect(r.status).toBe(405);
+    expect(r.allow).toMatch(/GET/);
+    expect(r.body).not.toContain("secret=1");
   });
 
   it("signs up, confirms by mail, signs in, creates a studio and invites a viewer who cannot edit", async () => {
@@ -79,6 +96,7 @@ describe("platform flow in Chromium", () => {
     await page.getByLabel("Studio name").fill(`${studioName} B`);
     await page.getByRole("button", { name: "Create studio" }).click();
     await page.waitForURL((u) => /\/s\/[0-9a-f-]{36}$/.test(u.pathname) && u.toString() !== studioUrl);
+    otherStudioUrl = page.url();
     await page.getByRole("link", { name: "Members" }).click();
     await page.waitForURL(/\/members$/);
     await page.getByLabel("Switch studio").selectOption({ label: studioName });
@@ -124,6 +142,33 @@ describe("platform flow in Chromium", () => {
       return r.status;
     }, studioId);
     expect(status).toBe(403);
+
+    // A studio the guest is not in does not exist for them: its pages answer 404, not a page saying so
+    for (const path of ["", "/libraries", "/members"]) {
+      const res = await g.goto(`${otherStudioUrl}${path}`);
+      expect(res?.status(), path).toBe(404);
+    }
     await gctx.close();
+  });
+
+  it("the caught-mail page shows a signed-out visitor nobody else's mail, not even a reset link they asked for", async () => {
+    const ctx = await browser.newContext();
+    const page = await ctx.newPage();
+    await page.goto(`${BASE}/forgot`);
+    const status = await page.evaluate(async (email) => (await fetch("/api/auth/password-reset", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email }) })).status, owner.email);
+    expect(status).toBe(202);
+    await waitForMailLink(owner.email, /\/reset\?token=/);
+    await page.goto(`${BASE}/mail`);
+    await page.getByTestId("mail-none").waitFor();
+    await expect(page.locator("a[href*='/reset?token=']").count()).resolves.toBe(0);
+    await expect(page.locator("a[href*='/verify?token=']").count()).resolves.toBe(0);
+    await screenshot(page, "platform-07-mail-signed-out");
+    // signed in, the owner reads their own reset mail
+    await signIn(page, owner.email, owner.password);
+    await page.goto(`${BASE}/mail`);
+    await expect(page.locator("a[href*='/reset?token=']").count()).resolves.toBeGreaterThan(0);
+    await expect(page.getByTestId("mail-to").allTextContents()).resolves.toEqual(expect.arrayContaining([owner.email]));
+    for (const to of await page.getByTestId("mail-to").allTextContents()) expect(to).toBe(owner.email);
+    await ctx.close();
   });
 });

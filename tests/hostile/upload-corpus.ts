@@ -9,10 +9,9 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { NextRequest } from "next/server";
-import { encode } from "next-auth/jwt";
 import { db } from "@/lib/server/db";
 import { env } from "@/lib/server/env";
-import { createStudio, createUser } from "@/db/factories";
+import { createSessionCookie, createStudio, createUser } from "@/db/factories";
 import { createLibrary } from "@/lib/server/catalogue/libraries";
 import { measureSample } from "@/lib/server/catalogue/measure";
 import { closeQueues } from "@/lib/server/jobs";
@@ -31,7 +30,7 @@ async function main() {
   const user = await createUser(db(), { email: `hostile-${crypto.randomBytes(4).toString("hex")}@example.test`, name: "Hostile uploader", password: "correct-horse-9" });
   const studio = await createStudio(db(), { name: `Hostile ${crypto.randomBytes(3).toString("hex")}`, ownerId: user.id });
   const lib = await createLibrary({ studioId: studio.id, actorId: user.id, name: `Hostile corpus ${SEED}` });
-  const cookie = `next-auth.session-token=${await encode({ token: { uid: user.id, sub: user.id }, secret: env().NEXTAUTH_SECRET })}`;
+  const cookie = await createSessionCookie(db(), user.id, env().NEXTAUTH_SECRET);
   const base = new URL(env().KW_APP_URL);
   const b = bases();
   const outcomes: Record<string, number> = {};
@@ -52,14 +51,17 @@ async function main() {
     const u0 = performance.now();
     const res = await uploadRoute.POST(req, { params: Promise.resolve({ studioId: studio.id, libraryId: lib.id }) });
     worstUploadMs = Math.max(worstUploadMs, performance.now() - u0);
-    const json = (await res.json()) as { files?: { name: string; status: string; code?: string; reason?: string; sampleId?: string }[]; error?: unknown };
+    type Outcome = { name: string; status: string; code?: string; reason?: string; sampleId?: string };
+    const json = (await res.json()) as { files?: Outcome[]; error?: { details?: { files?: Outcome[] } } };
     if (res.status >= 500) problems.push(`batch at ${start}: HTTP ${res.status} ${JSON.stringify(json).slice(0, 200)}`);
-    if (res.status !== 201 || !json.files) {
+    // 201 with the outcomes, or 422 with them when nothing in the batch was accepted
+    const outcomesOf = res.status === 201 ? json.files : res.status === 422 ? json.error?.details?.files : undefined;
+    if (!outcomesOf) {
       problems.push(`batch at ${start}: HTTP ${res.status}`);
       continue;
     }
-    if (json.files.length !== n) problems.push(`batch at ${start}: ${json.files.length} outcomes for ${n} files`);
-    for (const f of json.files) {
+    if (outcomesOf.length !== n) problems.push(`batch at ${start}: ${outcomesOf.length} outcomes for ${n} files`);
+    for (const f of outcomesOf) {
       const key = f.status === "refused" ? `refused at upload: ${f.code}` : f.status;
       outcomes[key] = (outcomes[key] ?? 0) + 1;
       if (f.status === "refused" && !(f.reason ?? "").trim()) problems.push(`${f.name}: refused without a reason`);

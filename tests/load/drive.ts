@@ -10,9 +10,8 @@ import os from "node:os";
 import path from "node:path";
 import autocannon from "autocannon";
 import knexFactory from "knex";
-import { encode } from "next-auth/jwt";
 import config from "../../knexfile";
-import { addMember, createStudio, createUser } from "../../db/factories";
+import { addMember, createSessionCookie, createStudio, createUser } from "../../db/factories";
 import { bases, mutant } from "../hostile/mutate";
 
 const argv = process.argv.slice(2);
@@ -68,7 +67,7 @@ async function main() {
   const studio = await createStudio(k, { name: `Load ${crypto.randomBytes(3).toString("hex")}`, ownerId: owner.id });
   for (const e of editors) await addMember(k, { studioId: studio.id, userId: e.id, role: "editor" });
   const secret = process.env.NEXTAUTH_SECRET!;
-  const cookieOf = async (id: string) => `next-auth.session-token=${await encode({ token: { uid: id, sub: id }, secret })}`;
+  const cookieOf = (id: string) => createSessionCookie(k, id, secret);
   const cookie = await cookieOf(owner.id);
   const editorCookies = await Promise.all(editors.map((e) => cookieOf(e.id)));
 

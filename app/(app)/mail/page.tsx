@@ -1,8 +1,12 @@
 // Mail caught by the local SMTP fake (demo, development, tests), so verification and invitation links can
-// be clicked. With a real SMTP server configured this page does not exist.
+// be clicked. Each person sees only their own mail (lib/server/mail-catcher.ts). With a real SMTP server
+// configured, or in a production build without the local profiles' opt-in, this page does not exist.
 import type { Metadata } from "next";
+import Link from "next/link";
+import { cookies } from "next/headers";
 import { notFound } from "next/navigation";
-import { listCaughtMail, mailFakeEnabled } from "@/lib/server/mail-catcher";
+import { caughtMailFor, MAIL_KEY_COOKIE, mailPageEnabled } from "@/lib/server/mail-catcher";
+import { currentUser } from "@/lib/server/session";
 
 export const metadata: Metadata = { title: "Caught mail" };
 export const dynamic = "force-dynamic";
@@ -13,13 +17,20 @@ function Linkified({ text }: { text: string }) {
 }
 
 export default async function MailPage() {
-  if (!mailFakeEnabled()) notFound();
-  const mail = await listCaughtMail();
+  if (!mailPageEnabled()) notFound();
+  const user = await currentUser();
+  const browserKey = (await cookies()).get(MAIL_KEY_COOKIE)?.value ?? null;
+  const mail = await caughtMailFor({ user, browserKey });
   return (
     <div className="space-y-4">
       <h1>Caught mail</h1>
-      <p className="text-sm text-muted">Kitwright is sending through its local SMTP fake: nothing leaves this machine. Every message is kept here, newest first.</p>
-      {mail.length === 0 && <p className="card text-sm">No mail yet.</p>}
+      <p className="text-sm text-muted">
+        Kitwright is sending through its local SMTP fake: nothing leaves this machine.{" "}
+        {user
+          ? <>Here is the mail sent to <strong>{user.email}</strong>, newest first.</>
+          : <>Signed out, you see only the confirmation mail of an account created in this browser. <Link href="/sign-in?next=/mail">Sign in</Link> to see the mail sent to your address.</>}
+      </p>
+      {mail.length === 0 && <p className="card text-sm" data-testid="mail-none">No mail for you here.</p>}
       <ul className="space-y-3" data-testid="mail-list">
         {mail.map((m) => (
           <li key={m.id} className="card space-y-2">

@@ -39,9 +39,13 @@ export async function countsFor(studioId: string, libraryIds: string[]): Promise
     .whereIn("c.library_id", libraryIds)
     .andWhere("c.n", ">", 0)
     .select("c.library_id", "c.state", "c.n");
-  for (const r of rows as { library_id: string; state: keyof StateCounts; n: number | string }[]) {
-    const c = out.get(r.library_id)!;
-    c[r.state] = Number(r.n);
+  // ids compare without regard to case in the database: match them the same way here (a counter row may
+  // carry another spelling of the id than the caller's), and add up rather than overwrite
+  const byLower = new Map([...out].map(([id, c]) => [id.toLowerCase(), c]));
+  for (const r of rows as { library_id: string; state: string; n: number | string }[]) {
+    const c = byLower.get(r.library_id.toLowerCase());
+    if (!c || !(r.state in c) || r.state === "total") continue;
+    c[r.state as Exclude<keyof StateCounts, "total">] += Number(r.n);
     c.total += Number(r.n);
   }
   return out;

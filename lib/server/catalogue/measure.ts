@@ -1,7 +1,8 @@
 import "server-only";
 // The measure job's data side: read the stored WAV, measure it (lib/audio measureWav, on the worker's pool), store
 // the measurement, peaks and the copied-out columns, and mark the sample catalogued (or rejected with the
-// refusal's code and reason). Idempotent: a sample already measured at this MEASURE_VERSION is left alone.
+// refusal's code and reason). Idempotent: a sample already measured at this MEASURE_VERSION is left alone; one
+// measured by an older version is measured again (queued at worker start: maintenance.ts requeueOutdated).
 import { MEASURE_VERSION } from "@/lib/audio/version";
 import { decaySec } from "@/lib/catalog/features";
 import type { MeasureOutcome } from "@/lib/audio";
@@ -21,7 +22,9 @@ export async function measureSample({ sampleId, studioId }: { sampleId: string; 
   const s = await db()("samples").where({ id: sampleId, studio_id: studioId }).first("id", "library_id", "state", "measure_version", "storage_key");
   if (!s) return "skipped"; // deleted meanwhile
   if ((s.state === "catalogued" || s.state === "rejected") && s.measure_version === MEASURE_VERSION) return "skipped";
-  await db()("samples").where({ id: sampleId }).update({ state: "measuring", updated_at: db().fn.now(3) });
+  // a sample measured by an older MEASURE_VERSION stays catalogued while it is measured again, so the library's
+  // regroups, searches and kits keep seeing it; it takes the new measurement when it is ready
+  if (s.state !== "catalogued") await db()("samples").where({ id: sampleId }).update({ state: "measuring", updated_at: db().fn.now(3) });
   let bytes: Uint8Array;
   try {
     bytes = await storage().getBytes(s.storage_key);

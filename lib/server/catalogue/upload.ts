@@ -16,19 +16,21 @@ import yauzl from "yauzl";
 import { db } from "../db";
 import { env } from "../env";
 import { AppError } from "../errors";
+import { mediaType } from "../media-type";
 import { logActivity } from "../activity";
 import { newId } from "../ids";
 import { storage, zipSpoolPath } from "../storage";
 import { assertLibrary, sampleKey } from "./libraries";
 import { enqueueMeasure } from "./queue";
 import { deleteWordsOfSamples, insertSamplesWithWords } from "./words";
+import { busboyReadsAsFile, lenientFileName, mentionsFile, PartHeaderScanner, type PartHeader } from "./multipart-parts";
 
 export type UploadStatus = "queued" | "duplicate" | "refused";
 export interface UploadFileResult {
   name: string;
   status: UploadStatus;
   reason?: string;
-  /** Stable code of the refusal: not-wav, rf64, too-large, bad-path, zip-*, empty, interrupted, error. */
+  /** Stable code of the refusal: not-wav, rf64, too-large, bad-path, path-too-long, bad-name, too-many, zip-*, empty, interrupted, error. */
   code?: string;
   sampleId?: string;
 }
@@ -51,6 +53,19 @@ class Refusal extends Error {
   constructor(readonly code: string, message: string) {
     super(message);
   }
+}
+
+/** The reason given when storing fails on our side (the error itself goes to the server's log). */
+const ERROR_REASON = "the file could not be stored (an error on our side, logged); send it again";
+
+const BAD_NAME_REASON = "the part's file name could not be read (it holds a raw '\"' or another character not allowed in a MIME header); rename the file and send it again";
+
+const interruptedRefusal = () => new Refusal("interrupted", "the upload was interrupted");
+
+/** A zip entry that fails while it is unpacked: sizes that disagree with the directory, or damaged data. */
+function zipEntryRefusal(e: Error): Refusal {
+  if (/bytes in the stream/i.test(e.message)) return new Refusal("zip-damaged", "the entry's unpacked size does not match the size its directory gives (a damaged or altered pack)");
+  return new Refusal("zip-damaged", "the entry could not be unpacked (its compressed data is damaged)");
 }
 
 /**
@@ -275,7 +290,10 @@ class Recorder {
       await storage().delete(it.key).catch(() => undefined);
       if (errno === 1452) Object.assign(it.result, { code: "error", reason: "the library no longer exists" });
       else if (e instanceof AppError) Object.assign(it.result, { code: "error", reason: e.message });
-      else Object.assign(it.result, { code: "error", reason: `could not store the file: ${(e as Error)?.message ?? String(e)}` });
+      else {
+        console.error(e);
+        Object.assign(it.result, { code: "error", reason: ERROR_REASON });
+      }
     }
   }
 }
@@ -284,13 +302,14 @@ class Recorder {
  * Streams one WAV (from the request or a zip entry) to storage and hands it to the recorder. Resolves once the
  * file is stored (its recording is awaited through ctx.recorder.recorded). Never throws.
  */
-async function storeWav(ctx: Ctx, src: Readable, relPath: string, drain: () => void): Promise<void> {
+async function storeWav(ctx: Ctx, src: Readable, relPath: string, drain: () => void, sourceError: (e: Error) => Refusal = interruptedRefusal): Promise<void> {
   const sampleId = newId();
   const key = sampleKey(ctx.studioId, ctx.libraryId, sampleId);
   const ticket = ctx.recorder.ticket();
   const inspect = new Inspect("wav", ctx.maxFile, ctx.addBytes);
   ctx.active.add(inspect);
-  src.on("error", (e) => inspect.destroy(e));
+  // a failure of the source (the request, a zip entry) is told in our words, never the library's message
+  src.on("error", (e) => inspect.destroy(sourceError(e)));
   inspect.on("error", () => {
     src.unpipe(inspect);
     drain();
@@ -307,9 +326,8 @@ async function storeWav(ctx: Ctx, src: Readable, relPath: string, drain: () => v
     if (e instanceof Refusal) Object.assign(result, { code: e.code, reason: e.message });
     else if (e instanceof AppError) Object.assign(result, { code: "error", reason: e.message });
     else {
-      const msg = (e as Error)?.message ?? String(e);
-      const interrupted = /aborted|premature|unexpected end|ECONNRESET/i.test(msg);
-      Object.assign(result, { code: interrupted ? "interrupted" : "error", reason: interrupted ? "the upload was interrupted" : `could not store the file: ${msg}` });
+      const interrupted = /aborted|premature|unexpected end|ECONNRESET/i.test((e as Error)?.message ?? String(e));
+      Object.assign(result, { code: interrupted ? "interrupted" : "error", reason: interrupted ? "the upload was interrupted" : ERROR_REASON });
       if (!interrupted) console.error(e);
     }
   } finally {
@@ -332,8 +350,8 @@ async function storeZip(ctx: Ctx, zipPath: string, zipName: string, zipBytes: nu
   let zip: yauzl.ZipFile;
   try {
     zip = await new Promise<yauzl.ZipFile>((res, rej) => yauzl.open(zipPath, { lazyEntries: true, decodeStrings: false, validateEntrySizes: true, autoClose: false }, (e, z) => (e || !z ? rej(e ?? new Error("no zip")) : res(z))));
-  } catch (e) {
-    refuse(zipName, "zip-unreadable", `the zip pack could not be read: ${(e as Error).message}`);
+  } catch {
+    refuse(zipName, "zip-damaged", "the zip pack could not be read: its central directory is missing or damaged");
     return;
   }
   try {
@@ -343,15 +361,20 @@ async function storeZip(ctx: Ctx, zipPath: string, zipName: string, zipBytes: nu
     }
     // First pass over the central directory: sizes and ratios before anything is inflated.
     const entries: yauzl.Entry[] = [];
-    await new Promise<void>((res, rej) => {
-      zip.on("entry", (e: yauzl.Entry) => {
-        entries.push(e);
+    try {
+      await new Promise<void>((res, rej) => {
+        zip.on("entry", (e: yauzl.Entry) => {
+          entries.push(e);
+          zip.readEntry();
+        });
+        zip.on("end", () => res());
+        zip.on("error", rej);
         zip.readEntry();
       });
-      zip.on("end", () => res());
-      zip.on("error", rej);
-      zip.readEntry();
-    });
+    } catch {
+      refuse(zipName, "zip-damaged", "the zip pack's central directory does not match its contents (a damaged or altered pack); nothing in it was stored");
+      return;
+    }
     const total = entries.reduce((s, e) => s + e.uncompressedSize, 0);
     if (total > ZIP_LIMITS.maxTotalUncompressed) {
       refuse(zipName, "zip-too-large", `the zip pack would unpack to ${mb(total)}; at most ${mb(ZIP_LIMITS.maxTotalUncompressed)} are accepted`);
@@ -389,11 +412,11 @@ async function storeZip(ctx: Ctx, zipPath: string, zipName: string, zipBytes: nu
       let stream: Readable;
       try {
         stream = await new Promise<Readable>((res, rej) => zip.openReadStream(entry, (e, s) => (e || !s ? rej(e ?? new Error("no stream")) : res(s))));
-      } catch (e) {
-        refuse(`${base}${rel}`, "zip-unreadable", `the entry could not be read: ${(e as Error).message}`);
+      } catch {
+        refuse(`${base}${rel}`, "zip-damaged", "the entry could not be read from the pack (a damaged or altered pack)");
         continue;
       }
-      await storeWav(ctx, stream, `${base}${rel}`, () => stream.resume());
+      await storeWav(ctx, stream, `${base}${rel}`, () => stream.resume(), zipEntryRefusal);
     }
   } finally {
     zip.close();
@@ -406,7 +429,7 @@ async function storeZip(ctx: Ctx, zipPath: string, zipName: string, zipBytes: nu
  * Readable.fromWeb and pipe, spares a stream layer and the objects it makes per chunk (bench/RESULTS.md,
  * finding 8).
  */
-async function feedParser(body: ReadableStream<Uint8Array>, bb: busboy.Busboy): Promise<void> {
+async function feedParser(body: ReadableStream<Uint8Array>, bb: busboy.Busboy, scanner: PartHeaderScanner): Promise<void> {
   const reader = body.getReader();
   let failure: Error | null = null;
   let wake: (() => void) | null = null;
@@ -425,7 +448,9 @@ async function feedParser(body: ReadableStream<Uint8Array>, bb: busboy.Busboy): 
       const { value, done } = await reader.read();
       if (failure) throw failure;
       if (done) break;
-      if (!bb.write(Buffer.from(value.buffer, value.byteOffset, value.byteLength))) {
+      const chunk = Buffer.from(value.buffer, value.byteOffset, value.byteLength);
+      scanner.write(chunk); // first: it has seen a part's header by the time busboy hands the part over
+      if (!bb.write(chunk)) {
         await new Promise<void>((r) => (wake = r));
         wake = null;
         if (failure) throw failure;
@@ -447,7 +472,12 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   const maxFile = e.KW_UPLOAD_MAX_FILE_BYTES;
   const maxBatch = e.KW_UPLOAD_MAX_BATCH_BYTES;
   const type = req.headers.get("content-type") ?? "";
-  if (!type.toLowerCase().startsWith("multipart/form-data")) throw new AppError("invalid-input", "Send the files as multipart/form-data.");
+  const media = mediaType(type);
+  if (media?.type !== "multipart/form-data") throw new AppError("invalid-input", "Send the files as multipart/form-data.");
+  // RFC 2046 section 5.1.1: the boundary parameter is required, 1 to 70 characters
+  const boundary = media.parameters.boundary ?? "";
+  if (!boundary) throw new AppError("invalid-input", "The upload names no multipart boundary (Content-Type: multipart/form-data; boundary=...); nothing was stored.");
+  if (boundary.length > 70) throw new AppError("invalid-input", "The upload's multipart boundary is longer than 70 characters (RFC 2046); nothing was stored.");
   const declared = Number(req.headers.get("content-length") ?? "0");
   if (declared > maxBatch) throw new AppError("too-large", `This upload is ${mb(declared)}; one batch may hold at most ${mb(maxBatch)}. Send the files in smaller batches.`);
   if (!req.body) throw new AppError("invalid-input", "The upload is empty.");
@@ -473,8 +503,26 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   const ctx: Ctx = { ...base, recorder: new Recorder(base) };
   const tasks: Promise<void>[] = [];
   const tmpFiles: string[] = [];
-  const bb = busboy({ headers: { "content-type": type }, preservePath: true, defParamCharset: "utf8", highWaterMark: STREAM_BUFFER, fileHwm: STREAM_BUFFER, limits: { fileSize: Number.MAX_SAFE_INTEGER, files: 50_000, fields: 50, parts: 50_100 } });
+  let bb: busboy.Busboy;
+  try {
+    bb = busboy({ headers: { "content-type": type }, preservePath: true, defParamCharset: "utf8", highWaterMark: STREAM_BUFFER, fileHwm: STREAM_BUFFER, limits: { fileSize: Number.MAX_SAFE_INTEGER, files: 50_000, fields: 50, parts: 50_100 } });
+  } catch (err) {
+    throw new AppError("invalid-input", `The upload's multipart header could not be read (${(err as Error).message.replace(/^Multipart: /, "")}); nothing was stored.`);
+  }
+  // busboy skips a part whose header it cannot read without a word: the scanner lists every part, so each
+  // skipped part that names a file gets its own outcome, in its place among the others
+  const parts: PartHeader[] = [];
+  const scanner = new PartHeaderScanner(boundary, (p) => parts.push(p));
+  const skippedParts = () => {
+    while (parts.length && !busboyReadsAsFile(parts[0]!)) {
+      const p = parts.shift()!;
+      if (mentionsFile(p.disposition)) ctx.results.push({ name: lenientFileName(p.disposition!), status: "refused", code: "bad-name", reason: BAD_NAME_REASON });
+    }
+  };
   bb.on("file", (_field, file, info) => {
+    skippedParts();
+    parts.shift(); // this file's own part
+
     // browsers and undici percent-encode quotes and line breaks in multipart file names
     const rel = cleanRelPath((info.filename ?? "").replace(/%22/g, '"').replace(/%0D/gi, "").replace(/%0A/gi, ""));
     if (!rel) {
@@ -501,9 +549,18 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
       file.pipe(inspect);
       tasks.push(
         pipeline(inspect, fs.createWriteStream(tmp))
-          .then(() => storeZip(ctx, tmp, rel, inspect.bytes))
+          .then(
+            () => storeZip(ctx, tmp, rel, inspect.bytes),
+            // receiving the pack failed: refused by a check, or the request stopped (a full disk: ours)
+            (err) => {
+              const known = err instanceof Refusal ? err : /aborted|premature|unexpected end|ECONNRESET/i.test(String(err?.message)) ? interruptedRefusal() : null;
+              if (!known) console.error(err);
+              ctx.results.push({ name: rel, status: "refused", code: known?.code ?? "error", reason: known?.message ?? ERROR_REASON });
+            },
+          )
           .catch((err) => {
-            ctx.results.push({ name: rel, status: "refused", code: err instanceof Refusal ? err.code : "interrupted", reason: err instanceof Refusal ? err.message : "the upload was interrupted" });
+            console.error(err);
+            ctx.results.push({ name: rel, status: "refused", code: "error", reason: ERROR_REASON });
           })
           .finally(() => {
             ctx.active.delete(inspect);
@@ -516,7 +573,10 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   });
   let failed: Error | null = null;
   try {
-    await feedParser(req.body, bb);
+    await feedParser(req.body, bb, scanner);
+    skippedParts();
+    // parts busboy would read but never handed over: over its count limit
+    for (const p of parts.splice(0)) if (busboyReadsAsFile(p)) ctx.results.push({ name: p.disposition && mentionsFile(p.disposition) ? lenientFileName(p.disposition) : "(no name)", status: "refused", code: "too-many", reason: "the batch holds more files than one upload may; send the rest in another batch" });
   } catch (err) {
     failed = err as Error;
     for (const a of ctx.active) a.destroy(err as Error);
@@ -550,14 +610,18 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
   await ctx.recorder.measuringQueued();
   const counts = { queued: 0, duplicate: 0, refused: 0 };
   for (const r of ctx.results) counts[r.status]++;
-  if (ctx.results.length) {
+  const accepted = counts.queued + counts.duplicate;
+  if (accepted > 0) {
     await logActivity(db(), { studioId, actorId: userId, action: "samples.uploaded", subjectType: "library", subjectId: libraryId, details: { library: lib.name, ...counts } });
   }
   if (!ctx.results.length) throw new AppError("invalid-input", "The upload holds no files.");
   if (batchTooLarge) throw new AppError("too-large", `This upload went over ${mb(maxBatch)}; one batch may hold at most ${mb(maxBatch)}. Send the files in smaller batches.`, { files: ctx.results, counts });
-  const tooLarge = ctx.results.filter((r) => r.code === "too-large");
-  if (tooLarge.length && counts.queued === 0 && counts.duplicate === 0) {
-    throw new AppError("too-large", `${tooLarge[0]!.name} is ${tooLarge[0]!.reason}; nothing was stored.`, { files: ctx.results, counts });
+  // nothing accepted: the answer's status says so (413 when a file was too large, else 422), with every outcome
+  if (accepted === 0) {
+    const tooLarge = ctx.results.filter((r) => r.code === "too-large");
+    if (tooLarge.length) throw new AppError("too-large", `${tooLarge[0]!.name} is ${tooLarge[0]!.reason}; nothing was stored.`, { files: ctx.results, counts });
+    const n = ctx.results.length;
+    throw new AppError("invalid-input", n === 1 ? `${ctx.results[0]!.name} was refused: ${ctx.results[0]!.reason}.` : `None of the ${n} files was accepted; each one's reason is listed.`, { files: ctx.results, counts });
   }
   return { files: ctx.results, counts };
 }

@@ -10,9 +10,9 @@ import path from "node:path";
 import type { ChildProcess } from "node:child_process";
 import knexFactory, { type Knex } from "knex";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createStudio, createUser } from "@/db/factories";
+import { createSessionCookie, createStudio, createUser } from "@/db/factories";
 import { measureJobId } from "@/lib/server/jobs";
-import { sessionCookie, uniq } from "../helpers";
+import { uniq } from "../helpers";
 import { bases } from "@/tests/hostile/mutate";
 import { faultEnv, migrate, redisCli, startDb, startRedis, startServer, stopDb, stopRedis, teardown, type FaultEnv } from "@/tests/faults/services";
 
@@ -98,7 +98,8 @@ beforeAll(async () => {
   k = knexFactory({ client: "mysql2", connection: { host: "127.0.0.1", port: f.dbPort, user: f.env.KW_DB_USER ?? "kitwright", password: f.env.KW_DB_PASSWORD, database: "kitwright_faults", timezone: "Z" }, pool: { min: 0, max: 2 } });
   const owner = await createUser(k, { email: `${uniq("f")}@example.test`, name: "Fault owner", password: "correct-horse-9", verified: true });
   studioId = (await createStudio(k, { name: uniq("Faults"), ownerId: owner.id })).id;
-  cookie = (await sessionCookie(owner))!;
+  // the session row lives in the fault suite's own database, beside the user
+  cookie = await createSessionCookie(k, owner.id, f.env.NEXTAUTH_SECRET!);
   const lib = await request("POST", `/api/studios/${studioId}/libraries`, { data: JSON.stringify({ name: "Fault library" }), type: "application/json" });
   expect(lib.status, JSON.stringify(lib.json)).toBe(201);
   libraryId = lib.json.id;

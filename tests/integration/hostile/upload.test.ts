@@ -30,9 +30,42 @@ async function multipart(files: { name: string; data: Uint8Array }[]): Promise<{
 let ctx: Awaited<ReturnType<typeof makeStudioWithRoles>>;
 let libraryId: string;
 
+/** Every upload of this suite: a 5xx fails the test whatever else it checks. */
+async function send(body: Uint8Array, type: string, headers: Record<string, string> = {}) {
+  const r = await call(uploadRoute.POST, { method: "POST", params: { studioId: ctx.studio.id, libraryId }, rawBody: body, headers: { "content-type": type, ...headers }, user: ctx.users.editor, path: `/api/studios/${ctx.studio.id}/libraries/${libraryId}/uploads` });
+  expect(r.status, `5xx: ${JSON.stringify(r.json)}`).toBeLessThan(500);
+  return r;
+}
+
 async function upload(files: { name: string; data: Uint8Array }[], headers: Record<string, string> = {}) {
   const { body, type } = await multipart(files);
-  return call(uploadRoute.POST, { method: "POST", params: { studioId: ctx.studio.id, libraryId }, rawBody: body, headers: { "content-type": type, ...headers }, user: ctx.users.editor, path: `/api/studios/${ctx.studio.id}/libraries/${libraryId}/uploads` });
+  return send(body, type, headers);
+}
+
+/** A multipart body written by hand, part headers exactly as given (RFC 7578), for names a browser would escape. */
+function rawMultipart(parts: { disposition: string; data: Uint8Array }[]): { body: Uint8Array; type: string } {
+  const b = `kw-${crypto.randomUUID()}`;
+  const chunks: Buffer[] = [];
+  for (const p of parts) chunks.push(Buffer.from(`--${b}\r\nContent-Disposition: ${p.disposition}\r\nContent-Type: audio/wav\r\n\r\n`, "utf8"), Buffer.from(p.data), Buffer.from("\r\n"));
+  chunks.push(Buffer.from(`--${b}--\r\n`));
+  return { body: new Uint8Array(Buffer.concat(chunks)), type: `multipart/form-data; boundary=${b}` };
+}
+
+/** The zip writer's output with its end record claiming `count` entries (PKZIP APPNOTE 4.3.16: total entries). */
+function withEntryCount(zip: Uint8Array, count: number): Uint8Array {
+  const b = Buffer.from(zip);
+  b.writeUInt16LE(count, b.length - 22 + 8);
+  b.writeUInt16LE(count, b.length - 22 + 10);
+  return new Uint8Array(b);
+}
+
+/** The zip writer's output with the first entry's uncompressed size (local header and directory) set to `size`. */
+function withEntrySize(zip: Uint8Array, size: number): Uint8Array {
+  const b = Buffer.from(zip);
+  b.writeUInt32LE(size, 22); // local file header: uncompressed size at 22 (APPNOTE 4.3.7)
+  const cd = b.readUInt32LE(b.length - 22 + 16); // end record: central directory offset
+  b.writeUInt32LE(size, cd + 24); // central directory header: uncompressed size at 24 (APPNOTE 4.3.12)
+  return new Uint8Array(b);
 }
 
 /** Base file k with a few random bytes near its end: still a valid WAV, never a duplicate of an earlier upload. */
@@ -97,8 +130,9 @@ describe("hostile uploads", () => {
     const png = Uint8Array.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, ...new Array(40).fill(7)]);
     const mp3 = Uint8Array.from([0x49, 0x44, 0x33, 4, 0, 0, 0, 0, 0, 10, ...new Array(40).fill(9)]);
     const r = await upload([{ name: "kick.wav", data: new TextEncoder().encode("not audio at all, just words\n".repeat(10)) }, { name: "snare.wav", data: png }, { name: "tom.wav", data: mp3 }]);
-    expect(r.status).toBe(201);
-    expect((r.json.files as FileResult[]).map((f) => [f.status, f.code])).toEqual([["refused", "not-wav"], ["refused", "not-wav"], ["refused", "not-wav"]]);
+    // nothing accepted: the batch as a whole says so (422), with every file's outcome
+    expect(r.status).toBe(422);
+    expect((r.json.error.details.files as FileResult[]).map((f) => [f.status, f.code])).toEqual([["refused", "not-wav"], ["refused", "not-wav"], ["refused", "not-wav"]]);
   });
 
   it("zip entries whose paths escape the pack are refused; nothing lands outside the library's folder", async () => {
@@ -122,8 +156,9 @@ describe("hostile uploads", () => {
 
   it("a zip bomb (a 64 MB entry deflated about 1000:1) is refused and never stored; a zip inside a zip is refused, its siblings land", async () => {
     const bomb = await upload([{ name: "bomb.zip", data: zipOf([{ name: "huge.wav", data: new Uint8Array(64 * 1024 * 1024) }, { name: "fine.wav", data: fresh(3) }]) }]);
-    expect(bomb.status).toBe(201);
-    const bombFiles = bomb.json.files as FileResult[];
+    // every file refused (the pack as a whole): the batch says so, 422 with the outcomes
+    expect(bomb.status).toBe(422);
+    const bombFiles = bomb.json.error.details.files as FileResult[];
     expectOutcomes(bombFiles);
     // refused as a possible bomb (the whole pack or the entry), and the 64 MB entry is never stored
     expect(bombFiles.find((f) => f.code === "zip-ratio")?.reason).toMatch(/zip bomb/);
@@ -197,5 +232,58 @@ describe("hostile uploads", () => {
     const row = await db()("samples").where({ id: files[1]!.sampleId }).first("rel_path", "file_name");
     expect(row.rel_path).toBe(okName);
     expect(row.file_name).toBe("x.wav");
+  });
+
+  it("a part whose file name holds a raw '\"' (not allowed unescaped in a quoted-string, RFC 7578 4.2 / RFC 9110 5.6.4) gets its own outcome; the others land", async () => {
+    const { body, type } = rawMultipart([
+      { disposition: 'form-data; name="file"; filename="before-q.wav"', data: fresh(20) },
+      { disposition: 'form-data; name="file"; filename="Kit/a"b.wav"', data: fresh(21) },
+      { disposition: 'form-data; name="file"; filename="after-q.wav"', data: fresh(22) },
+    ]);
+    const r = await send(body, type);
+    expect(r.status).toBe(201);
+    const files = r.json.files as FileResult[];
+    expectOutcomes(files);
+    expect(files.map((f) => [f.name, f.status])).toEqual([["before-q.wav", "queued"], ['Kit/a"b.wav', "refused"], ["after-q.wav", "queued"]]);
+    expect(files[1]).toMatchObject({ code: "bad-name" });
+    expect(files[1]!.reason).toMatch(/file name could not be read/);
+    expect(r.json.counts).toEqual({ queued: 2, duplicate: 0, refused: 1 });
+  });
+
+  it("a zip whose end record claims more entries than its directory holds is refused in our words, not as an interrupted upload", async () => {
+    const zip = withEntryCount(zipOf([{ name: "one.wav", data: fresh(30) }, { name: "two.wav", data: fresh(31) }]), 3);
+    const r = await upload([{ name: "counted.zip", data: zip }, { name: "beside.wav", data: fresh(32) }]);
+    expect(r.status).toBe(201);
+    const files = r.json.files as FileResult[];
+    expectOutcomes(files);
+    const pack = files.find((f) => f.name.startsWith("counted.zip"))!;
+    expect(pack).toMatchObject({ status: "refused", code: "zip-damaged" });
+    expect(pack.reason).toMatch(/directory/);
+    expect(pack.reason).not.toMatch(/interrupted/);
+    expect(files.find((f) => f.name === "beside.wav")?.status).toBe("queued");
+  });
+
+  it("a zip entry larger than its directory says is refused in our words (no library message quoted)", async () => {
+    const data = fresh(33);
+    const zip = withEntrySize(zipOf([{ name: "liar.wav", data }, { name: "honest.wav", data: fresh(34) }]), data.length - 100);
+    const r = await upload([{ name: "sizes.zip", data: zip }]);
+    expect(r.status).toBe(201);
+    const files = r.json.files as FileResult[];
+    expectOutcomes(files);
+    const liar = files.find((f) => f.name.endsWith("liar.wav"))!;
+    expect(liar).toMatchObject({ status: "refused", code: "zip-damaged" });
+    expect(liar.reason).toMatch(/does not match the size its directory gives/);
+    expect(liar.reason).not.toMatch(/too many bytes|expected \d/);
+    expect(files.find((f) => f.name.endsWith("honest.wav"))?.status).toBe("queued");
+    expect(await db()("samples").where({ library_id: libraryId }).where("rel_path", "like", "%liar.wav").first()).toBeUndefined();
+  });
+
+  it("no reason quotes a library's or the database's own message: every reason is one of ours", async () => {
+    const junkZip = new Uint8Array([0x50, 0x4b, 0x03, 0x04, ...new Array(60).fill(1)]);
+    const r = await upload([{ name: "junk.zip", data: junkZip }, { name: "kept.wav", data: fresh(35) }]);
+    expect(r.status).toBe(201);
+    const junk = (r.json.files as FileResult[]).find((f) => f.name.startsWith("junk.zip"))!;
+    expect(junk).toMatchObject({ status: "refused", code: "zip-damaged" });
+    expect(junk.reason).toBe("the zip pack could not be read: its central directory is missing or damaged");
   });
 });

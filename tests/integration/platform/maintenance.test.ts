@@ -1,5 +1,6 @@
 // The worker's maintenance: old auth rows purged, upload leftovers swept after an hour, stranded queued
-// samples queued again (deterministic job ids, so nothing is doubled).
+// samples queued again (deterministic job ids, so nothing is doubled); at start, samples measured by an older
+// MEASURE_VERSION queued to be measured again, and measured again in place.
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -7,9 +8,13 @@ import crypto from "node:crypto";
 import { afterAll, describe, expect, it } from "vitest";
 import { db, closeDb } from "@/lib/server/db";
 import { purgeAuthRows } from "@/lib/server/auth/maintenance";
-import { requeueStranded } from "@/lib/server/catalogue/maintenance";
-import { sweepPartials } from "@/lib/server/storage";
+import { requeueOutdated, requeueStranded } from "@/lib/server/catalogue/maintenance";
+import { storage, sweepPartials } from "@/lib/server/storage";
 import { closeQueues, measureJobId, measureQueue } from "@/lib/server/jobs";
+import { MEASURE_VERSION } from "@/lib/audio/version";
+import { measureWav } from "@/lib/audio";
+import { measureSample } from "@/lib/server/catalogue/measure";
+import { hitWav } from "../catalogue/fixtures";
 import { makeStudioWithRoles, makeUser } from "../helpers";
 
 afterAll(async () => {
@@ -55,6 +60,63 @@ describe("maintenance", () => {
     } finally {
       await (await measureQueue().getJob(measureJobId(stranded.id)))?.remove().catch(() => undefined);
       await db()("samples").whereIn("id", [stranded.id, recent.id]).delete();
+    }
+  });
+
+  it("queues samples measured by an older MEASURE_VERSION again, once, and leaves current and queued ones alone", async () => {
+    const { studio, users } = await makeStudioWithRoles();
+    const libraryId = crypto.randomUUID();
+    await db()("libraries").insert({ id: libraryId, studio_id: studio.id, name: "Outdated" });
+    const mk = (state: string, version: number | null) => ({ id: crypto.randomUUID(), studio_id: studio.id, library_id: libraryId, rel_path: `${crypto.randomUUID()}.wav`, file_name: "x.wav", sha256: crypto.randomBytes(32).toString("hex"), size_bytes: 1, storage_key: "k", state, measure_version: version, uploaded_by: users.owner.id });
+    const old = mk("catalogued", MEASURE_VERSION - 1);
+    const oldRefused = mk("rejected", MEASURE_VERSION - 1);
+    const current = mk("catalogued", MEASURE_VERSION);
+    const queued = mk("queued", null);
+    const all = [old, oldRefused, current, queued];
+    await db()("samples").insert(all);
+    try {
+      // pages of two: the walk by id goes on past a full page
+      expect(await requeueOutdated({ pageSize: 2 })).toBeGreaterThanOrEqual(2);
+      for (const s of [old, oldRefused]) expect(await measureQueue().getJob(measureJobId(s.id))).toBeTruthy();
+      for (const s of [current, queued]) expect(await measureQueue().getJob(measureJobId(s.id))).toBeFalsy();
+      const before = await measureQueue().getJobCounts("waiting", "delayed", "active");
+      await requeueOutdated();
+      expect(await measureQueue().getJobCounts("waiting", "delayed", "active")).toEqual(before);
+    } finally {
+      for (const s of all) await (await measureQueue().getJob(measureJobId(s.id)))?.remove().catch(() => undefined);
+      await db()("samples").whereIn("id", all.map((s) => s.id)).delete();
+    }
+  });
+
+  it("measures a sample of an older version again in place: it stays catalogued meanwhile and takes the new record", async () => {
+    const { studio, users } = await makeStudioWithRoles();
+    const libraryId = crypto.randomUUID();
+    await db()("libraries").insert({ id: libraryId, studio_id: studio.id, name: "Measured again" });
+    const key = `test-remeasure/${crypto.randomUUID()}.wav`;
+    await storage().put(key, hitWav(5));
+    const id = crypto.randomUUID();
+    await db()("samples").insert({
+      id, studio_id: studio.id, library_id: libraryId, rel_path: "Kick/kick_01.wav", file_name: "kick_01.wav", sha256: crypto.randomBytes(32).toString("hex"),
+      size_bytes: 1, storage_key: key, state: "catalogued", measure_version: MEASURE_VERSION - 1, measurement: JSON.stringify({ measureVersion: MEASURE_VERSION - 1 }), uploaded_by: users.owner.id,
+    });
+    try {
+      let during = "";
+      const out = await measureSample({ sampleId: id, studioId: studio.id }, async (bytes) => {
+        during = (await db()("samples").where({ id }).first("state")).state;
+        return measureWav(bytes);
+      });
+      expect(out).toBe("catalogued");
+      expect(during).toBe("catalogued");
+      const row = await db()("samples").where({ id }).first("state", "measure_version", "measurement");
+      expect(row).toMatchObject({ state: "catalogued", measure_version: MEASURE_VERSION });
+      const m = typeof row.measurement === "string" ? JSON.parse(row.measurement) : row.measurement;
+      expect(m.measureVersion).toBe(MEASURE_VERSION);
+      expect(typeof m.tailEndDb).toBe("number"); // a field of MEASURE_VERSION 2
+      // measured at this version, it is left alone
+      expect(await measureSample({ sampleId: id, studioId: studio.id }, async () => { throw new Error("not measured again"); })).toBe("skipped");
+    } finally {
+      await db()("samples").where({ id }).delete();
+      await storage().delete(key).catch(() => undefined);
     }
   });
 

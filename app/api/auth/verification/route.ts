@@ -12,7 +12,7 @@ export const POST = route(
       await verifyEmail(body.token);
       return NextResponse.json({ verified: true });
     }
-    await resendVerification(body.email);
+    resendVerification(body.email);
     return NextResponse.json({ message: "If that address has an unconfirmed account, a new link is on its way." }, { status: 202 });
   },
 );

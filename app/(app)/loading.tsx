@@ -1,8 +1,0 @@
-export default function Loading() {
-  return (
-    <div className="animate-pulse space-y-4" aria-busy="true" aria-label="Loading">
-      <div className="h-7 w-64 rounded bg-line" />
-      <div className="h-32 rounded-lg bg-line/60" />
-    </div>
-  );
-}

@@ -1,0 +1,3 @@
+// Preloaded by scripts/serve-app.sh (node --require): the request guard of scripts/serve-guard.cjs in front of
+// the web server.
+require("./serve-guard.cjs").install();

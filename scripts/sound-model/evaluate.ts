@@ -1,0 +1,100 @@
+// Grouped cross-validation of the sound model: the recordings (groups) are dealt into folds; each fold is
+// judged by a model trained on the other folds only, so a recording and its copies (stereo halves, velocity
+// layers, transpositions, augmentations) never sit on both sides (Livshin & Rodet, ISMIR 2003: cross-validation
+// inside one collection overstates accuracy when copies leak). Pure computation over measured rows.
+
+import { createHash } from "node:crypto";
+import { calibrationTable, predictSound, trainSoundModel, type CalibrationTable, type ForestOptions } from "../../lib/catalog/sound-model";
+import type { Row } from "./dataset";
+
+export interface Prediction {
+  row: Row;
+  fold: number;
+  family: string;
+  familyShare: number;
+  articulation: string | null;
+  articulationShare: number;
+}
+
+export function foldOf(group: string, folds: number): number {
+  return createHash("sha256").update(group).digest().readUInt32LE(0) % folds;
+}
+
+/** Held-out predictions for every un-augmented row of `judged`, training on `train` rows of the other folds. */
+export function crossValidate(judged: Row[], train: Row[], opts: { folds?: number; forest?: ForestOptions; progress?: (msg: string) => void } = {}): Prediction[] {
+  const folds = opts.folds ?? 5;
+  const out: Prediction[] = [];
+  for (let k = 0; k < folds; k++) {
+    const trainRows = train.filter((r) => foldOf(r.group, folds) !== k);
+    const test = judged.filter((r) => r.augmentation === "" && foldOf(r.group, folds) === k);
+    if (!test.length) continue;
+    opts.progress?.(`fold ${k + 1}/${folds}: training on ${trainRows.length} rows, judging ${test.length}`);
+    const model = trainSoundModel(trainRows, opts.forest);
+    for (const r of test) {
+      const p = predictSound(model, r.features);
+      out.push({ row: r, fold: k, family: p.family, familyShare: p.familyShare, articulation: p.articulation, articulationShare: p.familyShare * p.articulationShare });
+    }
+  }
+  return out;
+}
+
+/** Keys whose stroke the targets judge: snare (centre, cross-stick), hi-hat (closed, pedal, open), cymbals. */
+export const ARTICULATION_KEYS = new Set([37, 38, 40, 42, 44, 46, 49, 51, 52, 53, 55, 57, 59]);
+
+export interface Report {
+  n: number;
+  familyAccuracy: number;
+  articulationN: number;
+  articulationAccuracy: number;
+  confusion: { labels: string[]; matrix: number[][] };
+  recall: { label: string; n: number; recall: number }[];
+  articulationRecall: { label: string; n: number; recall: number }[];
+  familyCalibration: CalibrationTable;
+  articulationCalibration: CalibrationTable;
+  /** of the predictions with a calibrated confidence of at least 0.9 (or raw share), how many were right */
+  wrong: Prediction[];
+}
+
+export function report(preds: Prediction[], articulationJudged: (p: Prediction) => boolean): Report {
+  const labels = [...new Set(preds.flatMap((p) => [p.row.family, p.family]))].sort();
+  const matrix = labels.map(() => labels.map(() => 0));
+  for (const p of preds) matrix[labels.indexOf(p.row.family)]![labels.indexOf(p.family)]!++;
+  const right = preds.filter((p) => p.family === p.row.family);
+  const artPreds = preds.filter((p) => p.row.articulation && articulationJudged(p));
+  const artRight = artPreds.filter((p) => p.family === p.row.family && p.articulation === p.row.articulation);
+  const recallOf = (ps: Prediction[], key: (p: Prediction) => string, ok: (p: Prediction) => boolean) =>
+    [...new Set(ps.map(key))].sort().map((label) => {
+      const mine = ps.filter((p) => key(p) === label);
+      return { label, n: mine.length, recall: mine.filter(ok).length / mine.length };
+    });
+  return {
+    n: preds.length,
+    familyAccuracy: right.length / preds.length,
+    articulationN: artPreds.length,
+    articulationAccuracy: artPreds.length ? artRight.length / artPreds.length : NaN,
+    confusion: { labels, matrix },
+    recall: recallOf(preds, (p) => p.row.family, (p) => p.family === p.row.family),
+    articulationRecall: recallOf(artPreds, (p) => `${p.row.family} ${p.row.articulation}`, (p) => p.family === p.row.family && p.articulation === p.row.articulation),
+    familyCalibration: calibrationTable(preds.map((p) => ({ share: p.familyShare, right: p.family === p.row.family }))),
+    articulationCalibration: calibrationTable(artPreds.map((p) => ({ share: p.articulationShare, right: p.family === p.row.family && p.articulation === p.row.articulation }))),
+    wrong: preds.filter((p) => p.family !== p.row.family),
+  };
+}
+
+const pct = (x: number) => `${(100 * x).toFixed(1)} %`;
+
+export function formatReport(title: string, r: Report): string {
+  const lines: string[] = [`### ${title}`, "", `Family: **${pct(r.familyAccuracy)}** of ${r.n} files. Articulation (judged keys): **${pct(r.articulationAccuracy)}** of ${r.articulationN}.`, ""];
+  lines.push("Confusion (rows: truth, columns: predicted)", "", `| truth \\ predicted | ${r.confusion.labels.join(" | ")} | recall |`, `|---|${r.confusion.labels.map(() => "---:").join("|")}|---:|`);
+  r.confusion.labels.forEach((l, i) => {
+    const rec = r.recall.find((x) => x.label === l);
+    lines.push(`| ${l} | ${r.confusion.matrix[i]!.map((v) => (v ? String(v) : "·")).join(" | ")} | ${rec ? pct(rec.recall) : ""} |`);
+  });
+  lines.push("", "Articulation recall", "", "| stroke | files | recall |", "|---|---:|---:|");
+  for (const a of r.articulationRecall) lines.push(`| ${a.label} | ${a.n} | ${pct(a.recall)} |`);
+  lines.push("", "Calibration (family): of the predictions whose vote share falls in a bin, how many were right", "", "| vote share up to | files | right |", "|---:|---:|---:|");
+  r.familyCalibration.edges.forEach((e, i) => {
+    if (r.familyCalibration.counts[i]) lines.push(`| ${e.toFixed(2)} | ${r.familyCalibration.counts[i]} | ${pct(r.familyCalibration.accuracy[i]!)} |`);
+  });
+  return lines.join("\n");
+}

@@ -1,0 +1,141 @@
+// npm run train:sound   — grouped cross-validation (for the calibration table), then the final model on all
+//                         rows, written to lib/catalog/sound-model.json with its version, data hash and command
+// npm run eval:sound    — grouped cross-validation only: accuracy, confusion, per-class recall, calibration,
+//                         cut-tail flag rate per family; printed, and written to scripts/sound-model/RESULTS.md
+// Options: --folds N (5), --trees N, --no-generator, --quick (a small subset: proves the pipeline, judges nothing)
+
+import { createHash } from "node:crypto";
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import path from "node:path";
+import { MEASURE_VERSION } from "../../lib/audio";
+import { SOUND_FEATURE_NAMES } from "../../lib/catalog/sound-features";
+import { suggestByRules } from "../../lib/catalog/classify";
+import { calibrationTable, domainOf, trainSoundModel, type ForestOptions, type SoundModel } from "../../lib/catalog/sound-model";
+import { corpusDir } from "../corpus/corpus";
+import { corpusRows, dataHash, generatorRows, type Row } from "./dataset";
+import { ARTICULATION_KEYS, crossValidate, formatReport, report, type Prediction } from "./evaluate";
+
+const ROOT = path.resolve(__dirname, "../..");
+export const MODEL_PATH = path.join(ROOT, "lib/catalog/sound-model.data.ts");
+
+/** The model as a TypeScript module holding its JSON text (a JSON import this size would slow the type checker). */
+export function writeModel(model: SoundModel, file = MODEL_PATH) {
+  const text = JSON.stringify(model);
+  writeFileSync(file, `// Made by ${String(model.meta.command ?? "npm run train:sound")}: the trained sound model (lib/catalog/sound-model.ts), version ${model.version}.\n// Do not edit by hand; train again.\nexport const SOUND_MODEL_JSON: string = ${JSON.stringify(text)};\n`);
+}
+/** The forest settings of the committed model (chosen on held-out folds, scripts/sound-model/README.md). */
+export const FOREST: ForestOptions = { trees: 60, maxDepth: 12, maxFeatures: 0.35, minPerClass: 30, seed: 7 };
+
+function log(msg: string) {
+  process.stderr.write(`[sound-model] ${msg}\n`);
+}
+
+/** Measured rows, cached under .data/corpus by what they depend on (corpus labels, measurer, features). */
+export function loadRows(opts: { generator: boolean }): { corpus: Row[]; generator: Row[] } {
+  const labels = readFileSync(path.join(corpusDir(), "labels.json"));
+  const key = createHash("sha256").update(labels).update(`${MEASURE_VERSION}|${SOUND_FEATURE_NAMES.join(",")}|${readFileSync(path.join(__dirname, "dataset.ts"))}`).digest("hex").slice(0, 16);
+  const cache = path.join(ROOT, ".data/corpus", `rows-${key}.json`);
+  if (existsSync(cache)) {
+    const c = JSON.parse(readFileSync(cache, "utf8")) as { corpus: Row[]; generator: Row[] };
+    return { corpus: c.corpus, generator: opts.generator ? c.generator : [] };
+  }
+  log("measuring the corpus (and its augmented copies) and the generator's library");
+  const corpus = corpusRows({ augment: true });
+  const generator = generatorRows([1, 2]);
+  const strip = (r: Row) => ({ ...r, measurement: { tail: r.measurement.tail, format: { durationSec: r.measurement.format.durationSec } } }) as unknown as Row;
+  mkdirSync(path.dirname(cache), { recursive: true });
+  writeFileSync(cache, JSON.stringify({ corpus: corpus.map(strip), generator: generator.map(strip) }));
+  return { corpus, generator: opts.generator ? generator : [] };
+}
+
+function arg(name: string): string | undefined {
+  const i = process.argv.indexOf(name);
+  return i >= 0 ? process.argv[i + 1] : undefined;
+}
+
+export function crossValidated(rows: { corpus: Row[]; generator: Row[] }, folds: number, forest: ForestOptions): { corpus: Prediction[]; generator: Prediction[] } {
+  const all = [...rows.corpus, ...rows.generator];
+  const t0 = Date.now();
+  const progress = (m: string) => log(`${m} (${Math.round((Date.now() - t0) / 1000)} s)`);
+  // one model per fold judges both the corpus's and the generator's held-out rows
+  const preds = crossValidate(all, all, { folds, forest, progress });
+  return { corpus: preds.filter((p) => p.row.source === "corpus"), generator: preds.filter((p) => p.row.source === "generator") };
+}
+
+/** The rules of thumb alone on the corpus (no training: nothing to hold out), the figures before the model. */
+function rulesReport(): string {
+  const preds: Prediction[] = corpusRows({ augment: false }).map((row) => {
+    const s = suggestByRules(row.measurement);
+    return { row, fold: 0, family: s.family, familyShare: s.confidence, articulation: s.articulation, articulationShare: s.confidence };
+  });
+  return formatReport("Rules of thumb alone (the sorter before the trained model)", report(preds, (p) => ARTICULATION_KEYS.has(p.row.key ?? 0)));
+}
+
+function tailRates(rows: Row[]): string {
+  const fams = [...new Set(rows.map((r) => r.family))].sort();
+  const lines = ["| family | files | flagged cut tail |", "|---|---:|---:|"];
+  for (const f of fams) {
+    const mine = rows.filter((r) => r.family === f && r.augmentation === "");
+    const cut = mine.filter((r) => r.measurement.tail === "cut").length;
+    lines.push(`| ${f} | ${mine.length} | ${cut} (${Math.round((100 * cut) / Math.max(1, mine.length))} %) |`);
+  }
+  return lines.join("\n");
+}
+
+function main() {
+  const mode = process.argv[2];
+  const quick = process.argv.includes("--quick");
+  const folds = Number(arg("--folds") ?? 5);
+  const forest = { ...FOREST, ...(arg("--trees") ? { trees: Number(arg("--trees")) } : {}), ...(quick ? { trees: 5 } : {}) };
+  let rows = loadRows({ generator: !process.argv.includes("--no-generator") });
+  if (quick) {
+    // a few recordings of each family: enough to run every step, not to judge anything
+    const keep = new Set<string>();
+    for (const r of rows.corpus) if ([...keep].filter((g) => g.startsWith(r.family + "|")).length < 3) keep.add(`${r.family}|${r.group}`);
+    rows = { corpus: rows.corpus.filter((r) => keep.has(`${r.family}|${r.group}`)), generator: rows.generator.slice(0, 40) };
+  }
+  const cv = crossValidated(rows, folds, forest);
+  const corpusReport = report(cv.corpus, (p) => ARTICULATION_KEYS.has(p.row.key ?? 0));
+  const text = [
+    `## Sound model: grouped ${folds}-fold cross-validation`,
+    "",
+    `Corpus: Debian's fluid-soundfont-gm percussion kits rendered by npm run corpus (labels: General MIDI Level 1 key map); ${rows.corpus.filter((r) => r.augmentation === "").length} files, ${new Set(rows.corpus.map((r) => r.group)).size} recordings. Sound only, names hidden; a recording and its copies never in both training and judged folds.`,
+    "",
+    formatReport("Real recordings (held-out recordings)", corpusReport),
+    "",
+    ...(cv.generator.length ? [formatReport("Our generator (held-out instruments)", report(cv.generator, (p) => domainOf(p.row.family) !== null)), ""] : []),
+    ...(process.argv.includes("--rules") ? [rulesReport(), ""] : []),
+    "### Cut-tail flags on the corpus, per family",
+    "",
+    tailRates(rows.corpus),
+    "",
+  ].join("\n");
+  console.log(text);
+  if (quick) return;
+  if (mode === "eval") {
+    writeFileSync(path.join(__dirname, "RESULTS.md"), `${text}\nMade by \`npm run eval:sound\` (${new Date().toISOString().slice(0, 10)}).\n`);
+    return;
+  }
+  // train: the final model on every row, calibrated with the held-out predictions above
+  const all = [...rows.corpus, ...rows.generator];
+  log(`training the final model on ${all.length} rows`);
+  const model: SoundModel = trainSoundModel(all, forest, {
+    version: `${new Date().toISOString().slice(0, 10)}-${dataHash(all).slice(0, 8)}`,
+    command: "npm run train:sound",
+    trainingDataSha256: dataHash(all),
+    rows: { corpus: rows.corpus.length, generator: rows.generator.length },
+    forest,
+    features: SOUND_FEATURE_NAMES,
+    heldOut: { familyAccuracy: corpusReport.familyAccuracy, articulationAccuracy: corpusReport.articulationAccuracy, folds },
+  });
+  model.version = String(model.meta.version);
+  const heldOut = [...cv.corpus, ...cv.generator];
+  model.calibration = {
+    family: calibrationTable(heldOut.map((p) => ({ share: p.familyShare, right: p.family === p.row.family }))),
+    articulation: calibrationTable(heldOut.filter((p) => p.row.articulation).map((p) => ({ share: p.articulationShare, right: p.family === p.row.family && p.articulation === p.row.articulation }))),
+  };
+  writeModel(model);
+  log(`wrote ${MODEL_PATH} (${Math.round(JSON.stringify(model).length / 1024)} KB), version ${model.version}`);
+}
+
+if (require.main === module) main();
