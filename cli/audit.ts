@@ -83,8 +83,8 @@ async function loadLayout(arg: string): Promise<Layout> {
  * sort with lib/catalog, instrument pitch included), then read it as the auditor's input with the converter the
  * server uses too (lib/audit/catalogue-input.ts).
  */
-function catalogueFolder(dir: string, warn: (s: string) => void): CatalogueInstrument[] {
-  const { catalogue, refused } = sortFolder(dir);
+async function catalogueFolder(dir: string, warn: (s: string) => void): Promise<CatalogueInstrument[]> {
+  const { catalogue, refused } = await sortFolder(dir);
   if (catalogue.samples.length === 0 && refused.length === 0) throw new UsageError(`no .wav files under ${dir}`);
   for (const r of refused) warn(`refused ${r.path}: ${r.reason}`);
   const reading = readCatalogue(catalogue);

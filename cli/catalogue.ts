@@ -3,11 +3,12 @@
 // with no server or database. One record per file, then the health findings and the refused files.
 
 import { createHash } from "node:crypto";
-import { readdirSync, readFileSync, statSync } from "node:fs";
+import { readFile, stat } from "node:fs/promises";
 import path from "node:path";
-import { tryMeasureBytes, type Measurement } from "../lib/audio";
+import type { Measurement } from "../lib/audio";
 import { catalogueSamples, type Catalogue, type CatalogueEntry, type CatalogueSampleInput } from "../lib/catalog/catalogue";
 import type { VelocityCurve } from "../lib/catalog/velocity";
+import { findWavs, inOrder, poolFor } from "./files";
 
 const USAGE = `usage: kitwright catalogue <folder> [--json | --csv] [--curve dls|dannenberg]
 
@@ -24,42 +25,43 @@ export interface Refused {
   reason: string;
 }
 
-function listWavs(root: string): string[] {
-  const out: string[] = [];
-  const walk = (dir: string) => {
-    const entries = readdirSync(dir, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name));
-    for (const e of entries) {
-      if (e.name.startsWith(".")) continue;
-      const full = path.join(dir, e.name);
-      if (e.isDirectory()) walk(full);
-      else if (e.isFile() && /\.(wav|wave|bwf)$/i.test(e.name)) out.push(full);
-    }
-  };
-  walk(root);
-  return out;
-}
-
-/** Measures and catalogues a folder. Refused files are returned with their reasons; one bad file never stops the others. */
-export function catalogueFolder(folder: string, curve?: VelocityCurve): { catalogue: Catalogue; refused: Refused[] } {
-  const files = listWavs(folder);
+/**
+ * Measures (lib/audio measureWav, on every core) and catalogues a folder. Refused files are returned with their
+ * reasons; one bad file never stops the others.
+ */
+export async function catalogueFolder(folder: string, curve?: VelocityCurve): Promise<{ catalogue: Catalogue; refused: Refused[] }> {
+  const files = await findWavs(folder);
   const inputs: CatalogueSampleInput[] = [];
   const refused: Refused[] = [];
-  for (const file of files) {
-    const rel = path.relative(folder, file).split(path.sep).join("/");
-    let bytes: Uint8Array;
+  if (files.length) {
+    const pool = poolFor(files.length);
     try {
-      bytes = readFileSync(file);
-    } catch (e) {
-      refused.push({ path: rel, code: "unreadable", reason: `could not read the file: ${(e as Error).message}` });
-      continue;
+      await inOrder(
+        files,
+        2 * pool.size,
+        async (file) => {
+          const rel = path.relative(folder, file).split(path.sep).join("/");
+          let bytes: Uint8Array;
+          try {
+            bytes = await readFile(file);
+          } catch (e) {
+            return { rel, refused: { code: "unreadable", reason: `could not read the file: ${(e as Error).message}` } };
+          }
+          const sha256 = createHash("sha256").update(bytes).digest("hex");
+          const outcome = await pool.measureWav(bytes).catch((e: Error) => ({ ok: false as const, code: "error", reason: `could not measure: ${e.message}` }));
+          return outcome.ok ? { rel, sha256, measurement: outcome.measurement } : { rel, refused: { code: outcome.code, reason: outcome.reason } };
+        },
+        (r) => {
+          if ("refused" in r && r.refused) refused.push({ path: r.rel, ...r.refused });
+          else if (r.measurement) {
+            const { metadata: _metadata, ...measurement } = r.measurement;
+            inputs.push({ id: r.rel, path: r.rel, sha256: r.sha256, measurement: measurement as Measurement });
+          }
+        },
+      );
+    } finally {
+      await pool.close();
     }
-    const outcome = tryMeasureBytes(bytes);
-    if (!outcome.ok) {
-      refused.push({ path: rel, code: outcome.code, reason: outcome.reason });
-      continue;
-    }
-    const { metadata: _metadata, ...measurement } = outcome.measurement;
-    inputs.push({ id: rel, path: rel, sha256: createHash("sha256").update(bytes).digest("hex"), measurement: measurement as Measurement });
   }
   return { catalogue: catalogueSamples(inputs, { curve }), refused };
 }
@@ -161,7 +163,7 @@ export async function run(args: string[]): Promise<number> {
   const folder = path.resolve(positional[0]!);
   let st;
   try {
-    st = statSync(folder);
+    st = await stat(folder);
   } catch {
     process.stderr.write(`kitwright catalogue: no such folder: ${positional[0]}\n`);
     return 1;
@@ -170,7 +172,7 @@ export async function run(args: string[]): Promise<number> {
     process.stderr.write(`kitwright catalogue: not a folder: ${positional[0]}\n`);
     return 1;
   }
-  const { catalogue, refused } = catalogueFolder(folder, curve);
+  const { catalogue, refused } = await catalogueFolder(folder, curve);
   if (format === "json") process.stdout.write(JSON.stringify({ folder: positional[0], ...catalogue, refused }, null, 2) + "\n");
   else if (format === "csv") process.stdout.write(toCsv(catalogue, refused));
   else process.stdout.write(toText(catalogue, refused, positional[0]!));

@@ -4,10 +4,11 @@
 // compared with our own header reading (mismatches become warnings): music-metadata is asynchronous and heavy,
 // so it lives here, in the checking tool, and not in lib/audio's measuring path used by the workers.
 // --verify also compares every sample with wavefile's reader. --fast skips both cross-checks.
-import { readdir, readFile, stat } from "node:fs/promises";
-import path from "node:path";
-import { decodeWav, measure, isWavRefusal, type MeasuredFile } from "../lib/audio/index";
-import { crossCheckWithWavefile } from "../lib/audio/wavefile-check";
+// Files are measured by lib/audio's measureWav on every core (cli/files.ts), and printed in order.
+import { readFile } from "node:fs/promises";
+import type { MeasuredFile } from "../lib/audio/index";
+import type { MeasurePool } from "../lib/audio-pool/pool";
+import { findWavs, inOrder, poolFor } from "./files";
 
 const USAGE = `usage: kitwright measure <files or folders> [--json | --csv] [--verify] [--fast] [--max-seconds N]
   Folders are searched recursively for .wav files. Exit code 1 if any file was refused.
@@ -45,36 +46,20 @@ export async function probeWithMusicMetadata(bytes: Uint8Array, ours: MeasuredFi
   return out;
 }
 
-async function collect(target: string, out: string[], explicit: boolean): Promise<void> {
-  const st = await stat(target);
-  if (st.isDirectory()) {
-    const entries = (await readdir(target, { withFileTypes: true })).sort((a, b) => a.name.localeCompare(b.name));
-    for (const e of entries) {
-      if (e.name.startsWith(".")) continue;
-      const p = path.join(target, e.name);
-      if (e.isDirectory()) await collect(p, out, false);
-      else if (/\.wave?$/i.test(e.name)) out.push(p);
-    }
-  } else if (explicit || /\.wave?$/i.test(target)) out.push(target);
-}
-
-export async function measureFile(file: string, opts: { maxSeconds?: number; verify?: boolean; fast?: boolean }): Promise<FileRecord> {
+/** Reads and measures one file (its bytes go to a measuring thread); never throws. */
+export async function measureFile(file: string, pool: MeasurePool, opts: { maxSeconds?: number; verify?: boolean; fast?: boolean }): Promise<FileRecord> {
   let bytes: Uint8Array;
   try {
     bytes = new Uint8Array(await readFile(file));
   } catch (e) {
     return { file, status: "refused", code: "unreadable", reason: `cannot read the file: ${(e as Error).message}` };
   }
-  try {
-    const decoded = decodeWav(bytes, { maxSeconds: opts.maxSeconds });
-    const measurement: MeasuredFile = { ...measure(decoded), metadata: decoded.metadata };
-    if (opts.verify) measurement.warnings.push(...crossCheckWithWavefile(bytes, decoded));
-    if (!opts.fast) measurement.warnings.push(...(await probeWithMusicMetadata(bytes, measurement)));
-    return { file, status: "measured", measurement };
-  } catch (e) {
-    if (isWavRefusal(e)) return { file, status: "refused", code: e.code, reason: e.message };
-    return { file, status: "refused", code: "error", reason: `could not measure: ${(e as Error).message}` };
-  }
+  // the thread takes the bytes it is given: keep a copy for music-metadata's reading
+  const r = await pool.measureWav(opts.fast ? bytes : bytes.slice(), { maxSeconds: opts.maxSeconds, crossCheck: opts.verify }).catch((e: Error) => ({ ok: false as const, code: "error", reason: `could not measure: ${e.message}` }));
+  if (!r.ok) return { file, status: "refused", code: r.code, reason: r.reason };
+  const measurement = r.measurement;
+  if (!opts.fast) measurement.warnings.push(...(await probeWithMusicMetadata(bytes, measurement)));
+  return { file, status: "measured", measurement };
 }
 
 const num = (v: number | null | undefined, digits = 2) => (v === null || v === undefined ? "" : Number.isInteger(v) ? String(v) : v.toFixed(digits));
@@ -135,16 +120,22 @@ export async function run(args: string[]): Promise<number> {
   const files: string[] = [];
   const missing: FileRecord[] = [];
   for (const t of targets) {
-    try { await collect(t, files, true); } catch (e) { missing.push({ file: t, status: "refused", code: "unreadable", reason: (e as NodeJS.ErrnoException).code === "ENOENT" ? "no such file or folder" : (e as Error).message }); }
+    try { await findWavs(t, files); } catch (e) { missing.push({ file: t, status: "refused", code: "unreadable", reason: (e as NodeJS.ErrnoException).code === "ENOENT" ? "no such file or folder" : (e as Error).message }); }
   }
   const records: FileRecord[] = [...missing];
-  if (mode === "csv") process.stdout.write(CSV_COLUMNS.join(",") + "\n");
-  for (const r of missing) if (mode === "csv") process.stdout.write(csvRow(r) + "\n"); else if (mode === "text") process.stdout.write(textLine(r) + "\n");
-  for (const f of files) {
-    const r = await measureFile(f, { maxSeconds, verify, fast });
-    records.push(r);
+  const print = (r: FileRecord) => {
     if (mode === "csv") process.stdout.write(csvRow(r) + "\n");
     else if (mode === "text") process.stdout.write(textLine(r) + "\n");
+  };
+  if (mode === "csv") process.stdout.write(CSV_COLUMNS.join(",") + "\n");
+  for (const r of missing) print(r);
+  if (files.length) {
+    const pool = poolFor(files.length);
+    try {
+      records.push(...(await inOrder(files, 2 * pool.size, (f) => measureFile(f, pool, { maxSeconds, verify, fast }), print)));
+    } finally {
+      await pool.close();
+    }
   }
   if (mode === "json") process.stdout.write(JSON.stringify(records, null, 2) + "\n");
   const refused = records.filter((r) => r.status === "refused").length;

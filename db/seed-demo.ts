@@ -1,32 +1,34 @@
 // The demo scenario: Harbour Lane Studio, an invented recording room, with an owner, an editor and a
-// viewer. Idempotent: running it again leaves existing data alone. `node --import tsx db/seed-demo.ts`.
-import knexFactory from "knex";
-import config from "../knexfile";
-import { addMember, createStudio, createUser } from "./factories";
+// viewer. Idempotent: running it again leaves existing data alone.
+//   node --conditions=react-server --import tsx db/seed-demo.ts
+// The studio is made by the app's own service (lib/server/studios.ts: row, owner and activity in one
+// transaction); accounts and the two other memberships by the factories shared with the tests (verified
+// accounts with known passwords, members added without an invitation mail).
+import { db, closeDb } from "../lib/server/db";
+import { createStudio } from "../lib/server/studios";
+import { findUserByEmail } from "../lib/server/auth/accounts";
+import { addMember, createUser } from "./factories";
 import { DEMO_ACCOUNTS, DEMO_STUDIO } from "./demo-accounts";
+import { findDemoStudio } from "./demo-studio";
 
 async function main() {
-  const k = knexFactory(config);
-  try {
-    const existing = await k("studios").where({ name: DEMO_STUDIO }).first();
-    if (existing) {
-      process.stdout.write(`demo seed: "${DEMO_STUDIO}" already there, left as it is\n`);
-      return;
-    }
-    const users = [];
-    for (const a of DEMO_ACCOUNTS) {
-      const u = (await k("users").where({ email: a.email }).first()) ?? (await createUser(k, { email: a.email, name: a.name, password: a.password }));
-      users.push({ ...a, id: u.id as string });
-    }
-    const studio = await createStudio(k, { name: DEMO_STUDIO, ownerId: users[0].id });
-    for (const u of users.slice(1)) await addMember(k, { studioId: studio.id, userId: u.id, role: u.role });
-    process.stdout.write(`demo seed: created "${DEMO_STUDIO}" with ${users.length} members\n`);
-  } finally {
-    await k.destroy();
+  if (await findDemoStudio()) {
+    process.stdout.write(`demo seed: "${DEMO_STUDIO}" already there, left as it is\n`);
+    return;
   }
+  const users = [];
+  for (const a of DEMO_ACCOUNTS) {
+    const u = (await findUserByEmail(a.email)) ?? (await createUser(db(), { email: a.email, name: a.name, password: a.password }));
+    users.push({ ...a, id: u.id });
+  }
+  const studio = await createStudio({ userId: users[0].id, name: DEMO_STUDIO });
+  for (const u of users.slice(1)) await addMember(db(), { studioId: studio.id, userId: u.id, role: u.role });
+  process.stdout.write(`demo seed: created "${DEMO_STUDIO}" with ${users.length} members\n`);
 }
 
-main().catch((e) => {
-  process.stderr.write(`demo seed failed: ${e instanceof Error ? e.message : String(e)}\n`);
-  process.exit(1);
-});
+main()
+  .catch((e) => {
+    process.stderr.write(`demo seed failed: ${e instanceof Error ? e.message : String(e)}\n`);
+    process.exitCode = 1;
+  })
+  .finally(() => closeDb());

@@ -15,7 +15,7 @@ cd "$KW_ROOT"
 kw_start_services
 create_database "$KW_RUN" "$KW_DB_NAME"
 node --import tsx db/migrate.ts
-node --import tsx db/seed-demo.ts
+node --conditions=react-server --import tsx db/seed-demo.ts
 if [ "$BUILD" = 1 ] || [ ! -f .next/BUILD_ID ]; then log "building the app"; npx next build >"$KW_RUN/build.log" 2>&1 || { tail -30 "$KW_RUN/build.log"; exit 1; }; fi
 
 stop_pidfile "$KW_RUN/app.pid"; stop_pidfile "$KW_RUN/worker.pid"

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { computePeaks, decodeWav, encodeWav, measure, measureBytes, tryMeasureBytes, MEASURE_VERSION, SILENCE_DB } from "./index";
+import { computePeaks, decodeWav, encodeWav, measure, measureBytes, MEASURE_VERSION, SILENCE_DB } from "./index";
 import { hit, sine } from "./signals";
 
 const fs = 48000;
@@ -67,12 +67,6 @@ describe("measure(): the whole record on generated one-shots", () => {
     const s = measureBytes(encodeWav([x], { sampleRate: fs, bits: 16 }));
     expect(s.clippedRuns).toBeGreaterThan(30);
     expect(s.warnings.join()).toMatch(/clipped/);
-  });
-  it("a truncated file is measured and flagged; a refused one comes back with its code", () => {
-    const t = tryMeasureBytes(bytes.subarray(0, bytes.length - 3000));
-    expect(t.ok && t.measurement.truncated).toBe(true);
-    const r = tryMeasureBytes(new Uint8Array([1, 2, 3]));
-    expect(r).toMatchObject({ ok: false, code: "not-riff" });
   });
   it("measure() on decoded 44.1 kHz 16-bit mono works the same way", () => {
     const d = decodeWav(encodeWav([hit(44100, 0.8, { f: 200, tau: 0.05, leadSec: 0.005 })], { sampleRate: 44100, bits: 16 }));

@@ -13,7 +13,6 @@ import { loudness } from "./loudness";
 import { onsetIndex, attackMs } from "./onset";
 import { analyseDecay } from "./decay";
 import { analyzerFor, frameSizeFor, lowPeakHz, summarize, MFCC_COUNT, BARK_BANDS, type FrameFeatures } from "./spectral";
-import { isWavRefusal, type WavRefusalCode } from "./refusal";
 
 export const STRIKE_SEC = 0.08;
 export const MAX_BODY_FRAMES = 8;
@@ -122,21 +121,8 @@ export function measure(decoded: DecodedWav): Measurement {
 
 export type MeasuredFile = Measurement & { metadata: WavMetadata };
 
+/** Decode and measure, throwing the WavRefusal (tests and tools that want the record alone; the pipeline calls measureWav). */
 export function measureBytes(bytes: Uint8Array, opts?: DecodeOptions): MeasuredFile {
   const decoded = decodeWav(bytes, opts);
   return { ...measure(decoded), metadata: decoded.metadata };
-}
-
-export type MeasureOutcome =
-  | { ok: true; measurement: MeasuredFile }
-  | { ok: false; code: WavRefusalCode | "error"; reason: string };
-
-/** measureBytes that never throws: refusals come back with their code and message. */
-export function tryMeasureBytes(bytes: Uint8Array, opts?: DecodeOptions): MeasureOutcome {
-  try {
-    return { ok: true, measurement: measureBytes(bytes, opts) };
-  } catch (e) {
-    if (isWavRefusal(e)) return { ok: false, code: e.code, reason: e.message };
-    return { ok: false, code: "error", reason: `could not measure: ${(e as Error)?.message ?? String(e)}` };
-  }
 }

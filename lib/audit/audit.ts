@@ -1,7 +1,7 @@
 // The coverage audit: what every pad (and every hi-hat pedal zone) of a layout will really play with a kit.
 // Pure: layout + kit + catalogue in, findings out. See SCHEMA.md for the meaning of every field.
 
-import { resolveArticulation } from "../catalog/fallback";
+import { resolveArticulation } from "./fallback";
 import type {
   Articulation,
   AuditResult,

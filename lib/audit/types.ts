@@ -2,7 +2,7 @@
 // Plain objects only; the JSON schemas in schema.ts describe the same shapes for import/export.
 
 import type { Articulation, Family } from "../catalog/taxonomy";
-import type { StandInOverrides } from "../catalog/fallback";
+import type { StandInOverrides } from "./fallback";
 
 export type { Articulation, Family, StandInOverrides };
 

@@ -6,7 +6,7 @@ import crypto from "node:crypto";
 import { describe, expect, it } from "vitest";
 import { DEMO_FAULTS, demoScenario } from "../synth/scenario";
 import { renderScenarioFile } from "../synth/render";
-import { tryMeasureBytes } from "../audio";
+import { measureWav } from "../audio";
 import { catalogueSamples, type CatalogueSampleInput } from "./catalogue";
 import type { HealthCode } from "./health";
 
@@ -27,7 +27,7 @@ describe("the demo library's planted faults", () => {
     const samples: CatalogueSampleInput[] = [];
     for (const f of files) {
       const bytes = renderScenarioFile(f);
-      const r = tryMeasureBytes(bytes);
+      const r = measureWav(bytes);
       if (!r.ok) throw new Error(`${f.path}: ${r.reason}`);
       samples.push({ id: f.path, path: f.path, sha256: crypto.createHash("sha256").update(bytes).digest("hex"), measurement: r.measurement });
     }
@@ -53,7 +53,7 @@ describe("the demo library's planted faults", () => {
     expect(files.length).toBeGreaterThan(40);
     const cut: string[] = [];
     for (const f of files) {
-      const r = tryMeasureBytes(renderScenarioFile(f));
+      const r = measureWav(renderScenarioFile(f));
       if (!r.ok) throw new Error(`${f.path}: ${r.reason}`);
       if (r.measurement.tail === "cut") cut.push(f.path);
     }

@@ -45,7 +45,7 @@ function safeKey(key: string): string {
 
 export class LocalStorage implements Storage {
   readonly kind = "local";
-  constructor(private readonly root: string) {}
+  constructor(readonly root: string) {}
   private file(key: string): string {
     return path.join(this.root, ...safeKey(key).split("/"));
   }
@@ -58,7 +58,7 @@ export class LocalStorage implements Storage {
   async put(key: string, body: Readable | Uint8Array): Promise<{ bytes: number }> {
     const target = this.file(key);
     await fsp.mkdir(path.dirname(target), { recursive: true });
-    const tmp = `${target}.part-${crypto.randomBytes(6).toString("hex")}`;
+    const tmp = `${target}.part-${crypto.randomBytes(6).toString("hex")}`; // PART_FILE below
     let bytes = 0;
     const src = body instanceof Uint8Array ? Readable.from([Buffer.from(body.buffer, body.byteOffset, body.byteLength)]) : body;
     src.on("data", (c: Buffer) => (bytes += c.length));
@@ -188,6 +188,46 @@ export class S3Storage implements Storage {
     } while (token);
     return n;
   }
+}
+
+/** Partial files of local writes in progress (`put` above): `<key>.part-<12 hex>`. */
+const PART_FILE = /\.part-[0-9a-f]{12}$/;
+/** Where an uploaded .zip pack is spooled while it is read (lib/server/catalogue/upload.ts). */
+const ZIP_SPOOL = /^kw-zip-[0-9a-f]{16}\.zip$/;
+export function zipSpoolPath(tmpDir = os.tmpdir()): string {
+  return path.join(tmpDir, `kw-zip-${crypto.randomBytes(8).toString("hex")}.zip`);
+}
+
+async function* walkFiles(dir: string): AsyncGenerator<string> {
+  let entries: fs.Dirent[];
+  try {
+    entries = await fsp.readdir(dir, { withFileTypes: true });
+  } catch {
+    return;
+  }
+  for (const e of entries) {
+    const p = path.join(dir, e.name);
+    if (e.isDirectory()) yield* walkFiles(p);
+    else if (e.isFile()) yield p;
+  }
+}
+
+/**
+ * Deletes upload leftovers older than `olderThanMs` (default an hour; a live upload writes to its file
+ * continuously): partial files under the local storage root (`storageRoot`, by default the configured local
+ * storage's, none with S3) and .zip spools in the temp folder. Returns how many. Run by the worker's
+ * maintenance schedule (workers/maintenance.ts).
+ */
+export async function sweepPartials({ storageRoot, tmpDir = os.tmpdir(), olderThanMs = 3600_000, now = Date.now() }: { storageRoot?: string | null; tmpDir?: string; olderThanMs?: number; now?: number } = {}): Promise<number> {
+  const root = storageRoot === undefined ? (storage() instanceof LocalStorage ? (storage() as LocalStorage).root : null) : storageRoot;
+  let n = 0;
+  const sweep = async (file: string) => {
+    const st = await fsp.stat(file).catch(() => null);
+    if (st && now - st.mtimeMs > olderThanMs && (await fsp.rm(file, { force: true }).then(() => true, () => false))) n++;
+  };
+  if (root) for await (const f of walkFiles(root)) if (PART_FILE.test(f)) await sweep(f);
+  for (const name of await fsp.readdir(tmpDir).catch(() => [] as string[])) if (ZIP_SPOOL.test(name)) await sweep(path.join(tmpDir, name));
+  return n;
 }
 
 let cached: Storage | undefined;

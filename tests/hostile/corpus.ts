@@ -1,7 +1,7 @@
-// Runs the hostile corpus (tests/hostile/mutate.ts) through the decoder and measurement (`tryMeasureBytes`
+// Runs the hostile corpus (tests/hostile/mutate.ts) through the decoder and measurement (`measureWav`
 // from lib/audio) and sums up what happened: every file must end measured, or refused with a code and a
 // message; nothing may throw, and each file's time is recorded (the worst one is reported).
-import { tryMeasureBytes } from "../../lib/audio/index";
+import { measureWav } from "../../lib/audio/index";
 import { bases, mutant, type Mutant, type MutationKind } from "./mutate";
 
 export interface CorpusProblem {
@@ -35,15 +35,15 @@ function jsonSafe(x: unknown): boolean {
 
 export function checkOne(m: Mutant): { outcome: "measured" | "refused"; code?: string; ms: number; problem?: string } {
   const t0 = performance.now();
-  let out: ReturnType<typeof tryMeasureBytes>;
+  let out: ReturnType<typeof measureWav>;
   try {
-    out = tryMeasureBytes(m.bytes);
+    out = measureWav(m.bytes);
   } catch (e) {
-    return { outcome: "refused", code: "threw", ms: performance.now() - t0, problem: `tryMeasureBytes threw: ${(e as Error)?.message}` };
+    return { outcome: "refused", code: "threw", ms: performance.now() - t0, problem: `measureWav threw: ${(e as Error)?.message}` };
   }
   const ms = performance.now() - t0;
   if (out.ok) {
-    if (!jsonSafe(out.measurement)) return { outcome: "measured", ms, problem: "measurement is not plain JSON (NaN or Infinity inside)" };
+    if (!jsonSafe(out.measurement) || !jsonSafe(out.peaks)) return { outcome: "measured", ms, problem: "measurement or peaks not plain JSON (NaN or Infinity inside)" };
     return { outcome: "measured", ms };
   }
   if (out.code === "error") return { outcome: "refused", code: out.code, ms, problem: `unexpected error instead of a refusal: ${out.reason}` };

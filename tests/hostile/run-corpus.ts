@@ -4,7 +4,7 @@
 // measurement that is not plain JSON, an undamaged file refused). Exit code 1 when a problem was found.
 // --index N replays one file and prints its outcome (for debugging a reported index).
 import os from "node:os";
-import { tryMeasureBytes } from "../../lib/audio/index";
+import { measureWav } from "../../lib/audio/index";
 import { mutant } from "./mutate";
 import { runCorpus } from "./corpus";
 
@@ -18,7 +18,7 @@ const one = arg("--index", -1);
 
 if (one >= 0) {
   const m = mutant(one, seed);
-  const r = tryMeasureBytes(m.bytes);
+  const r = measureWav(m.bytes);
   console.log(m.name, m.bytes.length, "bytes", r.ok ? "measured" : `refused ${r.code}: ${r.reason}`);
   process.exit(0);
 }

@@ -2,7 +2,7 @@
 //   bash scripts/with-test-env.sh node --conditions=react-server --import tsx tests/hostile/upload-corpus.ts --count 10000
 // Sends the seeded corpus (tests/hostile/mutate.ts) in batches of 500 files to the real upload route handler
 // (in-process, signed-in editor), then measures every queued sample exactly as the worker does (measureSample +
-// measureFile, inline) and checks: no 5xx, one outcome per file, every stored sample catalogued or rejected with
+// measureWav, inline) and checks: no 5xx, one outcome per file, every stored sample catalogued or rejected with
 // a reason, one stored file per row. Prints counts and the worst times; exit code 1 on any problem.
 import crypto from "node:crypto";
 import fs from "node:fs";
@@ -14,8 +14,8 @@ import { env } from "@/lib/server/env";
 import { createSessionCookie, createStudio, createUser } from "@/db/factories";
 import { createLibrary } from "@/lib/server/catalogue/libraries";
 import { measureSample } from "@/lib/server/catalogue/measure";
-import { closeQueues } from "@/workers/jobs";
-import { measureFile } from "@/workers/measure-core";
+import { closeQueues } from "@/lib/server/jobs";
+import { measureWav } from "@/lib/audio";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
 import { bases, mutant } from "./mutate";
 
@@ -71,7 +71,7 @@ async function main() {
   }
   for (const id of queued) {
     const m0 = performance.now();
-    await measureSample({ sampleId: id, studioId: studio.id }, async (bytes) => measureFile(bytes));
+    await measureSample({ sampleId: id, studioId: studio.id }, async (bytes) => measureWav(bytes));
     worstMeasureMs = Math.max(worstMeasureMs, performance.now() - m0);
   }
   const rows = await db()("samples").where({ library_id: lib.id }).select("id", "state", "reject_code", "reject_reason", "rel_path");

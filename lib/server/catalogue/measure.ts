@@ -1,19 +1,17 @@
 import "server-only";
-// The measure job's data side: read the stored WAV, measure it (lib/audio, through the worker's pool), store
+// The measure job's data side: read the stored WAV, measure it (lib/audio measureWav, on the worker's pool), store
 // the measurement, peaks and the copied-out columns, and mark the sample catalogued (or rejected with the
 // refusal's code and reason). Idempotent: a sample already measured at this MEASURE_VERSION is left alone; one
-// measured by an older version is measured again (the worker queues those at start: workers/maintenance.ts).
+// measured by an older version is measured again (queued at worker start: maintenance.ts requeueOutdated).
 import { MEASURE_VERSION } from "@/lib/audio/version";
 import { decaySec } from "@/lib/catalog/features";
-import type { Measurement } from "@/lib/audio";
+import type { MeasureOutcome } from "@/lib/audio";
 import { db } from "../db";
 import { storage } from "../storage";
 import { enqueueRegroup } from "./queue";
 
-export type MeasureFn = (bytes: Uint8Array) => Promise<
-  | { ok: true; measurement: Measurement; peaks: { min: number[]; max: number[] } }
-  | { ok: false; code: string; reason: string; final: boolean }
->;
+/** lib/audio's measureWav, run where the caller chooses (the worker: its thread pool; tests: inline). */
+export type MeasureFn = (bytes: Uint8Array) => Promise<MeasureOutcome>;
 
 const fin = (x: number | null | undefined) => (x === null || x === undefined || !Number.isFinite(x) ? null : x);
 

@@ -1,6 +1,6 @@
 import "server-only";
-// Producers for the measure and regroup queues (the worker consumes them: workers/main.ts).
-import { MEASURE_JOB_OPTS, JOBS, measureJobId, measureQueue, regroupJob, regroupQueue, regroupWindowMs, type MeasureJobData, type RegroupJobData } from "@/workers/jobs";
+// Producers for the measure and regroup queues (lib/server/jobs.ts; the worker consumes them: workers/main.ts).
+import { MEASURE_JOB_OPTS, JOBS, measureJobId, measureQueue, regroupJob, regroupQueue, regroupWindowMs, type MeasureJobData, type RegroupJobData } from "../jobs";
 
 /** Enqueues measuring of samples; idempotent (one job per sample id and measuring version). */
 export async function enqueueMeasure(items: MeasureJobData[]): Promise<void> {
@@ -18,7 +18,7 @@ export function noteRegroupDuration(libraryId: string, ms: number): void {
 
 /**
  * Asks for a regroup of a library; requests within one window share one job. The window grows with the cost
- * of the library's last regroup (workers/jobs.ts regroupWindowMs); elsewhere (a person's relabel) it is short.
+ * of the library's last regroup (lib/server/jobs.ts regroupWindowMs); elsewhere (a person's relabel) it is short.
  */
 export async function enqueueRegroup(data: RegroupJobData): Promise<void> {
   const { jobId, delay } = regroupJob(data.libraryId, Date.now(), regroupWindowMs(regroupCost.get(data.libraryId)));

@@ -8,6 +8,7 @@ import type { Measurement } from "@/lib/audio";
 import { DLS, type VelocityCurve } from "@/lib/catalog/velocity";
 import { db } from "../db";
 import { newId } from "../ids";
+import { noteRegroupDuration } from "./queue";
 
 const parse = <T,>(v: unknown): T => (typeof v === "string" ? JSON.parse(v) : v) as T;
 const isMic = (s: unknown): s is MicPosition => typeof s === "string" && (MIC_POSITIONS as readonly string[]).includes(s);
@@ -85,4 +86,15 @@ export async function regroupLibrary({ studioId, libraryId }: { studioId: string
     await trx("library_health").insert(health).onConflict("library_id").merge(["findings", "curve", "sample_count", "computed_at"]);
     return { samples: inputs.length, instruments: cat.instruments.length, groups: cat.groups.length, findings: cat.health.length };
   });
+}
+
+/**
+ * The regroup job (workers/main.ts): regroups the library and notes how long it took, which sets the window its
+ * next regroup requests share (lib/server/jobs.ts regroupWindowMs).
+ */
+export async function runRegroupJob(data: { studioId: string; libraryId: string }): Promise<RegroupOutcome | null> {
+  const t0 = performance.now();
+  const out = await regroupLibrary(data);
+  noteRegroupDuration(data.libraryId, performance.now() - t0);
+  return out;
 }

@@ -14,39 +14,9 @@ const ID_LIST_MAX = 5000;
 /** A page walk may read three times the rows it should need (evenly spread matches), at least this many. */
 const WALK_ROWS_MIN = 500;
 import type { SampleSort, SamplesQuery } from "@/lib/validation/library";
+import type { SampleRow } from "@/lib/types/catalogue";
 
-export interface SampleRow {
-  id: string;
-  path: string;
-  fileName: string;
-  state: "queued" | "measuring" | "catalogued" | "rejected";
-  rejectCode: string | null;
-  rejectReason: string | null;
-  family: string | null;
-  familySource: string | null;
-  articulation: string | null;
-  articulationSource: string | null;
-  confidence: number | null;
-  mic: string | null;
-  instrumentKey: string | null;
-  instrumentName: string | null;
-  layerIndex: number | null;
-  layerCount: number | null;
-  roundRobin: number | null;
-  velocityLow: number | null;
-  velocityHigh: number | null;
-  strikeLufs: number | null;
-  truePeakDbtp: number | null;
-  durationSec: number | null;
-  sampleRate: number | null;
-  bits: number | null;
-  channels: number | null;
-  centroidHz: number | null;
-  decaySec: number | null;
-  conflict: string | null;
-  confirmed: boolean;
-  sizeBytes: number;
-}
+export type { SampleRow };
 
 const SORT_COLUMN: Record<SampleSort, string> = {
   name: "s.file_name",

@@ -19,7 +19,7 @@ import { AppError } from "../errors";
 import { mediaType } from "../media-type";
 import { logActivity } from "../activity";
 import { newId } from "../ids";
-import { storage } from "../storage";
+import { storage, zipSpoolPath } from "../storage";
 import { assertLibrary, sampleKey } from "./libraries";
 import { enqueueMeasure } from "./queue";
 import { deleteWordsOfSamples, insertSamplesWithWords } from "./words";
@@ -537,7 +537,7 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
       return;
     }
     if (/\.zip$/i.test(rel)) {
-      const tmp = path.join(os.tmpdir(), `kw-zip-${crypto.randomBytes(8).toString("hex")}.zip`);
+      const tmp = zipSpoolPath();
       tmpFiles.push(tmp);
       const inspect = new Inspect("zip", maxBatch, ctx.addBytes);
       ctx.active.add(inspect);

@@ -7,6 +7,9 @@ import { AppError, notFound } from "../errors";
 import { assertLibrary } from "./libraries";
 import { enqueueRegroup } from "./queue";
 import type { HealthFinding, Layer } from "@/lib/catalog";
+import type { FeaturePoint, LadderGroup } from "@/lib/types/catalogue";
+
+export type { FeaturePoint, LadderGroup };
 
 const parse = <T,>(v: unknown): T => (typeof v === "string" ? JSON.parse(v) : v) as T;
 
@@ -70,17 +73,6 @@ export async function libraryHealth({ studioId, libraryId }: { studioId: string;
   };
 }
 
-export interface LadderGroup {
-  key: string;
-  label: string;
-  instrumentKey: string;
-  articulation: string;
-  mic: string | null;
-  countFrom: string;
-  criterion: string | null;
-  layers: { index: number; velocityLow: number; velocityHigh: number; meanStrikeLufs: number; spreadDb: number; members: { id: string; strikeLufs: number | null; roundRobin: number }[] }[];
-}
-export interface FeaturePoint { id: string; path: string; family: string | null; articulation: string | null; centroidHz: number; decaySec: number; strikeLufs: number | null; conflict: string | null; instrumentKey: string | null }
 
 export async function libraryPlots({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<{ groups: LadderGroup[]; points: FeaturePoint[] }> {
   await assertLibrary({ studioId, libraryId });

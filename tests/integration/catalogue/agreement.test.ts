@@ -12,7 +12,7 @@ import { promisify } from "node:util";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { call, makeStudioWithRoles, uniq } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
-import { closeQueues } from "@/workers/jobs";
+import { closeQueues } from "@/lib/server/jobs";
 import { auditToJson } from "@/lib/audit/export";
 import { kitToFile } from "@/lib/audit/schema";
 import type { AuditResult, Kit } from "@/lib/audit/types";

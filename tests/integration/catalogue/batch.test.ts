@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { ChildProcess } from "node:child_process";
 import { call, makeStudioWithRoles, uniq } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
-import { closeQueues } from "@/workers/jobs";
+import { closeQueues } from "@/lib/server/jobs";
 import { storage } from "@/lib/server/storage";
 import { badHeaderWav, hitWav, multipart, notWav, rf64, startWorker, stateCounts, waitFor, waitForReady } from "./fixtures";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";

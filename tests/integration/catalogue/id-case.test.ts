@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { call, makeStudioWithRoles, uniq } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
 import { countsFor } from "@/lib/server/catalogue/libraries";
-import { closeQueues } from "@/workers/jobs";
+import { closeQueues } from "@/lib/server/jobs";
 import { up as lowerCaseIds } from "@/db/migrations/20261201_0011_ids_lower_case";
 import { hitWav, multipart } from "./fixtures";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";

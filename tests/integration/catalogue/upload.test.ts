@@ -14,10 +14,10 @@ import { NextRequest } from "next/server";
 import { call, makeStudioWithRoles, sessionCookie, uniq } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
 import { env } from "@/lib/server/env";
-import { closeQueues, measureJobId, measureQueue } from "@/workers/jobs";
+import { closeQueues, measureJobId, measureQueue } from "@/lib/server/jobs";
 import { measureSample } from "@/lib/server/catalogue/measure";
 import { regroupLibrary } from "@/lib/server/catalogue/regroup";
-import { measureFile } from "@/workers/measure-core";
+import { measureWav } from "@/lib/audio";
 import { badHeaderWav, hitWav, multipart, notWav, rf64, zipOf } from "./fixtures";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";
 import * as libRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/route";
@@ -52,7 +52,7 @@ async function uploadStream(stream: ReadableStream<Uint8Array>, type: string) {
 
 async function measureAll(lib: string) {
   const rows = await db()("samples").where({ library_id: lib, state: "queued" }).select("id", "studio_id");
-  for (const r of rows) await measureSample({ sampleId: r.id, studioId: r.studio_id }, async (b) => measureFile(b));
+  for (const r of rows) await measureSample({ sampleId: r.id, studioId: r.studio_id }, async (b) => measureWav(b));
   await regroupLibrary({ studioId: ctx.studio.id, libraryId: lib });
 }
 

@@ -11,7 +11,7 @@ import type { ChildProcess } from "node:child_process";
 import knexFactory, { type Knex } from "knex";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createSessionCookie, createStudio, createUser } from "@/db/factories";
-import { measureJobId } from "@/workers/jobs";
+import { measureJobId } from "@/lib/server/jobs";
 import { uniq } from "../helpers";
 import { bases } from "@/tests/hostile/mutate";
 import { faultEnv, migrate, redisCli, startDb, startRedis, startServer, stopDb, stopRedis, teardown, type FaultEnv } from "@/tests/faults/services";

@@ -1,10 +1,10 @@
 // Hostile input through the decoder: 2,000 files of the seeded corpus (tests/hostile/mutate.ts) go through
-// tryMeasureBytes (lib/audio). Each must end measured (plain-JSON numbers) or refused with a stable code and
+// measureWav (lib/audio). Each must end measured (plain-JSON numbers) or refused with a stable code and
 // a human reason; nothing throws, nothing hangs (the per-file time is logged, not asserted: shared machine).
 // The full 10,000-file run is `npx tsx tests/hostile/run-corpus.ts --count 10000` (figures in bench/RESULTS.md).
 // Needs no services; it lives with the integration tests because it is slower than a unit test.
 import { describe, expect, it } from "vitest";
-import { tryMeasureBytes } from "@/lib/audio";
+import { measureWav } from "@/lib/audio";
 import { runCorpus } from "@/tests/hostile/corpus";
 import { bases, MUTATION_KINDS, mutateOnce, rng } from "@/tests/hostile/mutate";
 
@@ -25,18 +25,18 @@ describe("hostile WAV corpus through the decoder", () => {
   const r = rng(42);
   for (const base of bases()) {
     it(`${base.name}: zero channels is a bad header (RIFF fmt: nChannels >= 1, RIFF 1991 spec)`, () => {
-      const out = tryMeasureBytes(mutateOnce(base.bytes, "zero-channels", r));
+      const out = measureWav(mutateOnce(base.bytes, "zero-channels", r));
       expect(out.ok).toBe(false);
       if (!out.ok) expect(out.code).toBe("bad-header");
     });
     it(`${base.name}: an RF64/BW64 header is refused as rf64 (EBU Tech 3306)`, () => {
-      const out = tryMeasureBytes(mutateOnce(base.bytes, "rf64", r));
+      const out = measureWav(mutateOnce(base.bytes, "rf64", r));
       expect(out.ok).toBe(false);
       if (!out.ok) expect(out.code).toBe("rf64");
     });
     it(`${base.name}: cut inside the header is refused, never read past the end (RIFF chunk layout)`, () => {
       for (const cut of [0, 3, 11, 12, 20, 36, 43]) {
-        const out = tryMeasureBytes(base.bytes.slice(0, cut));
+        const out = measureWav(base.bytes.slice(0, cut));
         expect(out.ok, `cut at ${cut}`).toBe(false);
         if (!out.ok) expect(out.reason.length).toBeGreaterThan(10);
       }
@@ -46,7 +46,7 @@ describe("hostile WAV corpus through the decoder", () => {
   it("format tag 2 (Microsoft ADPCM, RFC 2361 registry) is refused as compressed", () => {
     const b = bases()[0]!.bytes.slice();
     new DataView(b.buffer).setUint16(20, 2, true); // fmt chunk at 12, tag at 12 + 8
-    const out = tryMeasureBytes(b);
+    const out = measureWav(b);
     expect(out.ok).toBe(false);
     if (!out.ok) expect(out.code).toBe("compressed");
   });
@@ -55,7 +55,7 @@ describe("hostile WAV corpus through the decoder", () => {
     const b = bases()[0]!.bytes.slice();
     new DataView(b.buffer).setUint32(40, 0xffffffff, true); // canonical 44-byte header: data size at 40
     const before = process.memoryUsage().rss;
-    const out = tryMeasureBytes(b);
+    const out = measureWav(b);
     expect(process.memoryUsage().rss - before).toBeLessThan(256 * 1024 * 1024);
     expect(out.ok).toBe(false);
     if (!out.ok) expect(out.code).toBe("data-missing");
@@ -63,7 +63,7 @@ describe("hostile WAV corpus through the decoder", () => {
 
   it("40 nested LIST chunks before the data chunk are skipped as one chunk (RIFF: LIST is opaque to the reader)", () => {
     const base = bases()[0]!;
-    const out = tryMeasureBytes(mutateOnce(base.bytes, "nested-list", () => 0.99));
+    const out = measureWav(mutateOnce(base.bytes, "nested-list", () => 0.99));
     expect(out.ok).toBe(true);
     if (out.ok) expect(out.measurement.format.frames).toBe(4410);
   });

@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, closeDb } from "@/lib/server/db";
 import { newId } from "@/lib/server/ids";
-import { closeQueues } from "@/workers/jobs";
+import { closeQueues } from "@/lib/server/jobs";
 import { createLibrary } from "@/lib/server/catalogue/libraries";
 import * as studios from "@/app/api/studios/route";
 import * as studioOne from "@/app/api/studios/[studioId]/route";

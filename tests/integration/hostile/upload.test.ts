@@ -1,6 +1,6 @@
 // Hostile input through the upload API (POST /api/studios/:studioId/libraries/:libraryId/uploads, multipart/form-data
 // per RFC 7578): a batch of mutated WAVs from the seeded corpus, then measured in-process exactly as the worker does
-// (measureSample + measureFile); plus disguised files, zip packs with escaping paths (the "zip slip" pattern,
+// (measureSample + measureWav); plus disguised files, zip packs with escaping paths (the "zip slip" pattern,
 // common practice, no published source), a zip bomb, an oversize body, names with control characters or markup,
 // and a very long path. Pass: no 5xx, every file has an outcome, every stored file ends catalogued or rejected
 // with a reason, nothing is written outside the library's storage folder.
@@ -12,7 +12,7 @@ import { db } from "@/lib/server/db";
 import { env } from "@/lib/server/env";
 import { createLibrary } from "@/lib/server/catalogue/libraries";
 import { measureSample } from "@/lib/server/catalogue/measure";
-import { measureFile } from "@/workers/measure-core";
+import { measureWav } from "@/lib/audio";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
 import { call, makeStudioWithRoles, uniq } from "../helpers";
 import { bases, mutant } from "@/tests/hostile/mutate";
@@ -113,7 +113,7 @@ describe("hostile uploads", () => {
     // measure what was queued, the way the worker does (inline instead of on its thread pool)
     const queued = out.filter((f) => f.status === "queued");
     expect(queued.length).toBeGreaterThan(50);
-    for (const q of queued) await measureSample({ sampleId: q.sampleId!, studioId: ctx.studio.id }, async (bytes) => measureFile(bytes));
+    for (const q of queued) await measureSample({ sampleId: q.sampleId!, studioId: ctx.studio.id }, async (bytes) => measureWav(bytes));
     const rows = await db()("samples").where({ library_id: libraryId }).select("id", "state", "reject_code", "reject_reason", "rel_path");
     expect(rows).toHaveLength(queued.length);
     for (const row of rows) {

@@ -7,12 +7,13 @@ import path from "node:path";
 import crypto from "node:crypto";
 import { afterAll, describe, expect, it } from "vitest";
 import { db, closeDb } from "@/lib/server/db";
-import { purgeAuthRows, requeueOutdated, requeueStranded, sweepPartials } from "@/workers/maintenance";
-import { closeQueues, measureJobId, measureQueue } from "@/workers/jobs";
+import { purgeAuthRows } from "@/lib/server/auth/maintenance";
+import { requeueOutdated, requeueStranded } from "@/lib/server/catalogue/maintenance";
+import { storage, sweepPartials } from "@/lib/server/storage";
+import { closeQueues, measureJobId, measureQueue } from "@/lib/server/jobs";
 import { MEASURE_VERSION } from "@/lib/audio/version";
+import { measureWav } from "@/lib/audio";
 import { measureSample } from "@/lib/server/catalogue/measure";
-import { storage } from "@/lib/server/storage";
-import { measureFile } from "@/workers/measure-core";
 import { hitWav } from "../catalogue/fixtures";
 import { makeStudioWithRoles, makeUser } from "../helpers";
 
@@ -102,7 +103,7 @@ describe("maintenance", () => {
       let during = "";
       const out = await measureSample({ sampleId: id, studioId: studio.id }, async (bytes) => {
         during = (await db()("samples").where({ id }).first("state")).state;
-        return measureFile(bytes);
+        return measureWav(bytes);
       });
       expect(out).toBe("catalogued");
       expect(during).toBe("catalogued");

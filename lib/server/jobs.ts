@@ -1,7 +1,10 @@
-// Job definitions: queue names, job names and versions, shared by producers (the app) and the worker.
+import "server-only";
+// Jobs: queue names, job names and versions, the measure jobs' retry policy and ids, the regroup timing, and
+// the BullMQ queues on the process's one Redis connection (redis.ts). Producers (the app, the seeds, the
+// worker's maintenance) add jobs here; the worker process (workers/main.ts) consumes the same queue names.
 import { Queue, type JobsOptions } from "bullmq";
-import { env } from "@/lib/server/env";
 import { MEASURE_VERSION } from "@/lib/audio/version";
+import { closeRedis, redis } from "./redis";
 
 export const MAINTENANCE_QUEUE = "kw-maintenance";
 export const MEASURE_QUEUE = "kw-measure";
@@ -46,12 +49,11 @@ export function regroupWindowMs(lastRegroupMs: number | undefined): number {
   return Math.min(60_000, Math.max(REGROUP_WINDOW_MS, want));
 }
 
-const connection = () => ({ url: env().KW_REDIS_URL, maxRetriesPerRequest: null });
 const queues = new Map<string, Queue>();
 function queue(name: string): Queue {
   let q = queues.get(name);
   if (!q) {
-    q = new Queue(name, { connection: connection() });
+    q = new Queue(name, { connection: redis() });
     queues.set(name, q);
   }
   return q;
@@ -60,8 +62,10 @@ export const maintenanceQueue = (): Queue => queue(MAINTENANCE_QUEUE);
 export const measureQueue = (): Queue => queue(MEASURE_QUEUE);
 export const regroupQueue = (): Queue => queue(REGROUP_QUEUE);
 
+/** Closes the queues and the shared Redis connection (scripts and tests, before they exit). */
 export async function closeQueues(): Promise<void> {
   const all = [...queues.values()];
   queues.clear();
   await Promise.all(all.map((q) => q.close()));
+  await closeRedis();
 }

@@ -1,0 +1,97 @@
+// Which folders may import which (dependency-cruiser 17). Checked by tests/layering.test.ts (unit project,
+// so by `scripts/test.sh`), or by hand: npx depcruise app components lib workers cli db scripts bench tests --config .dependency-cruiser.cjs
+//
+//   lib/audio, lib/catalog, lib/audit   the pure core: each other and their listed packages only, no Node built-in
+//   lib/synth                           pure too: the core and itself
+//   lib/audio-pool                      lib/audio, Node built-ins and tsx (its thread bootstrap) only
+//   lib/types                           neutral shapes for server and client: the pure core only
+//   lib/server                          anything but workers/, cli/, app/, components/
+//   components/                         never lib/server (types they draw live in lib/types)
+//   cli/                                never lib/server, workers/, app/, components/
+//   workers/                            only wiring; nothing outside workers/ imports it
+//
+// Test files (*.test.ts and the test-*.ts helpers beside them) of the pure folders may also use test packages,
+// Node built-ins and lib/synth, but nothing of the server, the workers, the app or the CLI.
+
+/** Packages the pure core may use (package.json dependencies). */
+const PURE_PACKAGES = ["wavefile", "music-metadata", "meyda", "fft.js", "simple-statistics", "ml-random-forest", "zod"];
+const pkg = (names) => `^node_modules/(${names.map((n) => n.replace(/[.]/g, "\\.")).join("|")})/`;
+const TEST_FILE = "(\\.test\\.ts|/test-[a-z-]+\\.ts)$";
+const PURE = "^lib/(audio|catalog|audit)/";
+const OUTSIDE_CORE = "^(lib/server|lib/audio-pool|workers|app|components|cli|db)/";
+
+module.exports = {
+  forbidden: [
+    {
+      name: "pure-core-imports-only-core",
+      comment: "lib/audio, lib/catalog and lib/audit import each other and their listed packages only (no Node built-in, no framework, no server)",
+      severity: "error",
+      from: { path: PURE, pathNot: TEST_FILE },
+      to: { pathNot: ["^lib/(audio|catalog|audit)/", pkg(PURE_PACKAGES)] },
+    },
+    {
+      name: "pure-core-tests-stay-out-of-the-server",
+      comment: "tests of the pure core may use test packages, Node built-ins and lib/synth, never the server, workers, app or CLI",
+      severity: "error",
+      from: { path: PURE },
+      to: { path: OUTSIDE_CORE },
+    },
+    {
+      name: "synth-is-pure",
+      comment: "lib/synth (the demo and test synthesizer) imports the pure core and itself only",
+      severity: "error",
+      from: { path: "^lib/synth/", pathNot: TEST_FILE },
+      to: { pathNot: ["^lib/(audio|catalog|audit|synth)/"] },
+    },
+    {
+      name: "audio-pool-imports-audio-and-node-only",
+      comment: "lib/audio-pool (measuring threads, shared by the worker and the CLI) imports lib/audio, Node built-ins and tsx only",
+      severity: "error",
+      from: { path: "^lib/audio-pool/", pathNot: TEST_FILE },
+      to: { pathNot: ["^lib/(audio|audio-pool)/", pkg(["tsx"])], dependencyTypesNot: ["core"] },
+    },
+    {
+      name: "types-are-neutral",
+      comment: "lib/types holds shapes both server and client import: it imports the pure core at most",
+      severity: "error",
+      from: { path: "^lib/types/" },
+      to: { pathNot: ["^lib/(audio|catalog|audit|types)/"] },
+    },
+    {
+      name: "server-never-imports-up",
+      comment: "lib/server is the bottom of the app: it never imports workers/, cli/, app/ or components/",
+      severity: "error",
+      from: { path: "^lib/" },
+      to: { path: "^(workers|cli|app|components)/" },
+    },
+    {
+      name: "only-workers-import-workers",
+      comment: "workers/ only wires processes together: nothing outside it imports it",
+      severity: "error",
+      from: { pathNot: "^workers/" },
+      to: { path: "^workers/" },
+    },
+    {
+      name: "components-not-server",
+      comment: "client components never import lib/server (not even its types: those live in lib/types)",
+      severity: "error",
+      from: { path: "^components/" },
+      to: { path: "^lib/server/" },
+    },
+    {
+      name: "cli-without-server",
+      comment: "the command line runs without the database: no lib/server, workers/, app/ or components/",
+      severity: "error",
+      from: { path: "^cli/" },
+      to: { path: "^(lib/server|workers|app|components)/" },
+    },
+  ],
+  options: {
+    // type-only imports count too: a type is a dependency of the design even if the compiler erases it
+    tsPreCompilationDeps: true,
+    tsConfig: { fileName: "tsconfig.json" },
+    doNotFollow: { path: "node_modules" },
+    exclude: { path: "^(\\.next|\\.data|\\.run)/" },
+    enhancedResolveOptions: { exportsFields: ["exports"], conditionNames: ["import", "require", "node", "default", "types"], extensions: [".ts", ".tsx", ".mjs", ".js", ".cjs", ".json"] },
+  },
+};
