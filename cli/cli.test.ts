@@ -1,29 +1,17 @@
 // The command line as a person uses it: `kitwright measure | catalogue | audit` run as real processes on a
 // folder of mixed good and broken files. Expected values come from how the files were built (RIFF layout
 // for the broken ones; the generator's known instruments for the catalogue), not from earlier runs.
-import { execFile } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { promisify } from "node:util";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { kitwright } from "./run-kitwright";
 import { encodeWav } from "../lib/audio/encode";
 import { demoScenario } from "../lib/synth/scenario";
 import { renderScenarioFile } from "../lib/synth/render";
 
-const run = promisify(execFile);
-const BIN = path.resolve("bin/kitwright.mjs");
 let dir: string;
 
-async function kitwright(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  try {
-    const r = await run(process.execPath, [BIN, ...args], { maxBuffer: 64 * 1024 * 1024 });
-    return { code: 0, stdout: r.stdout, stderr: r.stderr };
-  } catch (e) {
-    const err = e as { code: number; stdout: string; stderr: string };
-    return { code: err.code, stdout: err.stdout, stderr: err.stderr };
-  }
-}
 
 beforeAll(() => {
   dir = fs.mkdtempSync(path.join(os.tmpdir(), "kw-cli-"));

@@ -4,12 +4,12 @@
 // two audits are compared field by field; any difference fails with the file (or pad) and the field named.
 // The test compares the two paths with each other, not with fixed truths: whatever family the sound model picks
 // for a file, both paths must pick the same.
-import { execFile, type ChildProcess } from "node:child_process";
+import type { ChildProcess } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { promisify } from "node:util";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { kitwright } from "@/cli/run-kitwright";
 import { call, makeStudioWithRoles, uniq } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
 import { closeQueues } from "@/lib/server/jobs";
@@ -29,18 +29,7 @@ import * as layoutsRoute from "@/app/api/studios/[studioId]/layouts/route";
 import * as kitsRoute from "@/app/api/studios/[studioId]/kits/route";
 import * as auditsRoute from "@/app/api/studios/[studioId]/audits/route";
 
-const run = promisify(execFile);
-const BIN = path.resolve("bin/kitwright.mjs");
 
-async function kitwright(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  try {
-    const r = await run(process.execPath, [BIN, ...args], { maxBuffer: 64 * 1024 * 1024 });
-    return { code: 0, stdout: r.stdout, stderr: r.stderr };
-  } catch (e) {
-    const err = e as { code: number; stdout: string; stderr: string };
-    return { code: err.code, stdout: err.stdout, stderr: err.stderr };
-  }
-}
 
 // ------------------------------------------------------------------ the folder (our own generated kit)
 
