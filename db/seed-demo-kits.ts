@@ -18,12 +18,12 @@ import { buildDefaultKit } from "../lib/audit/kits";
 import { runAudit } from "../lib/audit/audit";
 import type { Kit, Layout } from "../lib/audit/types";
 import { loadStudioCatalogue } from "../lib/server/kits/catalogue-for-audit";
+import { jsonColumn } from "../lib/server/json-column";
 
 export const DEMO_KIT_NAME = "Harbour Lane Session";
 const LAYOUT_TEMPLATES = ["gm-percussion", "trigger-five"] as const;
 
 const say = (s: string) => process.stdout.write(`demo kits: ${s}\n`);
-const parse = (v: unknown) => (typeof v === "string" ? JSON.parse(v) : v);
 
 async function activity(k: Knex, studioId: string, actorId: string, action: string, subjectType: string, subjectId: string, details: Record<string, unknown>) {
   await k("activity").insert({ studio_id: studioId, actor_id: actorId, action, subject_type: subjectType, subject_id: subjectId, details: JSON.stringify(details) });
@@ -47,7 +47,7 @@ export async function seedDemoKits(k: Knex): Promise<void> {
     const t = getTemplate(name)!;
     const row = await k("layouts").where({ studio_id: studioId, name: t.name }).first("id", "body");
     if (row) {
-      layouts.push({ ...(parse(row.body) as Layout), id: row.id });
+      layouts.push({ ...(jsonColumn(row.body) as Layout), id: row.id });
       say(`layout "${t.name}" already there`);
       continue;
     }
@@ -75,7 +75,7 @@ export async function seedDemoKits(k: Knex): Promise<void> {
     });
     say(`kit "${DEMO_KIT_NAME}" created with ${kit.slots.filter((s) => s.instrumentId).length} of ${kit.slots.length} slots filled`);
   } else {
-    kit = { ...(parse(kitRow.body) as Kit), id: kitRow.id };
+    kit = { ...(jsonColumn(kitRow.body) as Kit), id: kitRow.id };
     const empty = kit.slots.every((s) => !s.instrumentId);
     if (empty && catalogue.length) {
       kit = { ...built, id: kitRow.id, name: DEMO_KIT_NAME };

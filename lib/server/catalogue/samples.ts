@@ -3,6 +3,7 @@ import "server-only";
 // bulk relabel and confirm (labels become the member's: source "person"), and the stored file for listening.
 import type { Knex } from "knex";
 import { db } from "../db";
+import { jsonColumn } from "../json-column";
 import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
 import { assertLibrary, countsFor } from "./libraries";
@@ -227,12 +228,11 @@ export async function getSample({ studioId, libraryId, sampleId }: { studioId: s
     .where({ "s.studio_id": studioId, "s.library_id": libraryId, "s.id": sampleId })
     .first([...LIST_COLS, "s.peaks", "s.reasons", "s.measurement"]);
   if (!r) throw notFound("The sample");
-  const parse = (v: unknown) => (v == null ? null : typeof v === "string" ? JSON.parse(v) : v);
-  const m = parse(r.measurement) as Record<string, any> | null;
+  const m = jsonColumn(r.measurement) as Record<string, any> | null;
   return {
     ...toRow(r),
-    peaks: parse(r.peaks) as { min: number[]; max: number[] } | null,
-    reasons: (parse(r.reasons) as string[] | null) ?? [],
+    peaks: jsonColumn(r.peaks) as { min: number[]; max: number[] } | null,
+    reasons: (jsonColumn(r.reasons) as string[] | null) ?? [],
     measurement: m ? { onsetMs: m.onsetMs, attackMs: m.attackMs, tail: m.tail, samplePeakDbfs: m.samplePeakDbfs, clippedRuns: m.clippedRuns, dcOffset: m.dcOffset, noiseFloorDbfs: m.noiseFloorDbfs, warnings: m.warnings } : null,
   };
 }

@@ -3,12 +3,11 @@ import "server-only";
 // and the data of the plots (loudness ladder per group, feature map).
 import { db } from "../db";
 import { logActivity } from "../activity";
+import { jsonColumn } from "../json-column";
 import { AppError, notFound } from "../errors";
 import { assertLibrary } from "./libraries";
 import { enqueueRegroup } from "./queue";
 import type { HealthFinding, Layer } from "@/lib/catalog";
-
-const parse = <T,>(v: unknown): T => (typeof v === "string" ? JSON.parse(v) : v) as T;
 
 export interface InstrumentRow { id: string; key: string; name: string; nameSource: "auto" | "person"; family: string; pitchHz: number | null; sampleCount: number }
 
@@ -56,7 +55,7 @@ export async function libraryHealth({ studioId, libraryId }: { studioId: string;
   await assertLibrary({ studioId, libraryId });
   const h = await db()("library_health").where({ studio_id: studioId, library_id: libraryId }).first();
   if (!h) return { computedAt: null, sampleCount: 0, findings: [] };
-  const findings = parse<HealthFinding[]>(h.findings);
+  const findings = jsonColumn<HealthFinding[]>(h.findings);
   const ids = [...new Set(findings.flatMap((f) => f.sampleIds.slice(0, 50)))];
   const paths = new Map<string, string>();
   for (let i = 0; i < ids.length; i += 1000) {
@@ -92,7 +91,7 @@ export async function libraryPlots({ studioId, libraryId }: { studioId: string; 
   return {
     groups: groups.map((g) => ({
       key: g.group_key, label: g.label, instrumentKey: g.instrument_key, articulation: g.articulation, mic: g.mic, countFrom: g.count_from, criterion: g.criterion,
-      layers: parse<Layer[]>(g.layers).map((l) => ({
+      layers: jsonColumn<Layer[]>(g.layers).map((l) => ({
         index: l.index, velocityLow: l.velocityLow, velocityHigh: l.velocityHigh, meanStrikeLufs: l.meanStrikeLufs, spreadDb: l.spreadDb,
         members: l.sampleIds.map((id, i) => ({ id, strikeLufs: loud.get(id) ?? null, roundRobin: i + 1 })),
       })),
