@@ -19,6 +19,7 @@ import { runAudit } from "../lib/audit/audit";
 import type { Kit, Layout } from "../lib/audit/types";
 import { loadStudioCatalogue } from "../lib/server/kits/catalogue-for-audit";
 import { jsonColumn } from "../lib/server/json-column";
+import { CREATOR_ROLE } from "../lib/permissions";
 
 export const DEMO_KIT_NAME = "Harbour Lane Session";
 const LAYOUT_TEMPLATES = ["gm-percussion", "trigger-five"] as const;
@@ -36,7 +37,7 @@ export async function seedDemoKits(k: Knex): Promise<void> {
     return;
   }
   const studioId = studio.id as string;
-  const owner = await k("memberships").where({ studio_id: studioId, role: "owner" }).first("user_id");
+  const owner = await k("memberships").where({ studio_id: studioId, role: CREATOR_ROLE }).first("user_id");
   const actorId = (owner?.user_id as string) ?? null;
   const catalogue = await loadStudioCatalogue({ studioId }, k);
   say(`${catalogue.length} catalogued instruments in "${DEMO_STUDIO}"`);
