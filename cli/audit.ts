@@ -45,6 +45,8 @@ function parseArgs(args: string[]): Options | "help" {
   const o: Partial<Options> & Pick<Options, "files"> = { kit: null, format: "text", files: [] };
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
+    const toFile = FILE_FORMATS.find((f) => f.cli.flag === a);
+    const toStdout = STDOUT_FORMATS.find((f) => f.cli.flag === a);
     const value = () => {
       const v = args[++i];
       if (v === undefined || v.startsWith("--")) throw new UsageError(`${a} needs a value`);
@@ -54,11 +56,10 @@ function parseArgs(args: string[]): Options | "help" {
     else if (a === "--layout") o.layout = value();
     else if (a === "--catalogue" || a === "--catalog") o.catalogue = value();
     else if (a === "--kit") o.kit = value();
-    else if (FILE_FORMATS.some((f) => f.cli.flag === a)) o.files.push({ format: FILE_FORMATS.find((f) => f.cli.flag === a)!, path: value() });
-    else if (STDOUT_FORMATS.some((f) => f.cli.flag === a)) {
-      const f = STDOUT_FORMATS.find((x) => x.cli.flag === a)!.id;
-      if (o.format !== "text" && o.format !== f) throw new UsageError(`choose one of ${STDOUT_FORMATS.map((x) => x.cli.flag).join(" and ")}`);
-      o.format = f;
+    else if (toFile) o.files.push({ format: toFile, path: value() });
+    else if (toStdout) {
+      if (o.format !== "text" && o.format !== toStdout.id) throw new UsageError(`choose one of ${STDOUT_FORMATS.map((x) => x.cli.flag).join(" and ")}`);
+      o.format = toStdout.id;
     } else throw new UsageError(`unknown option ${a}`);
   }
   if (!o.layout) throw new UsageError("--layout is required");
