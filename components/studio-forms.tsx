@@ -7,7 +7,7 @@ import { useMutation } from "@tanstack/react-query";
 import { api, ApiError } from "./api";
 import { Field, Message, fieldErrors } from "./form-bits";
 import { inviteSchema, studioNameSchema } from "@/lib/validation/studio";
-import { ROLES, type Role } from "@/lib/permissions";
+import { DEFAULT_INVITE_ROLE, ROLES, rolesInWords, type Role } from "@/lib/permissions";
 
 const errText = (e: unknown) => (e instanceof ApiError ? e.message : "Something went wrong; try again.");
 
@@ -96,10 +96,10 @@ export function InviteForm({ studioId }: { studioId: string }) {
       <Field label="E-mail" name="email" type="email" required error={fields.email} />
       <div>
         <label className="label" htmlFor="invite-role">Role</label>
-        <select id="invite-role" name="role" className="field" defaultValue="editor">
+        <select id="invite-role" name="role" className="field" defaultValue={DEFAULT_INVITE_ROLE}>
           {ROLES.map((r) => <option key={r} value={r}>{r}</option>)}
         </select>
-        <p className="mt-1 text-xs text-muted">Viewers browse, listen and export; editors also upload, label and edit kits and layouts; owners also manage members.</p>
+        <p className="mt-1 text-xs text-muted">{rolesInWords()}</p>
       </div>
       {m.isError && <Message kind="error">{errText(m.error)}</Message>}
       {sentTo && <Message kind="ok">Invitation sent to {sentTo}.</Message>}

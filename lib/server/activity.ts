@@ -2,6 +2,7 @@ import "server-only";
 // The activity log: one row per change in a studio (who, what, when).
 import type { Knex } from "knex";
 import { db } from "./db";
+import { jsonColumn } from "./json-column";
 
 export interface ActivityEntry {
   id: number;
@@ -46,7 +47,7 @@ export async function listActivity({ studioId, before, limit }: { studioId: stri
     action: r.action,
     subjectType: r.subject_type,
     subjectId: r.subject_id,
-    details: r.details ? (typeof r.details === "string" ? JSON.parse(r.details) : r.details) : null,
+    details: r.details ? jsonColumn(r.details) : null,
     createdAt: new Date(r.created_at).toISOString(),
   }));
 }

@@ -5,6 +5,7 @@ import { db } from "../db";
 import { AppError, notFound } from "../errors";
 import { newId } from "../ids";
 import { logActivity } from "../activity";
+import { jsonColumn } from "../json-column";
 import { runAudit } from "@/lib/audit/audit";
 import { diffAudits, type AuditDiff } from "@/lib/audit/export";
 import type { AuditResult } from "@/lib/audit/types";
@@ -28,7 +29,6 @@ export interface AuditSummaryRow {
 export interface AuditRecord extends AuditSummaryRow { result: AuditResult }
 
 const iso = (d: unknown) => new Date(d as string).toISOString();
-const parse = (v: unknown) => (typeof v === "string" ? JSON.parse(v) : v);
 
 function summary(r: Record<string, unknown>): AuditSummaryRow {
   return {
@@ -68,7 +68,7 @@ export async function listAudits({ studioId, layoutId, limit = 200 }: { studioId
 export async function getAudit({ studioId, auditId }: { studioId: string; auditId: string }): Promise<AuditRecord> {
   const r = await db()("audits as a").leftJoin("users as u", "u.id", "a.created_by").where({ "a.studio_id": studioId, "a.id": auditId }).first("a.*", "u.name as created_by_name");
   if (!r) throw notFound("The audit");
-  return { ...summary(r), result: parse(r.result) as AuditResult };
+  return { ...summary(r), result: jsonColumn(r.result) as AuditResult };
 }
 
 /** What changed between two audits of the same layout. */

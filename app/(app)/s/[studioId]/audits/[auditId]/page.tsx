@@ -5,6 +5,7 @@ import { requireStudio } from "@/lib/server/session";
 import { getAudit, listAudits } from "@/lib/server/kits/audits";
 import { AppError } from "@/lib/server/errors";
 import { can } from "@/lib/permissions";
+import { EXPORT_FORMATS } from "@/lib/audit/export-formats";
 import { PadChart } from "@/components/audit/pad-chart";
 import { FindingsTable } from "@/components/audit/findings-table";
 import { PedalZonesBar } from "@/components/audit/pedal-bar";
@@ -40,9 +41,7 @@ export default async function AuditPage({ params }: { params: Promise<{ studioId
           <p className="text-sm text-muted">Audited <span className="num">{a.createdAt.replace("T", " ").slice(0, 19)}</span> UTC{a.createdBy ? ` by ${a.createdBy}` : ""}</p>
         </div>
         <div className="no-print flex flex-wrap gap-2">
-          <a className="btn-quiet" href={`${exp}?format=csv`} download data-testid="export-csv">CSV</a>
-          <a className="btn-quiet" href={`${exp}?format=json`} download>JSON</a>
-          <a className="btn-quiet" href={`${exp}?format=midi`} download>MIDI file</a>
+          {EXPORT_FORMATS.map((f) => <a key={f.id} className="btn-quiet" href={`${exp}?format=${f.id}`} download data-testid={`export-${f.id}`}>{f.label}</a>)}
           <PrintButton />
         </div>
       </header>
