@@ -5,7 +5,7 @@ import { api } from "../api";
 import { Preview } from "./preview";
 import { Waveform } from "./waveform";
 import { StateTag } from "./state-counts";
-import type { SampleRow } from "@/lib/server/catalogue/samples";
+import type { SampleRow } from "@/lib/api-types/samples";
 
 type Detail = SampleRow & { peaks: { min: number[]; max: number[] } | null; reasons: string[]; measurement: { onsetMs: number; attackMs: number; tail: string; samplePeakDbfs: number; clippedRuns: number; dcOffset: number; noiseFloorDbfs: number; warnings: string[] } | null };
 

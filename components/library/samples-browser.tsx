@@ -12,7 +12,7 @@ import { StateTag } from "./state-counts";
 import { SampleDetail } from "./sample-detail";
 import { ARTICULATIONS, FAMILIES } from "@/lib/catalog/taxonomy";
 import { MIC_POSITIONS } from "@/lib/catalog/names";
-import type { SampleRow } from "@/lib/server/catalogue/samples";
+import type { SampleRow } from "@/lib/api-types/samples";
 
 interface Page { rows: SampleRow[]; total: number; page: number; pageSize: number; search?: "words" | "contains" }
 type Inst = { key: string; name: string; family: string };

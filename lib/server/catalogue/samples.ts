@@ -7,7 +7,8 @@ import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
 import { assertLibrary, countsFor } from "./libraries";
 import { enqueueRegroup } from "./queue";
-import { countWordMatches, pathContainsMatches, planWords, rowsCapped, searchableByWords, wherePathContains, whereWordsExist, wordMatches, type SearchMode } from "./words";
+import { countWordMatches, pathContainsMatches, planWords, rowsCapped, searchableByWords, wherePathContains, whereWordsExist, wordMatches } from "./words";
+import type { ConfirmAnswer, RelabelAnswer, RelabelBody, SampleDetail, SampleRow, SamplesPage, SearchMode } from "@/lib/api-types/samples";
 
 /** A words search lists up to this many matching ids at once (more are counted, and pages walk an index). */
 const ID_LIST_MAX = 5000;
@@ -15,38 +16,6 @@ const ID_LIST_MAX = 5000;
 const WALK_ROWS_MIN = 500;
 import type { SampleSort, SamplesQuery } from "@/lib/validation/library";
 
-export interface SampleRow {
-  id: string;
-  path: string;
-  fileName: string;
-  state: "queued" | "measuring" | "catalogued" | "rejected";
-  rejectCode: string | null;
-  rejectReason: string | null;
-  family: string | null;
-  familySource: string | null;
-  articulation: string | null;
-  articulationSource: string | null;
-  confidence: number | null;
-  mic: string | null;
-  instrumentKey: string | null;
-  instrumentName: string | null;
-  layerIndex: number | null;
-  layerCount: number | null;
-  roundRobin: number | null;
-  velocityLow: number | null;
-  velocityHigh: number | null;
-  strikeLufs: number | null;
-  truePeakDbtp: number | null;
-  durationSec: number | null;
-  sampleRate: number | null;
-  bits: number | null;
-  channels: number | null;
-  centroidHz: number | null;
-  decaySec: number | null;
-  conflict: string | null;
-  confirmed: boolean;
-  sizeBytes: number;
-}
 
 const SORT_COLUMN: Record<SampleSort, string> = {
   name: "s.file_name",
@@ -97,15 +66,6 @@ function filtered(k: Knex, studioId: string, libraryId: string, q: Omit<SamplesQ
   return b;
 }
 
-export interface SamplesPage {
-  rows: SampleRow[];
-  total: number;
-  page: number;
-  pageSize: number;
-  /** How a search term was matched: "words" (path words starting with each word typed) or "contains" (the
-   * fallback when no word starts with it, or the term has no letters or digits). */
-  search?: SearchMode;
-}
 
 export async function listSamples({ studioId, libraryId, query }: { studioId: string; libraryId: string; query: SamplesQuery }): Promise<SamplesPage> {
   await assertLibrary({ studioId, libraryId });
@@ -219,7 +179,7 @@ async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, 
   return { rows: found.map(toRow), total };
 }
 
-export async function getSample({ studioId, libraryId, sampleId }: { studioId: string; libraryId: string; sampleId: string }) {
+export async function getSample({ studioId, libraryId, sampleId }: { studioId: string; libraryId: string; sampleId: string }): Promise<SampleDetail> {
   const r = await db()("samples as s")
     .leftJoin("instruments as i", function () {
       this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");
@@ -250,10 +210,9 @@ async function ownedIds(trx: Knex.Transaction, studioId: string, libraryId: stri
   return rows.map((r) => r.id);
 }
 
-export interface RelabelInput { sampleIds: string[]; family?: string; articulation?: string; mic?: string | null; instrumentKey?: string }
 
 /** Sets labels on many samples at once; they become confirmed (source "person"), are logged, and trigger a regroup. */
-export async function relabelSamples({ studioId, libraryId, actorId, input }: { studioId: string; libraryId: string; actorId: string; input: RelabelInput }): Promise<{ updated: number }> {
+export async function relabelSamples({ studioId, libraryId, actorId, input }: { studioId: string; libraryId: string; actorId: string; input: RelabelBody }): Promise<RelabelAnswer> {
   await assertLibrary({ studioId, libraryId });
   if (input.instrumentKey) {
     const inst = await db()("instruments").where({ studio_id: studioId, library_id: libraryId, key: input.instrumentKey }).first("id");
@@ -276,7 +235,7 @@ export async function relabelSamples({ studioId, libraryId, actorId, input }: { 
 }
 
 /** Confirms the current family and articulation (and mic, instrument) of catalogued samples as they are. */
-export async function confirmSamples({ studioId, libraryId, actorId, sampleIds }: { studioId: string; libraryId: string; actorId: string; sampleIds: string[] }): Promise<{ confirmed: number; skipped: number }> {
+export async function confirmSamples({ studioId, libraryId, actorId, sampleIds }: { studioId: string; libraryId: string; actorId: string; sampleIds: string[] }): Promise<ConfirmAnswer> {
   await assertLibrary({ studioId, libraryId });
   const confirmed = await db().transaction(async (trx) => {
     await ownedIds(trx, studioId, libraryId, sampleIds);

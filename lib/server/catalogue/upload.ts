@@ -24,20 +24,7 @@ import { assertLibrary, sampleKey } from "./libraries";
 import { enqueueMeasure } from "./queue";
 import { deleteWordsOfSamples, insertSamplesWithWords } from "./words";
 import { busboyReadsAsFile, lenientFileName, mentionsFile, PartHeaderScanner, type PartHeader } from "./multipart-parts";
-
-export type UploadStatus = "queued" | "duplicate" | "refused";
-export interface UploadFileResult {
-  name: string;
-  status: UploadStatus;
-  reason?: string;
-  /** Stable code of the refusal: not-wav, rf64, too-large, bad-path, path-too-long, bad-name, too-many, zip-*, empty, interrupted, error. */
-  code?: string;
-  sampleId?: string;
-}
-export interface UploadSummary {
-  files: UploadFileResult[];
-  counts: { queued: number; duplicate: number; refused: number };
-}
+import type { UploadFileResult, UploadSummary } from "@/lib/api-types/uploads";
 
 /** Limits of .zip packs (zip-bomb guards). */
 export const ZIP_LIMITS = {

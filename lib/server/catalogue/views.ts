@@ -7,10 +7,10 @@ import { AppError, notFound } from "../errors";
 import { assertLibrary } from "./libraries";
 import { enqueueRegroup } from "./queue";
 import type { HealthFinding, Layer } from "@/lib/catalog";
+import type { InstrumentRow } from "@/lib/api-types/instruments";
+import type { HealthView, LibraryPlots } from "@/lib/api-types/libraries";
 
 const parse = <T,>(v: unknown): T => (typeof v === "string" ? JSON.parse(v) : v) as T;
-
-export interface InstrumentRow { id: string; key: string; name: string; nameSource: "auto" | "person"; family: string; pitchHz: number | null; sampleCount: number }
 
 export async function listInstruments({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<InstrumentRow[]> {
   await assertLibrary({ studioId, libraryId });
@@ -46,12 +46,6 @@ export async function mergeInstruments({ studioId, libraryId, actorId, sourceIds
   return { moved };
 }
 
-export interface HealthView {
-  computedAt: string | null;
-  sampleCount: number;
-  findings: (HealthFinding & { samples: { id: string; path: string }[] })[];
-}
-
 export async function libraryHealth({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<HealthView> {
   await assertLibrary({ studioId, libraryId });
   const h = await db()("library_health").where({ studio_id: studioId, library_id: libraryId }).first();
@@ -70,19 +64,7 @@ export async function libraryHealth({ studioId, libraryId }: { studioId: string;
   };
 }
 
-export interface LadderGroup {
-  key: string;
-  label: string;
-  instrumentKey: string;
-  articulation: string;
-  mic: string | null;
-  countFrom: string;
-  criterion: string | null;
-  layers: { index: number; velocityLow: number; velocityHigh: number; meanStrikeLufs: number; spreadDb: number; members: { id: string; strikeLufs: number | null; roundRobin: number }[] }[];
-}
-export interface FeaturePoint { id: string; path: string; family: string | null; articulation: string | null; centroidHz: number; decaySec: number; strikeLufs: number | null; conflict: string | null; instrumentKey: string | null }
-
-export async function libraryPlots({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<{ groups: LadderGroup[]; points: FeaturePoint[] }> {
+export async function libraryPlots({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<LibraryPlots> {
   await assertLibrary({ studioId, libraryId });
   const [groups, samples] = await Promise.all([
     db()("layer_groups").where({ studio_id: studioId, library_id: libraryId }).orderBy("group_key"),

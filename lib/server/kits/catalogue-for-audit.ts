@@ -7,9 +7,9 @@ import "server-only";
 // reported one way everywhere.
 import type { Knex } from "knex";
 import { db } from "../db";
-import type { Family } from "@/lib/catalog/taxonomy";
 import { readCatalogue } from "@/lib/audit/catalogue-input";
-import type { CatalogueInstrument } from "@/lib/audit/types";
+import type { InstrumentChoice } from "@/lib/api-types/kits";
+import type { StudioCatalogueInstrument } from "@/lib/api-types/audits";
 
 const parseJson = (v: unknown): unknown => {
   if (typeof v !== "string") return v;
@@ -19,23 +19,6 @@ const parseJson = (v: unknown): unknown => {
     return null; // reported by the converter as "no layers list"
   }
 };
-
-/** One instrument as the kit editor lists it (family, library, sample counts). */
-export interface InstrumentChoice {
-  id: string;
-  name: string;
-  family: Family;
-  libraryId: string;
-  libraryName: string;
-  pitchHz: number | null;
-  sampleCount: number;
-  articulations: string[];
-}
-
-/** The catalogue instrument plus the library it belongs to (the audition fetches sample audio per library). */
-export interface StudioCatalogueInstrument extends CatalogueInstrument {
-  libraryId: string;
-}
 
 /**
  * The studio's catalogue for lib/audit (every library, or only the given instrument ids), with what the

@@ -8,9 +8,7 @@ import { newId } from "../ids";
 import { logActivity } from "../activity";
 import { getTemplate } from "@/lib/audit/templates";
 import type { Layout, Pad } from "@/lib/audit/types";
-
-export interface LayoutSummary { id: string; name: string; kind: "grid" | "zones"; rows: number | null; cols: number | null; pads: number; pedal: boolean; updatedAt: string }
-export interface LayoutRecord { id: string; name: string; layout: Layout; createdAt: string; updatedAt: string }
+import type { LayoutRecord, LayoutSummary } from "@/lib/api-types/layouts";
 
 const iso = (d: unknown) => new Date(d as string).toISOString();
 const parse = (v: unknown) => (typeof v === "string" ? JSON.parse(v) : v);
