@@ -1,25 +1,41 @@
 "use client";
-// Rename, copy, export and delete for a kit or a layout (the same four actions, the same words).
+// Rename, copy, export and delete for one kit or one layout (the same four actions, the same words), and
+// making a new one from a JSON file. Kits and layouts each have their own hooks (components/data/kits.ts,
+// components/data/layouts.ts); the wrappers below hand them to the shared views.
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { api, ApiError } from "@/components/api";
-import { Message } from "@/components/form-bits";
+import type { UseMutationResult } from "@tanstack/react-query";
+import { FormError, Message } from "@/components/form-bits";
+import { paths } from "@/components/data/paths";
+import { useCopyKit, useDeleteKit, useImportKit, useRenameKit } from "@/components/data/kits";
+import { useCopyLayout, useDeleteLayout, useImportLayout, useRenameLayout } from "@/components/data/layouts";
 
-export function EntityActions({ apiBase, pageBase, listHref, name, what, canWrite }: { apiBase: string; pageBase: string; listHref: string; name: string; what: "kit" | "layout"; canWrite: boolean }) {
+type Item = { id: string };
+type Write<TVars> = UseMutationResult<Item, Error, TVars>;
+
+interface ItemActionsProps {
+  what: "kit" | "layout";
+  name: string;
+  canWrite: boolean;
+  exportHref: string;
+  /** The list page; a new item's page is `${listHref}/${id}`. */
+  listHref: string;
+  rename: Write<string>;
+  copy: Write<string>;
+  remove: UseMutationResult<unknown, Error, void>;
+}
+
+function ItemActions({ what, name, canWrite, exportHref, listHref, rename, copy, remove }: ItemActionsProps) {
   const router = useRouter();
   const [mode, setMode] = useState<"idle" | "rename" | "copy" | "delete">("idle");
   const [text, setText] = useState(name);
-  const [err, setErr] = useState("");
-  const [busy, setBusy] = useState(false);
-  async function run(fn: () => Promise<void>) {
-    setBusy(true);
-    setErr("");
-    try { await fn(); } catch (e) { setErr(e instanceof ApiError ? e.message : String(e)); } finally { setBusy(false); }
-  }
+  const busy = rename.isPending || copy.isPending || remove.isPending;
+  // one line of error for the three writes: starting one clears the others'
+  const fresh = () => { rename.reset(); copy.reset(); remove.reset(); };
   return (
     <div className="no-print space-y-2">
       <div className="flex flex-wrap gap-2">
-        <a className="btn-quiet" href={`${apiBase}/export`} download>Export JSON</a>
+        <a className="btn-quiet" href={exportHref} download>Export JSON</a>
         {canWrite && <button type="button" className="btn-quiet" onClick={() => { setMode("rename"); setText(name); }}>Rename</button>}
         {canWrite && <button type="button" className="btn-quiet" onClick={() => { setMode("copy"); setText(`${name} (copy)`); }}>Copy</button>}
         {canWrite && <button type="button" className="btn-danger" onClick={() => setMode("delete")}>Delete</button>}
@@ -27,16 +43,9 @@ export function EntityActions({ apiBase, pageBase, listHref, name, what, canWrit
       {(mode === "rename" || mode === "copy") && (
         <form className="flex flex-wrap items-end gap-2" onSubmit={(e) => {
           e.preventDefault();
-          void run(async () => {
-            if (mode === "rename") {
-              await api(apiBase, { method: "PATCH", body: { name: text } });
-              setMode("idle");
-              router.refresh();
-            } else {
-              const r = await api<{ kit?: { id: string }; layout?: { id: string } }>(`${apiBase}/copy`, { method: "POST", body: { name: text } });
-              router.push(`${pageBase}/${(r.kit ?? r.layout)!.id}`);
-            }
-          });
+          fresh();
+          if (mode === "rename") rename.mutate(text, { onSuccess: () => { setMode("idle"); router.refresh(); } });
+          else copy.mutate(text, { onSuccess: (item) => router.push(`${listHref}/${item.id}`) });
         }}>
           <div>
             <label className="label" htmlFor="entity-name">{mode === "rename" ? "New name" : "Name of the copy"}</label>
@@ -49,34 +58,57 @@ export function EntityActions({ apiBase, pageBase, listHref, name, what, canWrit
       {mode === "delete" && (
         <div className="flex flex-wrap items-center gap-2 text-sm">
           <span>Delete the {what} “{name}”{what === "layout" ? " and its saved audits" : ""}? This cannot be undone.</span>
-          <button type="button" className="btn-danger" disabled={busy} onClick={() => void run(async () => { await api(apiBase, { method: "DELETE" }); router.push(listHref); router.refresh(); })}>Delete for good</button>
+          <button type="button" className="btn-danger" disabled={busy} onClick={() => { fresh(); remove.mutate(undefined, { onSuccess: () => { router.push(listHref); router.refresh(); } }); }}>Delete for good</button>
           <button type="button" className="btn-quiet" onClick={() => setMode("idle")}>Keep it</button>
         </div>
       )}
-      {err && <Message kind="error">{err}</Message>}
+      <FormError error={rename.error ?? copy.error ?? remove.error} />
     </div>
   );
 }
 
-/** Read a JSON file the user picked and POST it to an import route; go to the new item. */
-export function ImportJson({ action, pageBase, label }: { action: string; pageBase: string; label: string }) {
+export function KitActions({ studioId, kitId, name, canWrite }: { studioId: string; kitId: string; name: string; canWrite: boolean }) {
+  const rename = useRenameKit(studioId, kitId);
+  const copy = useCopyKit(studioId, kitId);
+  const remove = useDeleteKit(studioId, kitId);
+  return <ItemActions what="kit" name={name} canWrite={canWrite} exportHref={paths.kitExport(studioId, kitId)} listHref={`/s/${studioId}/kits`} rename={rename} copy={copy} remove={remove} />;
+}
+
+export function LayoutActions({ studioId, layoutId, name, canWrite }: { studioId: string; layoutId: string; name: string; canWrite: boolean }) {
+  const rename = useRenameLayout(studioId, layoutId);
+  const copy = useCopyLayout(studioId, layoutId);
+  const remove = useDeleteLayout(studioId, layoutId);
+  return <ItemActions what="layout" name={name} canWrite={canWrite} exportHref={paths.layoutExport(studioId, layoutId)} listHref={`/s/${studioId}/layouts`} rename={rename} copy={copy} remove={remove} />;
+}
+
+/** Read a JSON file the user picked and send it to an import route; go to the new item. */
+function ImportJson({ write, listHref, label }: { write: Write<unknown>; listHref: string; label: string }) {
   const router = useRouter();
-  const [err, setErr] = useState("");
+  const [notJson, setNotJson] = useState(false);
   return (
     <div className="space-y-2">
       <label className="label" htmlFor={`import-${label}`}>{label}</label>
       <input id={`import-${label}`} type="file" accept="application/json,.json" className="block text-sm" onChange={async (e) => {
-        setErr("");
+        setNotJson(false);
+        write.reset();
         const f = e.target.files?.[0];
         if (!f) return;
         let data: unknown;
-        try { data = JSON.parse(await f.text()); } catch { setErr("That file is not JSON."); return; }
-        try {
-          const r = await api<{ kit?: { id: string }; layout?: { id: string } }>(action, { method: "POST", body: data });
-          router.push(`${pageBase}/${(r.kit ?? r.layout)!.id}`);
-        } catch (x) { setErr(x instanceof ApiError ? x.message : String(x)); }
+        try { data = JSON.parse(await f.text()); } catch { setNotJson(true); return; }
+        write.mutate(data, { onSuccess: (item) => router.push(`${listHref}/${item.id}`) });
       }} />
-      {err && <Message kind="error">{err}</Message>}
+      {notJson && <Message kind="error">That file is not JSON.</Message>}
+      <FormError error={write.error} />
     </div>
   );
+}
+
+export function ImportKitFile({ studioId, label }: { studioId: string; label: string }) {
+  const write = useImportKit(studioId);
+  return <ImportJson write={write} listHref={`/s/${studioId}/kits`} label={label} />;
+}
+
+export function ImportLayoutFile({ studioId, label }: { studioId: string; label: string }) {
+  const write = useImportLayout(studioId);
+  return <ImportJson write={write} listHref={`/s/${studioId}/layouts`} label={label} />;
 }
