@@ -3,18 +3,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { db } from "./db";
 import { jsonColumn } from "./json-column";
-
-export interface ActivityEntry {
-  id: number;
-  studioId: string;
-  actorId: string | null;
-  actorName: string | null;
-  action: string;
-  subjectType: string | null;
-  subjectId: string | null;
-  details: Record<string, unknown> | null;
-  createdAt: string;
-}
+import type { ActivityEntry } from "@/lib/api-types/activity";
 
 export async function logActivity(
   trx: Knex | Knex.Transaction,

@@ -10,12 +10,11 @@ import { sendVerificationMail } from "./auth/accounts";
 import { endAllSessions } from "./auth/sessions";
 import { later } from "./later";
 import { can, CREATOR_ROLE, isRole, KEPT_PERMISSION, rolesWith, roleWithArticle, type Role } from "@/lib/permissions";
+import type { StudioSummary } from "@/lib/api-types/studios";
+import type { Member } from "@/lib/api-types/members";
+import type { Invitation, InvitationView } from "@/lib/api-types/invitations";
 
 const INVITE_TTL_MS = 7 * 24 * 3600_000;
-
-export interface StudioSummary { id: string; name: string; role: Role }
-export interface Member { userId: string; name: string; email: string; role: Role; since: string }
-export interface Invitation { id: string; email: string; role: Role; invitedBy: string; expiresAt: string; createdAt: string }
 
 export async function listStudiosForUser(userId: string): Promise<StudioSummary[]> {
   const rows = await db()("memberships as m").join("studios as s", "s.id", "m.studio_id").where("m.user_id", userId).orderBy("s.name").select("s.id", "s.name", "m.role");
@@ -123,10 +122,6 @@ export async function revokeInvitation({ studioId, actorId, invitationId }: { st
     await logActivity(trx, { studioId, actorId, action: "invitation.revoked", subjectType: "invitation", subjectId: invitationId, details: { email: inv.email, role: inv.role } });
   });
 }
-
-export type InvitationView =
-  | { state: "pending"; studioName: string; email: string; role: Role; inviter: string }
-  | { state: "invalid" | "accepted" | "revoked" | "expired" };
 
 export async function viewInvitation(token: string): Promise<InvitationView> {
   const r = await db()("invitations as i").join("studios as s", "s.id", "i.studio_id").join("users as u", "u.id", "i.invited_by").where("i.token_hash", hashToken(token)).first("i.*", "s.name as studio_name", "u.name as inviter");

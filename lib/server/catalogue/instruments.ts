@@ -6,8 +6,7 @@ import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
 import { assertLibrary } from "./libraries";
 import { enqueueRegroup } from "./queue";
-
-export interface InstrumentRow { id: string; key: string; name: string; nameSource: "auto" | "person"; family: string; pitchHz: number | null; sampleCount: number }
+import type { InstrumentRow } from "@/lib/api-types/instruments";
 
 export async function listInstruments({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<InstrumentRow[]> {
   await assertLibrary({ studioId, libraryId });

@@ -5,15 +5,7 @@ import { db } from "../db";
 import { jsonColumn } from "../json-column";
 import { assertLibrary } from "./libraries";
 import type { HealthFinding, Layer } from "@/lib/catalog";
-import type { FeaturePoint, LadderGroup } from "@/lib/types/catalogue";
-
-export type { FeaturePoint, LadderGroup };
-
-export interface HealthView {
-  computedAt: string | null;
-  sampleCount: number;
-  findings: (HealthFinding & { samples: { id: string; path: string }[] })[];
-}
+import type { FeaturePoint, HealthView, LadderGroup, LibraryPlots } from "@/lib/api-types/libraries";
 
 export async function libraryHealth({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<HealthView> {
   await assertLibrary({ studioId, libraryId });
@@ -33,8 +25,7 @@ export async function libraryHealth({ studioId, libraryId }: { studioId: string;
   };
 }
 
-
-export async function libraryPlots({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<{ groups: LadderGroup[]; points: FeaturePoint[] }> {
+export async function libraryPlots({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<LibraryPlots> {
   await assertLibrary({ studioId, libraryId });
   const [groups, samples] = await Promise.all([
     db()("layer_groups").where({ studio_id: studioId, library_id: libraryId }).orderBy("group_key"),

@@ -7,6 +7,7 @@ import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
 import { assertLibrary } from "./libraries";
 import { enqueueRegroup } from "./queue";
+import type { ConfirmAnswer, RelabelAnswer, RelabelBody } from "@/lib/api-types/samples";
 
 async function ownedIds(trx: Knex.Transaction, studioId: string, libraryId: string, ids: string[]): Promise<string[]> {
   const rows = await trx("samples").where({ studio_id: studioId, library_id: libraryId }).whereIn("id", ids).select("id");
@@ -14,10 +15,8 @@ async function ownedIds(trx: Knex.Transaction, studioId: string, libraryId: stri
   return rows.map((r) => r.id);
 }
 
-export interface RelabelInput { sampleIds: string[]; family?: string; articulation?: string; mic?: string | null; instrumentKey?: string }
-
 /** Sets labels on many samples at once; they become confirmed (source "person"), are logged, and trigger a regroup. */
-export async function relabelSamples({ studioId, libraryId, actorId, input }: { studioId: string; libraryId: string; actorId: string; input: RelabelInput }): Promise<{ updated: number }> {
+export async function relabelSamples({ studioId, libraryId, actorId, input }: { studioId: string; libraryId: string; actorId: string; input: RelabelBody }): Promise<RelabelAnswer> {
   await assertLibrary({ studioId, libraryId });
   if (input.instrumentKey) {
     const inst = await db()("instruments").where({ studio_id: studioId, library_id: libraryId, key: input.instrumentKey }).first("id");
@@ -40,7 +39,7 @@ export async function relabelSamples({ studioId, libraryId, actorId, input }: { 
 }
 
 /** Confirms the current family and articulation (and mic, instrument) of catalogued samples as they are. */
-export async function confirmSamples({ studioId, libraryId, actorId, sampleIds }: { studioId: string; libraryId: string; actorId: string; sampleIds: string[] }): Promise<{ confirmed: number; skipped: number }> {
+export async function confirmSamples({ studioId, libraryId, actorId, sampleIds }: { studioId: string; libraryId: string; actorId: string; sampleIds: string[] }): Promise<ConfirmAnswer> {
   await assertLibrary({ studioId, libraryId });
   const confirmed = await db().transaction(async (trx) => {
     await ownedIds(trx, studioId, libraryId, sampleIds);

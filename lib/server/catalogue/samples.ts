@@ -6,16 +6,14 @@ import { db } from "../db";
 import { jsonColumn } from "../json-column";
 import { notFound } from "../errors";
 import { assertLibrary, countsFor } from "./libraries";
-import { countWordMatches, pathContainsMatches, planWords, rowsCapped, searchableByWords, wherePathContains, whereWordsExist, wordMatches, type SearchMode } from "./words";
+import { countWordMatches, pathContainsMatches, planWords, rowsCapped, searchableByWords, wherePathContains, whereWordsExist, wordMatches } from "./words";
+import type { SampleDetail, SampleRow, SamplesPage, SearchMode } from "@/lib/api-types/samples";
 
 /** A words search lists up to this many matching ids at once (more are counted, and pages walk an index). */
 const ID_LIST_MAX = 5000;
 /** A page walk may read three times the rows it should need (evenly spread matches), at least this many. */
 const WALK_ROWS_MIN = 500;
 import type { SampleSort, SamplesQuery } from "@/lib/validation/library";
-import type { SampleRow } from "@/lib/types/catalogue";
-
-export type { SampleRow };
 
 const SORT_COLUMN: Record<SampleSort, string> = {
   name: "s.file_name",
@@ -66,15 +64,6 @@ function filtered(k: Knex, studioId: string, libraryId: string, q: Omit<SamplesQ
   return b;
 }
 
-export interface SamplesPage {
-  rows: SampleRow[];
-  total: number;
-  page: number;
-  pageSize: number;
-  /** How a search term was matched: "words" (path words starting with each word typed) or "contains" (the
-   * fallback when no word starts with it, or the term has no letters or digits). */
-  search?: SearchMode;
-}
 
 export async function listSamples({ studioId, libraryId, query }: { studioId: string; libraryId: string; query: SamplesQuery }): Promise<SamplesPage> {
   await assertLibrary({ studioId, libraryId });
@@ -188,7 +177,7 @@ async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, 
   return { rows: found.map(toRow), total };
 }
 
-export async function getSample({ studioId, libraryId, sampleId }: { studioId: string; libraryId: string; sampleId: string }) {
+export async function getSample({ studioId, libraryId, sampleId }: { studioId: string; libraryId: string; sampleId: string }): Promise<SampleDetail> {
   const r = await db()("samples as s")
     .leftJoin("instruments as i", function () {
       this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");

@@ -7,26 +7,12 @@ import { newId } from "../ids";
 import { logActivity } from "../activity";
 import { jsonColumn } from "../json-column";
 import { runAudit } from "@/lib/audit/audit";
-import { diffAudits, type AuditDiff } from "@/lib/audit/export";
+import { diffAudits } from "@/lib/audit/export";
 import type { AuditResult } from "@/lib/audit/types";
+import type { AuditComparison, AuditRecord, AuditSummaryRow, StudioCatalogueInstrument } from "@/lib/api-types/audits";
 import { getKit } from "./kits";
 import { getLayout } from "./layouts";
-import { loadStudioCatalogue, type StudioCatalogueInstrument } from "./catalogue-for-audit";
-
-export interface AuditSummaryRow {
-  id: string;
-  layoutId: string;
-  kitId: string | null;
-  layoutName: string;
-  kitName: string;
-  score: number;
-  silentPads: number;
-  standInPads: number;
-  conflicts: number;
-  createdAt: string;
-  createdBy: string | null;
-}
-export interface AuditRecord extends AuditSummaryRow { result: AuditResult }
+import { loadStudioCatalogue } from "./catalogue-for-audit";
 
 const iso = (d: unknown) => new Date(d as string).toISOString();
 
@@ -72,7 +58,7 @@ export async function getAudit({ studioId, auditId }: { studioId: string; auditI
 }
 
 /** What changed between two audits of the same layout. */
-export async function compareAudits({ studioId, before, after }: { studioId: string; before: string; after: string }): Promise<{ before: AuditSummaryRow; after: AuditSummaryRow; diff: AuditDiff }> {
+export async function compareAudits({ studioId, before, after }: { studioId: string; before: string; after: string }): Promise<AuditComparison> {
   const [a, b] = await Promise.all([getAudit({ studioId, auditId: before }), getAudit({ studioId, auditId: after })]);
   if (a.layoutId !== b.layoutId) throw new AppError("invalid-input", "Only audits of the same layout can be compared.");
   const { result: ra, ...sa } = a;

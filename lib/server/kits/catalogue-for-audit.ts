@@ -8,26 +8,9 @@ import "server-only";
 import type { Knex } from "knex";
 import { db } from "../db";
 import { jsonColumnOrNull } from "../json-column";
-import type { Family } from "@/lib/catalog/taxonomy";
 import { readCatalogue } from "@/lib/audit/catalogue-input";
-import type { CatalogueInstrument } from "@/lib/audit/types";
-
-/** One instrument as the kit editor lists it (family, library, sample counts). */
-export interface InstrumentChoice {
-  id: string;
-  name: string;
-  family: Family;
-  libraryId: string;
-  libraryName: string;
-  pitchHz: number | null;
-  sampleCount: number;
-  articulations: string[];
-}
-
-/** The catalogue instrument plus the library it belongs to (the audition fetches sample audio per library). */
-export interface StudioCatalogueInstrument extends CatalogueInstrument {
-  libraryId: string;
-}
+import type { InstrumentChoice } from "@/lib/api-types/kits";
+import type { StudioCatalogueInstrument } from "@/lib/api-types/audits";
 
 /**
  * The studio's catalogue for lib/audit (every library, or only the given instrument ids), with what the

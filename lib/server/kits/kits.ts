@@ -10,10 +10,8 @@ import { jsonColumn } from "../json-column";
 import { buildDefaultKit } from "@/lib/audit/kits";
 import { getTemplate } from "@/lib/audit/templates";
 import type { Kit, KitSlot } from "@/lib/audit/types";
+import type { KitRecord, KitSummary } from "@/lib/api-types/kits";
 import { loadStudioCatalogue } from "./catalogue-for-audit";
-
-export interface KitSummary { id: string; name: string; slots: number; filled: number; updatedAt: string }
-export interface KitRecord { id: string; name: string; kit: Kit; createdAt: string; updatedAt: string }
 
 const iso = (d: unknown) => new Date(d as string).toISOString();
 

@@ -9,9 +9,7 @@ import { logActivity } from "../activity";
 import { jsonColumn } from "../json-column";
 import { getTemplate } from "@/lib/audit/templates";
 import type { Layout, Pad } from "@/lib/audit/types";
-
-export interface LayoutSummary { id: string; name: string; kind: "grid" | "zones"; rows: number | null; cols: number | null; pads: number; pedal: boolean; updatedAt: string }
-export interface LayoutRecord { id: string; name: string; layout: Layout; createdAt: string; updatedAt: string }
+import type { LayoutRecord, LayoutSummary } from "@/lib/api-types/layouts";
 
 const iso = (d: unknown) => new Date(d as string).toISOString();
 

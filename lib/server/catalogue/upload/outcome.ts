@@ -2,19 +2,9 @@ import "server-only";
 // What an upload answers for each file: a status, a stable code when it is refused, and a reason in our words
 // (a library's or the database's own message goes to the server's log, never to the person).
 
-export type UploadStatus = "queued" | "duplicate" | "refused";
-export interface UploadFileResult {
-  name: string;
-  status: UploadStatus;
-  reason?: string;
-  /** Stable code of the refusal: not-wav, rf64, too-large, bad-path, path-too-long, bad-name, too-many, zip-*, empty, interrupted, error. */
-  code?: string;
-  sampleId?: string;
-}
-export interface UploadSummary {
-  files: UploadFileResult[];
-  counts: { queued: number; duplicate: number; refused: number };
-}
+import type { UploadFileResult, UploadStatus, UploadSummary } from "@/lib/api-types/uploads";
+
+export type { UploadFileResult, UploadStatus, UploadSummary };
 
 /** A file refused by a check: its code and reason are the file's outcome. */
 export class Refusal extends Error {
