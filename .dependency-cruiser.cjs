@@ -4,9 +4,11 @@
 //   lib/audio, lib/catalog, lib/audit   the pure core: each other and their listed packages only, no Node built-in
 //   lib/synth                           pure too: the core and itself
 //   lib/audio-pool                      lib/audio, Node built-ins and tsx (its thread bootstrap) only
-//   lib/types                           neutral shapes for server and client: the pure core only
+//   lib/api-types                       request/answer types for server and client: types only (data-layer.test.ts),
+//                                       importing the pure core, lib/validation, lib/permissions and zod at most
 //   lib/server                          anything but workers/, cli/, app/, components/
-//   components/                         never lib/server (types they draw live in lib/types)
+//   components/                         never lib/server (types they draw live in lib/api-types); their tests
+//                                       may read lib/server/errors.ts (the error answers the client must read)
 //   cli/                                never lib/server, workers/, app/, components/
 //   workers/                            only wiring; nothing outside workers/ imports it
 //
@@ -52,10 +54,10 @@ module.exports = {
     },
     {
       name: "types-are-neutral",
-      comment: "lib/types holds shapes both server and client import: it imports the pure core at most",
+      comment: "lib/api-types holds the request and answer shapes both server and client import: it imports the pure core, lib/validation, lib/permissions and zod at most, never the server",
       severity: "error",
-      from: { path: "^lib/types/" },
-      to: { pathNot: ["^lib/(audio|catalog|audit|types)/"] },
+      from: { path: "^lib/api-types/" },
+      to: { pathNot: ["^lib/(audio|catalog|audit|api-types|validation)/", "^lib/permissions\\.ts$", pkg(["zod"])] },
     },
     {
       name: "server-never-imports-up",
@@ -73,10 +75,17 @@ module.exports = {
     },
     {
       name: "components-not-server",
-      comment: "client components never import lib/server (not even its types: those live in lib/types)",
+      comment: "client components never import lib/server (not even its types: those live in lib/api-types)",
       severity: "error",
-      from: { path: "^components/" },
+      from: { path: "^components/", pathNot: TEST_FILE },
       to: { path: "^lib/server/" },
+    },
+    {
+      name: "component-tests-only-the-error-door",
+      comment: "tests of components/ may import lib/server/errors.ts (to read the answers the server's door really writes), nothing else of lib/server",
+      severity: "error",
+      from: { path: `^components/.*${TEST_FILE}` },
+      to: { path: "^lib/server/", pathNot: "^lib/server/errors\\.ts$" },
     },
     {
       name: "cli-without-server",

@@ -1,21 +1,30 @@
 // kitwright audit --layout <layout.json | template name> --catalogue <folder | catalogue.json> [--kit <kit.json>]
-//                 [--json | --csv] [--smf <out.mid>]
+//                 [--csv | --json] [--smf <out.mid>]   (the export formats of lib/audit/export-formats.ts)
 // Runs the coverage audit offline. Exit status: 0 when every pad plays something, 1 when any pad (or pedal
 // zone, or the pedal chick note) is silent, 2 on bad input (the message says what and where).
 
 import { readFile, stat, writeFile } from "node:fs/promises";
 import { hasSilentPads, runAudit } from "../lib/audit/audit";
 import { readCatalogue } from "../lib/audit/catalogue-input";
-import { auditToCsv, auditToJson } from "../lib/audit/export";
+import { EXPORT_FORMATS, type ExportFormat, type ExportFormatId } from "../lib/audit/export-formats";
 import { buildDefaultKit } from "../lib/audit/kits";
 import { parseKitFile, parseLayoutFile, SchemaError } from "../lib/audit/schema";
-import { auditToSmf } from "../lib/audit/smf";
 import { TEMPLATE_NAMES, getTemplate } from "../lib/audit/templates";
 import { catalogueFolder as sortFolder } from "./catalogue";
 import type { AuditResult, CatalogueInstrument, Kit, Layout, PlayFinding } from "../lib/audit/types";
 
+/** Formats printed to standard output (one at a time; text when none) and formats written to a named file. */
+const STDOUT_FORMATS = EXPORT_FORMATS.filter((f) => f.cli.to === "stdout");
+const FILE_FORMATS = EXPORT_FORMATS.filter((f) => f.cli.to === "file");
+
+/** The output options, as the usage lines show them: "[--csv | --json] [--smf <out.mid>]". */
+export const OUTPUT_USAGE = [
+  `[${STDOUT_FORMATS.map((f) => f.cli.flag).join(" | ")}]`,
+  ...FILE_FORMATS.map((f) => `[${f.cli.flag}${f.cli.to === "file" ? ` ${f.cli.placeholder}` : ""}]`),
+].join(" ");
+
 const USAGE = `usage: kitwright audit --layout <layout.json | template> --catalogue <folder | catalogue.json>
-                       [--kit <kit.json>] [--json | --csv] [--smf <out.mid>]
+                       [--kit <kit.json>] ${OUTPUT_USAGE}
 
 templates: ${TEMPLATE_NAMES.join(", ")}
 exit status: 0 every pad plays, 1 some pad is silent, 2 bad input
@@ -27,14 +36,17 @@ interface Options {
   layout: string;
   catalogue: string;
   kit: string | null;
-  format: "text" | "json" | "csv";
-  smf: string | null;
+  format: "text" | ExportFormatId;
+  /** Formats written to files: the format and the file. */
+  files: { format: ExportFormat; path: string }[];
 }
 
 function parseArgs(args: string[]): Options | "help" {
-  const o: Partial<Options> = { kit: null, format: "text", smf: null };
+  const o: Partial<Options> & Pick<Options, "files"> = { kit: null, format: "text", files: [] };
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
+    const toFile = FILE_FORMATS.find((f) => f.cli.flag === a);
+    const toStdout = STDOUT_FORMATS.find((f) => f.cli.flag === a);
     const value = () => {
       const v = args[++i];
       if (v === undefined || v.startsWith("--")) throw new UsageError(`${a} needs a value`);
@@ -44,11 +56,10 @@ function parseArgs(args: string[]): Options | "help" {
     else if (a === "--layout") o.layout = value();
     else if (a === "--catalogue" || a === "--catalog") o.catalogue = value();
     else if (a === "--kit") o.kit = value();
-    else if (a === "--smf") o.smf = value();
-    else if (a === "--json" || a === "--csv") {
-      const f = a.slice(2) as "json" | "csv";
-      if (o.format !== "text" && o.format !== f) throw new UsageError("choose one of --json and --csv");
-      o.format = f;
+    else if (toFile) o.files.push({ format: toFile, path: value() });
+    else if (toStdout) {
+      if (o.format !== "text" && o.format !== toStdout.id) throw new UsageError(`choose one of ${STDOUT_FORMATS.map((x) => x.cli.flag).join(" and ")}`);
+      o.format = toStdout.id;
     } else throw new UsageError(`unknown option ${a}`);
   }
   if (!o.layout) throw new UsageError("--layout is required");
@@ -148,10 +159,13 @@ export async function run(args: string[]): Promise<number> {
     const catalogue = await loadCatalogue(opts.catalogue, warn);
     const kit: Kit = opts.kit ? parseKitFile(await readJson(opts.kit, "kit")) : buildDefaultKit(layout, catalogue);
     const result = runAudit(layout, kit, catalogue);
-    if (opts.format === "json") process.stdout.write(JSON.stringify(auditToJson(result), null, 2) + "\n");
-    else if (opts.format === "csv") process.stdout.write(auditToCsv(result));
-    else process.stdout.write(formatText(result));
-    if (opts.smf) await writeFile(opts.smf, auditToSmf(result));
+    if (opts.format === "text") process.stdout.write(formatText(result));
+    else {
+      const out = EXPORT_FORMATS.find((f) => f.id === opts.format)!.serialize(result);
+      // text ends with a line break (CSV has its CRLF; JSON gets one)
+      process.stdout.write(typeof out === "string" && !out.endsWith("\n") ? out + "\n" : out);
+    }
+    for (const f of opts.files) await writeFile(f.path, f.format.serialize(result));
     return hasSilentPads(result) ? 1 : 0;
   } catch (e) {
     if (e instanceof UsageError || e instanceof SchemaError) {

@@ -11,7 +11,7 @@ const USAGE = `usage: kitwright <command> [options]
 commands:
   measure <files or folders> [--json | --csv]     measure WAV one-shots, list refused files with reasons
   catalogue <folder> [--json | --csv]             sort a folder into instruments, articulations, layers
-  audit --layout <file|template> --catalogue <folder> [--kit <kit.json>] [--json | --csv]
+  audit --layout <file|template> --catalogue <folder> [--kit <kit.json>] ${audit.OUTPUT_USAGE}
                                                   audit a pad layout against a catalogued folder
 `;
 

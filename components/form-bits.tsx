@@ -1,6 +1,9 @@
 "use client";
-// Small form building blocks shared by every form: a labelled field and a message line.
+// Small form building blocks shared by every form: a labelled field, a message line, and the one way a form
+// shows a write that failed. Every write is a mutation hook of components/data: the form disables its button
+// while `m.isPending` and shows `<FormError error={m.error} />` (nothing when there is no error).
 import type { InputHTMLAttributes } from "react";
+import { ApiError } from "./data/api";
 
 export function Field({ label, hint, error, ...input }: InputHTMLAttributes<HTMLInputElement> & { label: string; hint?: string; error?: string }) {
   const id = input.id ?? input.name;
@@ -31,4 +34,19 @@ export function fieldErrors(issues: { path: PropertyKey[]; message: string }[]):
     if (!(k in out)) out[k] = i.message;
   }
   return out;
+}
+
+/** The words for a failed write: the server's message, or `fallback` when no answer came (network, crash). */
+export function errorText(error: unknown, fallback = "Something went wrong; try again."): string {
+  return error instanceof ApiError ? error.message : fallback;
+}
+
+/**
+ * A failed write, in words: a message box, or with `compact` a small line for controls inside a row.
+ * Renders nothing while there is no error.
+ */
+export function FormError({ error, fallback, compact = false, className = "" }: { error: unknown; fallback?: string; compact?: boolean; className?: string }) {
+  if (!error) return null;
+  if (compact) return <span role="alert" className={`text-xs text-bad ${className}`}>{errorText(error, fallback)}</span>;
+  return <Message kind="error">{errorText(error, fallback)}</Message>;
 }

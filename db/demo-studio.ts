@@ -2,12 +2,13 @@
 // the seeds. Run under `node --conditions=react-server --import tsx` (server-only modules).
 import { findUserByEmail } from "../lib/server/auth/accounts";
 import { listStudiosForUser } from "../lib/server/studios";
+import { CREATOR_ROLE } from "../lib/permissions";
 import { DEMO_ACCOUNTS, DEMO_STUDIO } from "./demo-accounts";
 
 /** The demo studio (found through its owner's studios) and the owner's id, or null when not seeded yet. */
 export async function findDemoStudio(): Promise<{ studioId: string; ownerId: string } | null> {
   const owner = await findUserByEmail(DEMO_ACCOUNTS[0].email);
   if (!owner) return null;
-  const studio = (await listStudiosForUser(owner.id)).find((s) => s.name === DEMO_STUDIO && s.role === "owner");
+  const studio = (await listStudiosForUser(owner.id)).find((s) => s.name === DEMO_STUDIO && s.role === CREATOR_ROLE);
   return studio ? { studioId: studio.id, ownerId: owner.id } : null;
 }

@@ -3,8 +3,9 @@ import crypto from "node:crypto";
 import bcrypt from "bcryptjs";
 import type { Knex } from "knex";
 import { encode } from "next-auth/jwt";
+import { CREATOR_ROLE, type Role } from "../lib/permissions";
 
-export type Role = "owner" | "editor" | "viewer";
+export type { Role };
 
 export async function createUser(
   k: Knex,
@@ -34,7 +35,7 @@ export async function createSessionCookie(k: Knex, userId: string, secret: strin
 export async function createStudio(k: Knex, s: { name: string; ownerId: string }): Promise<{ id: string; name: string }> {
   const id = crypto.randomUUID();
   await k("studios").insert({ id, name: s.name, created_by: s.ownerId });
-  await k("memberships").insert({ studio_id: id, user_id: s.ownerId, role: "owner" });
+  await k("memberships").insert({ studio_id: id, user_id: s.ownerId, role: CREATOR_ROLE });
   await k("activity").insert({ studio_id: id, actor_id: s.ownerId, action: "studio.created", subject_type: "studio", subject_id: id, details: JSON.stringify({ name: s.name }) });
   return { id, name: s.name };
 }

@@ -1,8 +1,8 @@
 // Layering, checked by a tool (dependency-cruiser, rules in .dependency-cruiser.cjs): the pure core imports
 // only itself and its listed packages, lib/server never imports up into workers/, components never import
-// lib/server, the CLI runs without the server, nothing but workers/ imports workers/. First the repository
-// itself must have no violation; then a small tree built here, with one breach of each rule, must be caught
-// rule by rule (so the check cannot pass by seeing nothing).
+// lib/server (they read lib/api-types), the CLI runs without the server, nothing but workers/ imports
+// workers/. First the repository itself must have no violation; then a small tree built here, with one breach
+// of each rule, must be caught rule by rule (so the check cannot pass by seeing nothing).
 import { execFile } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
@@ -57,7 +57,12 @@ describe("layering (dependency-cruiser)", () => {
       "cli/x.ts": 'import { s } from "../lib/server/s";\nexport const x = s;\n',
       "lib/audio-pool/p.ts": 'import { c } from "../catalog/ok";\nexport const p = c;\n',
       "lib/synth/s.ts": 'import { s } from "../server/s";\nexport const y = s;\n',
-      "lib/types/t.ts": 'import type { S } from "../server/types";\nexport type T = S;\n',
+      "lib/api-types/t.ts": 'import type { S } from "../server/types";\nexport type T = S;\n',
+      "lib/api-types/ok.ts": "export type A = { id: string };\n",
+      "components/uses-api-types.tsx": 'import type { A } from "../lib/api-types/ok";\nexport const u: A | null = null;\n', // allowed
+      "components/c.test.ts": 'import { s } from "../lib/server/s";\nexport const t = s;\n',
+      "components/reads-errors.test.ts": 'import { e } from "../lib/server/errors";\nexport const t = e;\n', // allowed
+      "lib/server/errors.ts": "export const e = 1;\n",
     };
     for (const [f, text] of Object.entries(files)) {
       fs.mkdirSync(path.join(tmp, path.dirname(f)), { recursive: true });
@@ -72,13 +77,17 @@ describe("layering (dependency-cruiser)", () => {
       "pure-core-tests-stay-out-of-the-server: lib/catalog/ok.test.ts -> lib/server/s.ts",
       "server-never-imports-up: lib/server/s.ts -> workers/w.ts",
       "components-not-server: components/c.tsx -> lib/server/types.ts",
+      "component-tests-only-the-error-door: components/c.test.ts -> lib/server/s.ts",
       "cli-without-server: cli/x.ts -> lib/server/s.ts",
       "only-workers-import-workers: lib/server/s.ts -> workers/w.ts",
       "audio-pool-imports-audio-and-node-only: lib/audio-pool/p.ts -> lib/catalog/ok.ts",
       "synth-is-pure: lib/synth/s.ts -> lib/server/s.ts",
-      "types-are-neutral: lib/types/t.ts -> lib/server/types.ts",
+      "types-are-neutral: lib/api-types/t.ts -> lib/server/types.ts",
     ]) expect(got, want).toContain(want);
-    // core to core is allowed
+    // core to core is allowed, and so are components reading the shared request and answer types
     expect([...got].some((g) => g.includes("lib/catalog/ok.ts -> lib/audit/ok.ts"))).toBe(false);
+    expect([...got].some((g) => g.includes("components/uses-api-types.tsx"))).toBe(false);
+    // a component's test may read the server's error answers, and only those
+    expect([...got].some((g) => g.includes("components/reads-errors.test.ts"))).toBe(false);
   }, 120_000);
 });

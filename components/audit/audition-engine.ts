@@ -1,6 +1,7 @@
-// Audition in the browser with Web Audio: pick the layer a velocity falls in, cycle its round robins, fetch
-// the sample audio from the studio's sample audio route and play it through a master level (starting at
-// -24 dB) and an optional limiter (DynamicsCompressorNode with a high ratio and fast attack).
+// Audition in the browser with Web Audio: pick the layer a velocity falls in, cycle its round robins, load
+// the sample audio (through the loader it is given: components/data/samples.ts loadSampleAudio) and play it
+// through a master level (starting at -24 dB) and an optional limiter (DynamicsCompressorNode with a high
+// ratio and fast attack).
 import type { PlayFinding } from "@/lib/audit/types";
 
 export interface SoundLayer { index: number; velocityLow: number; velocityHigh: number; sampleIds: string[] }
@@ -36,7 +37,7 @@ export class AuditionEngine {
   private buffers = new Map<string, Promise<AudioBuffer>>();
   private rr = new Map<string, number>();
 
-  constructor(private studioId: string) {}
+  constructor(private loadAudio: (libraryId: string, sampleId: string) => Promise<ArrayBuffer>) {}
 
   private ensure(): AudioContext {
     if (!this.ctx) {
@@ -72,11 +73,7 @@ export class AuditionEngine {
   private load(libraryId: string, sampleId: string): Promise<AudioBuffer> {
     let p = this.buffers.get(sampleId);
     if (!p) {
-      p = fetch(`/api/studios/${this.studioId}/libraries/${libraryId}/samples/${sampleId}/audio`, { credentials: "same-origin" })
-        .then(async (r) => {
-          if (!r.ok) throw new Error(`the server answered ${r.status} for the sample audio`);
-          return this.ensure().decodeAudioData(await r.arrayBuffer());
-        });
+      p = this.loadAudio(libraryId, sampleId).then((bytes) => this.ensure().decodeAudioData(bytes));
       p.catch(() => this.buffers.delete(sampleId));
       this.buffers.set(sampleId, p);
     }

@@ -10,6 +10,9 @@ import { AuditionEngine, START_LEVEL_DB, type SoundInstrument } from "./audition
 import { MiddleCSetting, noteName, useMiddleC } from "@/components/midi/notes";
 import { useMidi, type MidiEvent } from "@/components/midi/use-midi";
 import { MidiMonitor, MidiStatusLine } from "@/components/midi/midi-panel";
+import { errorText } from "@/components/form-bits";
+import { useAuditSoundsLoader } from "@/components/data/audits";
+import { loadSampleAudio } from "@/components/data/samples";
 
 const CAUTION_KEY = "kw.hearingCaution.v1";
 
@@ -43,24 +46,21 @@ export function PadChart({ studioId, auditId, result }: { studioId: string; audi
   const [pending, setPending] = useState<{ p: PadFinding; v: number } | null>(null);
   const [active, setActive] = useState<string | null>(null);
   const [events, setEvents] = useState<MidiEvent[]>([]);
+  const loadSounds = useAuditSoundsLoader(studioId, auditId);
 
   useEffect(() => () => engine.current?.close(), []);
 
   const doPlay = useCallback(async (p: PadFinding, v: number) => {
     setActive(p.padId);
-    if (!engine.current) { engine.current = new AuditionEngine(studioId); engine.current.setLevel(level); engine.current.setLimiter(limiter); }
+    if (!engine.current) { engine.current = new AuditionEngine((libraryId, sampleId) => loadSampleAudio(studioId, libraryId, sampleId)); engine.current.setLevel(level); engine.current.setLimiter(limiter); }
     try {
-      if (!sounds.current) {
-        const r = await fetch(`/api/studios/${studioId}/audits/${auditId}/sounds`, { credentials: "same-origin" });
-        if (!r.ok) throw new Error(`the server answered ${r.status}`);
-        sounds.current = ((await r.json()) as { instruments: SoundInstrument[] }).instruments;
-      }
+      if (!sounds.current) sounds.current = await loadSounds();
       const info = await engine.current.play(p, v, sounds.current);
       setLine({ ok: info.ok, text: `${p.label}: ${info.text}` });
     } catch (e) {
-      setLine({ ok: false, text: `Could not load the sounds: ${(e as Error).message}.` });
+      setLine({ ok: false, text: `Could not load the sounds: ${errorText(e, "no answer from the server").replace(/\.$/, "")}.` });
     }
-  }, [studioId, auditId, level, limiter]);
+  }, [studioId, level, limiter, loadSounds]);
 
   const play = useCallback((p: PadFinding, v: number) => {
     if (typeof window !== "undefined" && !localStorage.getItem(CAUTION_KEY)) { setPending({ p, v }); return; }

@@ -2,25 +2,21 @@
 // Run an audit: a layout against a kit, with the studio's current catalogue.
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { api, ApiError } from "@/components/api";
-import { Message } from "@/components/form-bits";
+import { FormError } from "@/components/form-bits";
+import { useRunAudit } from "@/components/data/audits";
 
 export function RunAuditForm({ studioId, layouts, kits, layoutId, kitId }: { studioId: string; layouts: Array<{ id: string; name: string }>; kits: Array<{ id: string; name: string }>; layoutId?: string; kitId?: string }) {
   const router = useRouter();
   const [l, setL] = useState(layoutId ?? layouts[0]?.id ?? "");
   const [k, setK] = useState(kitId ?? kits[0]?.id ?? "");
-  const [err, setErr] = useState("");
-  const [busy, setBusy] = useState(false);
+  const run = useRunAudit(studioId);
+  // stays busy after success until the new audit's page replaces this one
+  const busy = run.isPending || run.isSuccess;
   if (!layouts.length || !kits.length) return <p className="text-sm text-muted">Make a layout and a kit first.</p>;
   return (
-    <form className="space-y-3" onSubmit={async (e) => {
+    <form className="space-y-3" onSubmit={(e) => {
       e.preventDefault();
-      setBusy(true);
-      setErr("");
-      try {
-        const r = await api<{ audit: { id: string } }>(`/api/studios/${studioId}/audits`, { body: { layoutId: l, kitId: k } });
-        router.push(`/s/${studioId}/audits/${r.audit.id}`);
-      } catch (x) { setErr(x instanceof ApiError ? x.message : String(x)); setBusy(false); }
+      run.mutate({ layoutId: l, kitId: k }, { onSuccess: (audit) => router.push(`/s/${studioId}/audits/${audit.id}`) });
     }}>
       <div>
         <label className="label" htmlFor="audit-layout">Layout</label>
@@ -31,7 +27,7 @@ export function RunAuditForm({ studioId, layouts, kits, layoutId, kitId }: { stu
         <select id="audit-kit" className="field" value={k} onChange={(e) => setK(e.target.value)}>{kits.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</select>
       </div>
       <button className="btn-primary" disabled={busy}>{busy ? "Auditing…" : "Run audit"}</button>
-      {err && <Message kind="error">{err}</Message>}
+      <FormError error={run.error} />
     </form>
   );
 }

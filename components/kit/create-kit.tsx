@@ -2,8 +2,8 @@
 // New kit: empty, or filled from the studio's catalogue for the slots a layout template expects.
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { api, ApiError } from "@/components/api";
-import { Message } from "@/components/form-bits";
+import { FormError } from "@/components/form-bits";
+import { useCreateKit } from "@/components/data/kits";
 
 export const TEMPLATE_LABELS: Record<string, string> = {
   "gm-percussion": "General MIDI percussion map (47 notes)",
@@ -16,17 +16,13 @@ export function CreateKitForm({ studioId }: { studioId: string }) {
   const router = useRouter();
   const [name, setName] = useState("");
   const [template, setTemplate] = useState("");
-  const [err, setErr] = useState("");
-  const [busy, setBusy] = useState(false);
+  const create = useCreateKit(studioId);
+  // stays busy after success until the new kit's page replaces this one
+  const busy = create.isPending || create.isSuccess;
   return (
-    <form className="space-y-3" onSubmit={async (e) => {
+    <form className="space-y-3" onSubmit={(e) => {
       e.preventDefault();
-      setBusy(true);
-      setErr("");
-      try {
-        const r = await api<{ kit: { id: string } }>(`/api/studios/${studioId}/kits`, { body: { name, ...(template ? { template } : {}) } });
-        router.push(`/s/${studioId}/kits/${r.kit.id}`);
-      } catch (x) { setErr(x instanceof ApiError ? x.message : String(x)); setBusy(false); }
+      create.mutate({ name, ...(template ? { template } : {}) }, { onSuccess: (kit) => router.push(`/s/${studioId}/kits/${kit.id}`) });
     }}>
       <div>
         <label className="label" htmlFor="kit-name">Kit name</label>
@@ -41,7 +37,7 @@ export function CreateKitForm({ studioId }: { studioId: string }) {
         <p className="mt-1 text-xs text-muted">Filling picks one catalogued instrument per slot (toms high to low by measured pitch); you can change every slot afterwards.</p>
       </div>
       <button className="btn-primary" disabled={busy}>Create kit</button>
-      {err && <Message kind="error">{err}</Message>}
+      <FormError error={create.error} />
     </form>
   );
 }

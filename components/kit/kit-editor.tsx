@@ -4,13 +4,12 @@
 // measured pitch, high to low.
 import { useMemo, useState } from "react";
 import { useRouter } from "next/navigation";
-import { api, ApiError } from "@/components/api";
-import { Message } from "@/components/form-bits";
+import { FormError, Message } from "@/components/form-bits";
+import { useSaveKitSlots } from "@/components/data/kits";
 import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalog/taxonomy";
 import { orderTomsByPitch } from "@/lib/audit/kits";
 import type { Kit, KitSlot } from "@/lib/audit/types";
-
-export interface InstrumentChoice { id: string; name: string; family: Family; libraryId: string; libraryName: string; pitchHz: number | null; sampleCount: number; articulations: string[] }
+import type { InstrumentChoice } from "@/lib/api-types/kits";
 
 /** Assign the instruments held by tom slots to those slots from high to low measured pitch (slot order kept). */
 export function orderTomSlots(slots: KitSlot[], instruments: InstrumentChoice[]): KitSlot[] {
@@ -31,8 +30,7 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
   const router = useRouter();
   const [slots, setSlots] = useState<KitSlot[]>(kit.slots);
   const [dirty, setDirty] = useState(false);
-  const [msg, setMsg] = useState<{ kind: "error" | "ok"; text: string } | null>(null);
-  const [busy, setBusy] = useState(false);
+  const saveSlots = useSaveKitSlots(studioId, kit.id);
   const byId = useMemo(() => new Map(instruments.map((i) => [i.id, i])), [instruments]);
   const byFamily = useMemo(() => {
     const m = new Map<Family, InstrumentChoice[]>();
@@ -40,7 +38,7 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
     return m;
   }, [instruments]);
 
-  const change = (next: KitSlot[]) => { setSlots(next); setDirty(true); setMsg(null); };
+  const change = (next: KitSlot[]) => { setSlots(next); setDirty(true); saveSlots.reset(); };
   const patch = (i: number, p: Partial<KitSlot>) => change(slots.map((s, j) => (j === i ? { ...s, ...p } : s)));
   const move = (i: number, d: number) => {
     const j = i + d;
@@ -56,17 +54,13 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
     change([...slots, { id: `slot-${n}`, name: `Slot ${n}`, family: "snare", instrumentId: null }]);
   };
 
-  async function save() {
-    setBusy(true);
-    try {
-      await api(`/api/studios/${studioId}/kits/${kit.id}`, { method: "PATCH", body: { slots } });
-      setDirty(false);
-      setMsg({ kind: "ok", text: "Kit saved." });
-      router.refresh();
-    } catch (e) {
-      setMsg({ kind: "error", text: e instanceof ApiError ? e.message : String(e) });
-    } finally { setBusy(false); }
-  }
+  const save = () =>
+    saveSlots.mutate(slots, {
+      onSuccess: () => {
+        setDirty(false);
+        router.refresh();
+      },
+    });
 
   const instLabel = (i: InstrumentChoice) => `${i.name} — ${i.libraryName} · ${i.sampleCount} samples${i.pitchHz ? ` · ${Math.round(i.pitchHz)} Hz` : ""}`;
 
@@ -161,9 +155,10 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
         <div className="no-print sticky bottom-0 flex flex-wrap items-center gap-2 border-t border-line bg-paper py-3">
           <button type="button" className="btn-quiet" onClick={addSlot}>Add slot</button>
           <button type="button" className="btn-quiet" onClick={() => change(orderTomSlots(slots, instruments))} title="Tom slots keep their places; the toms they hold are reordered from the highest measured pitch to the lowest">Order toms by pitch (high → low)</button>
-          <button type="button" className="btn-primary" onClick={save} disabled={busy || !dirty}>Save kit</button>
+          <button type="button" className="btn-primary" onClick={save} disabled={saveSlots.isPending || !dirty}>Save kit</button>
           {dirty && <span className="text-sm text-warn">● unsaved changes</span>}
-          {msg && <Message kind={msg.kind}>{msg.text}</Message>}
+          {saveSlots.isSuccess && <Message kind="ok">Kit saved.</Message>}
+          <FormError error={saveSlots.error} />
         </div>
       )}
     </div>

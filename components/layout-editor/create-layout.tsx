@@ -2,8 +2,8 @@
 // New layout: a blank grid (rows × columns, up to 64 pads), a blank trigger-zone list, or a template.
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { api, ApiError } from "@/components/api";
-import { Message } from "@/components/form-bits";
+import { FormError } from "@/components/form-bits";
+import { useCreateLayout } from "@/components/data/layouts";
 import { TEMPLATE_LABELS } from "@/components/kit/create-kit";
 
 export function CreateLayoutForm({ studioId }: { studioId: string }) {
@@ -13,19 +13,15 @@ export function CreateLayoutForm({ studioId }: { studioId: string }) {
   const [rows, setRows] = useState(4);
   const [cols, setCols] = useState(4);
   const [zones, setZones] = useState(8);
-  const [err, setErr] = useState("");
-  const [busy, setBusy] = useState(false);
+  const create = useCreateLayout(studioId);
+  // stays busy after success until the new layout's page replaces this one
+  const busy = create.isPending || create.isSuccess;
   const tooMany = kind === "grid" && rows * cols > 64;
   return (
-    <form className="space-y-3" onSubmit={async (e) => {
+    <form className="space-y-3" onSubmit={(e) => {
       e.preventDefault();
-      setBusy(true);
-      setErr("");
       const body = kind === "grid" ? { name, grid: { rows, cols } } : kind === "zones" ? { name, zones } : { name, template: kind };
-      try {
-        const r = await api<{ layout: { id: string } }>(`/api/studios/${studioId}/layouts`, { body });
-        router.push(`/s/${studioId}/layouts/${r.layout.id}`);
-      } catch (x) { setErr(x instanceof ApiError ? x.message : String(x)); setBusy(false); }
+      create.mutate(body, { onSuccess: (layout) => router.push(`/s/${studioId}/layouts/${layout.id}`) });
     }}>
       <div>
         <label className="label" htmlFor="layout-name">Layout name</label>
@@ -50,7 +46,7 @@ export function CreateLayoutForm({ studioId }: { studioId: string }) {
         <div><label className="label" htmlFor="layout-zones">Trigger zones</label><input id="layout-zones" type="number" min={1} max={128} className="field num" value={zones} onChange={(e) => setZones(Math.max(1, Number(e.target.value) || 1))} /></div>
       )}
       <button className="btn-primary" disabled={busy || tooMany}>Create layout</button>
-      {err && <Message kind="error">{err}</Message>}
+      <FormError error={create.error} />
     </form>
   );
 }

@@ -4,8 +4,8 @@
 // "learn pedal" (move the pedal: its controller number is captured) and a live MIDI monitor.
 import { useCallback, useMemo, useRef, useState } from "react";
 import { useRouter } from "next/navigation";
-import { api, ApiError } from "@/components/api";
-import { Message } from "@/components/form-bits";
+import { FormError, Message } from "@/components/form-bits";
+import { useSaveLayout } from "@/components/data/layouts";
 import { useMidi, type MidiEvent } from "@/components/midi/use-midi";
 import { MidiMonitor, MidiStatusLine } from "@/components/midi/midi-panel";
 import { MiddleCSetting, noteName, useMiddleC } from "@/components/midi/notes";
@@ -26,8 +26,10 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
   const [lastVelocity, setLastVelocity] = useState<Record<string, number>>({});
   const [events, setEvents] = useState<MidiEvent[]>([]);
   const [dirty, setDirty] = useState(false);
+  // what MIDI learn caught; the save's own outcome is the mutation's state
   const [msg, setMsg] = useState<{ kind: "error" | "ok" | "info"; text: string } | null>(null);
-  const [busy, setBusy] = useState(false);
+  const saveLayout = useSaveLayout(studioId, initial.id);
+  const { reset: resetSave } = saveLayout;
   const [middleC, setMiddleC] = useMiddleC();
   const [kitForSlots, setKitForSlots] = useState<string>("");
 
@@ -40,7 +42,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
     return [...m.values()];
   }, [layout, kits, kitForSlots]);
 
-  const update = useCallback((fn: (l: Layout) => Layout) => { setLayout((l) => fn(l)); setDirty(true); setMsg(null); }, []);
+  const update = useCallback((fn: (l: Layout) => Layout) => { setLayout((l) => fn(l)); setDirty(true); setMsg(null); resetSave(); }, [resetSave]);
   const patchPad = useCallback((id: string, p: Partial<Pad>) => update((l) => ({ ...l, pads: l.pads.map((x) => (x.id === id ? { ...x, ...p } : x)) })), [update]);
 
   // MIDI messages can arrive faster than React renders: the learn handler reads and advances refs.
@@ -77,18 +79,15 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
   const pad = layout.pads.find((p) => p.id === selected) ?? null;
   const slotOf = (id: string | undefined) => slots.find((s) => s.id === id);
 
-  async function save() {
-    setBusy(true);
-    try {
-      const { id: _id, ...content } = layout;
-      const body = { ...content, slots: slots.length ? slots : undefined };
-      await api(`/api/studios/${studioId}/layouts/${layout.id}`, { method: "PATCH", body: { layout: body } });
-      setDirty(false);
-      setMsg({ kind: "ok", text: "Layout saved." });
-      router.refresh();
-    } catch (e) {
-      setMsg({ kind: "error", text: e instanceof ApiError ? e.message : String(e) });
-    } finally { setBusy(false); }
+  function save() {
+    const { id: _id, ...content } = layout;
+    setMsg(null);
+    saveLayout.mutate({ ...content, slots: slots.length ? slots : undefined }, {
+      onSuccess: () => {
+        setDirty(false);
+        router.refresh();
+      },
+    });
   }
 
   const noteUse = useMemo(() => {
@@ -247,12 +246,14 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
         {canWrite && (
           <div className="no-print space-y-2">
             <div className="flex items-center gap-2">
-              <button type="button" className="btn-primary" onClick={save} disabled={busy || !dirty}>Save layout</button>
+              <button type="button" className="btn-primary" onClick={save} disabled={saveLayout.isPending || !dirty}>Save layout</button>
               {dirty && <span className="text-sm text-warn">● unsaved changes</span>}
             </div>
           </div>
         )}
         {msg && <Message kind={msg.kind}>{msg.text}</Message>}
+        {saveLayout.isSuccess && <Message kind="ok">Layout saved.</Message>}
+        <FormError error={saveLayout.error} />
       </aside>
     </div>
   );

@@ -2,28 +2,23 @@
 // Instruments of a library: rename (kept across re-sorting) and merge several into one.
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { useMutation } from "@tanstack/react-query";
-import { api, ApiError } from "../api";
-import { Message } from "../form-bits";
+import { FormError, Message } from "../form-bits";
+import { useMergeInstruments, useRenameInstrument } from "../data/instruments";
+import type { InstrumentRow } from "@/lib/api-types/instruments";
 
-type Inst = { id: string; key: string; name: string; nameSource: string; family: string; pitchHz: number | null; sampleCount: number };
-
-export function InstrumentsList({ studioId, libraryId, instruments, canWrite }: { studioId: string; libraryId: string; instruments: Inst[]; canWrite: boolean }) {
+export function InstrumentsList({ studioId, libraryId, instruments, canWrite }: { studioId: string; libraryId: string; instruments: InstrumentRow[]; canWrite: boolean }) {
   const router = useRouter();
   const [picked, setPicked] = useState<Set<string>>(new Set());
   const [target, setTarget] = useState("");
-  const [msg, setMsg] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
-  const base = `/api/studios/${studioId}/libraries/${libraryId}/instruments`;
-  const merge = useMutation({
-    mutationFn: () => api<{ moved: number }>(`${base}/merge`, { body: { sourceIds: [...picked].filter((x) => x !== target), targetId: target } }),
-    onSuccess: (r) => {
-      setMsg({ kind: "ok", text: `Moved ${r.moved} samples; the catalogue is being re-sorted.` });
-      setPicked(new Set());
-      setTimeout(() => router.refresh(), 2500);
-    },
-    onError: (e) => setMsg({ kind: "error", text: e instanceof ApiError ? e.message : "Could not merge." }),
-  });
-  const byFamily = new Map<string, Inst[]>();
+  const merge = useMergeInstruments(studioId, libraryId);
+  const mergePicked = () =>
+    merge.mutate({ sourceIds: [...picked].filter((x) => x !== target), targetId: target }, {
+      onSuccess: () => {
+        setPicked(new Set());
+        setTimeout(() => router.refresh(), 2500);
+      },
+    });
+  const byFamily = new Map<string, InstrumentRow[]>();
   for (const i of instruments) byFamily.set(i.family, [...(byFamily.get(i.family) ?? []), i]);
   return (
     <div className="space-y-4">
@@ -37,8 +32,9 @@ export function InstrumentsList({ studioId, libraryId, instruments, canWrite }: 
               {instruments.filter((i) => picked.has(i.id)).map((i) => <option key={i.id} value={i.id}>{i.name}</option>)}
             </select>
           </div>
-          <button type="button" className="btn-primary" disabled={picked.size < 2 || !target || merge.isPending} onClick={() => merge.mutate()}>Merge</button>
-          {msg && <Message kind={msg.kind}>{msg.text}</Message>}
+          <button type="button" className="btn-primary" disabled={picked.size < 2 || !target || merge.isPending} onClick={mergePicked}>Merge</button>
+          {merge.isSuccess && <Message kind="ok">{`Moved ${merge.data.moved} samples; the catalogue is being re-sorted.`}</Message>}
+          <FormError error={merge.error} fallback="Could not merge." />
         </div>
       )}
       {instruments.length === 0 && <p className="card text-sm text-muted">No instruments yet: they appear once samples are measured and sorted.</p>}
@@ -61,19 +57,16 @@ export function InstrumentsList({ studioId, libraryId, instruments, canWrite }: 
   );
 }
 
-function RenameField({ studioId, libraryId, inst, canWrite }: { studioId: string; libraryId: string; inst: Inst; canWrite: boolean }) {
+function RenameField({ studioId, libraryId, inst, canWrite }: { studioId: string; libraryId: string; inst: InstrumentRow; canWrite: boolean }) {
   const router = useRouter();
   const [name, setName] = useState(inst.name);
-  const m = useMutation({
-    mutationFn: () => api(`/api/studios/${studioId}/libraries/${libraryId}/instruments/${inst.id}`, { method: "PATCH", body: { name } }),
-    onSuccess: () => router.refresh(),
-  });
+  const m = useRenameInstrument(studioId, libraryId, inst.id);
   if (!canWrite) return <span className="font-medium">{inst.name}</span>;
   return (
-    <form className="flex items-center gap-2" onSubmit={(e) => { e.preventDefault(); if (name.trim()) m.mutate(); }}>
+    <form className="flex items-center gap-2" onSubmit={(e) => { e.preventDefault(); if (name.trim()) m.mutate(name, { onSuccess: () => router.refresh() }); }}>
       <input className="field w-56 py-1" value={name} onChange={(e) => setName(e.target.value)} aria-label={`Name of ${inst.name}`} maxLength={160} />
       {name !== inst.name && <button className="btn-quiet px-2 py-1" disabled={m.isPending}>Rename</button>}
-      {m.isError && <span className="text-xs text-bad">{m.error instanceof ApiError ? m.error.message : "Could not rename."}</span>}
+      <FormError error={m.error} fallback="Could not rename." compact />
     </form>
   );
 }

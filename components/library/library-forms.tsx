@@ -2,23 +2,14 @@
 // Library forms: create, rename and describe, delete (owners; the name typed again to confirm).
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { useMutation } from "@tanstack/react-query";
-import { api, ApiError } from "../api";
-import { Field, Message, fieldErrors } from "../form-bits";
+import { Field, FormError, Message, fieldErrors } from "../form-bits";
+import { useCreateLibrary, useDeleteLibrary, useUpdateLibrary } from "../data/libraries";
 import { createLibrarySchema, updateLibrarySchema, type VelocityCurveName } from "@/lib/validation/library";
-
-const errText = (e: unknown) => (e instanceof ApiError ? e.message : "Something went wrong; try again.");
 
 export function CreateLibraryForm({ studioId }: { studioId: string }) {
   const router = useRouter();
   const [fields, setFields] = useState<Record<string, string>>({});
-  const m = useMutation({
-    mutationFn: (body: { name: string; description?: string }) => api<{ id: string }>(`/api/studios/${studioId}/libraries`, { body }),
-    onSuccess: (out) => {
-      router.push(`/s/${studioId}/libraries/${out.id}`);
-      router.refresh();
-    },
-  });
+  const m = useCreateLibrary(studioId);
   return (
     <form
       className="space-y-3"
@@ -30,7 +21,12 @@ export function CreateLibraryForm({ studioId }: { studioId: string }) {
         const parsed = createLibrarySchema.safeParse({ name: fd.get("name"), description: String(fd.get("description") ?? "") || undefined });
         if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
         setFields({});
-        m.mutate(parsed.data);
+        m.mutate(parsed.data, {
+          onSuccess: (out) => {
+            router.push(`/s/${studioId}/libraries/${out.id}`);
+            router.refresh();
+          },
+        });
       }}
     >
       <h2>New library</h2>
@@ -39,7 +35,7 @@ export function CreateLibraryForm({ studioId }: { studioId: string }) {
         <label htmlFor="description" className="label">Description <span className="font-normal text-muted">(optional)</span></label>
         <textarea id="description" name="description" rows={3} maxLength={4000} className="field" />
       </div>
-      {m.isError && <Message kind="error">{errText(m.error)}</Message>}
+      <FormError error={m.error} />
       <button className="btn-primary" disabled={m.isPending}>Create library</button>
     </form>
   );
@@ -49,17 +45,15 @@ export function LibrarySettings({ studioId, libraryId, name, description, veloci
   const router = useRouter();
   const [fields, setFields] = useState<Record<string, string>>({});
   const [confirm, setConfirm] = useState("");
-  const save = useMutation({
-    mutationFn: (body: { name?: string; description?: string | null; velocityCurve?: VelocityCurveName }) => api(`/api/studios/${studioId}/libraries/${libraryId}`, { method: "PATCH", body }),
-    onSuccess: () => router.refresh(),
-  });
-  const del = useMutation({
-    mutationFn: () => api(`/api/studios/${studioId}/libraries/${libraryId}`, { method: "DELETE", body: { confirmName: confirm } }),
-    onSuccess: () => {
-      router.push(`/s/${studioId}/libraries`);
-      router.refresh();
-    },
-  });
+  const save = useUpdateLibrary(studioId, libraryId);
+  const del = useDeleteLibrary(studioId, libraryId);
+  const remove = () =>
+    del.mutate(confirm, {
+      onSuccess: () => {
+        router.push(`/s/${studioId}/libraries`);
+        router.refresh();
+      },
+    });
   return (
     <div className="space-y-6">
       <form
@@ -71,7 +65,7 @@ export function LibrarySettings({ studioId, libraryId, name, description, veloci
           const parsed = updateLibrarySchema.safeParse({ name: fd.get("name"), description: String(fd.get("description") ?? ""), velocityCurve: fd.get("velocityCurve") });
           if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
           setFields({});
-          save.mutate(parsed.data);
+          save.mutate(parsed.data, { onSuccess: () => router.refresh() });
         }}
       >
         <Field label="Name" name="name" defaultValue={name} maxLength={160} error={fields.name} />
@@ -87,7 +81,7 @@ export function LibrarySettings({ studioId, libraryId, name, description, veloci
           </select>
           <p className="mt-1 text-xs text-muted">How the layers&apos; loudness maps to MIDI velocities. Changing it sorts the library again.</p>
         </div>
-        {save.isError && <Message kind="error">{errText(save.error)}</Message>}
+        <FormError error={save.error} />
         {save.isSuccess && <Message kind="ok">Saved.</Message>}
         <button className="btn-quiet" disabled={save.isPending}>Save settings</button>
       </form>
@@ -97,8 +91,8 @@ export function LibrarySettings({ studioId, libraryId, name, description, veloci
           <p className="text-sm text-muted">Deletes every sample, its stored file, the instruments and the health report. This cannot be undone. Type the library&apos;s name to confirm.</p>
           <label htmlFor="confirm-delete" className="label">Library name</label>
           <input id="confirm-delete" className="field" value={confirm} onChange={(e) => setConfirm(e.target.value)} placeholder={name} autoComplete="off" />
-          {del.isError && <Message kind="error">{errText(del.error)}</Message>}
-          <button type="button" className="btn-danger" disabled={confirm.trim() !== name || del.isPending} onClick={() => del.mutate()}>Delete library and files</button>
+          <FormError error={del.error} />
+          <button type="button" className="btn-danger" disabled={confirm.trim() !== name || del.isPending} onClick={remove}>Delete library and files</button>
         </div>
       )}
     </div>

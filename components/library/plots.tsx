@@ -5,7 +5,7 @@
 // colour AND marker shape, samples flagged for review ringed, so mislabelled files stand apart.
 import { useMemo, useState } from "react";
 import { CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis } from "recharts";
-import type { FeaturePoint, LadderGroup } from "@/lib/types/catalogue";
+import type { FeaturePoint, LadderGroup } from "@/lib/api-types/libraries";
 
 const SHAPES = ["circle", "square", "triangle", "diamond", "cross", "star", "wye"] as const;
 const hz = (v: number) => (v >= 1000 ? `${(v / 1000).toFixed(v >= 10_000 ? 0 : 1)} kHz` : `${Math.round(v)} Hz`);

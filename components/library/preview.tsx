@@ -7,7 +7,8 @@ import { useEffect, useRef, useState } from "react";
 const CAUTION_KEY = "kw.hearing-caution.v1";
 const LEVEL_KEY = "kw.preview-level-db";
 
-export function Preview({ src }: { src: string }) {
+/** `load` reads the sample's stored WAV (components/data/samples.ts loadSampleAudio), once, on the first play. */
+export function Preview({ load }: { load: () => Promise<ArrayBuffer> }) {
   const [accepted, setAccepted] = useState(false);
   const [asking, setAsking] = useState(false);
   const [levelDb, setLevelDb] = useState(-24);
@@ -35,9 +36,7 @@ export function Preview({ src }: { src: string }) {
       await ctx.resume();
       if (!bufRef.current) {
         setState("loading");
-        const res = await fetch(src, { credentials: "same-origin" });
-        if (!res.ok) throw new Error(String(res.status));
-        bufRef.current = await ctx.decodeAudioData(await res.arrayBuffer());
+        bufRef.current = await ctx.decodeAudioData(await load());
       }
       const node = ctx.createBufferSource();
       node.buffer = bufRef.current;

@@ -1,26 +1,16 @@
 "use client";
-// Live progress of a library: counts per state, polled every 1.5 s while samples are queued or measuring, or
-// while the catalogue is being re-sorted after a change.
+// Live progress of a library: counts per state, polled (components/data/progress.ts) every 1.5 s while samples
+// are queued or measuring, or while the catalogue is being re-sorted after a change.
 import { useEffect, useRef } from "react";
-import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { api } from "../api";
+import { useProgress } from "../data/progress";
+import { useRefreshSamples } from "../data/samples";
 import { STATE_LOOK } from "./state-counts";
-
-export interface Progress { queued: number; measuring: number; catalogued: number; rejected: number; total: number; pending: number; sorting: boolean; healthComputedAt: string | null }
-
-export function useProgress(studioId: string, libraryId: string, initial?: Progress) {
-  return useQuery({
-    queryKey: ["progress", libraryId],
-    queryFn: () => api<Progress>(`/api/studios/${studioId}/libraries/${libraryId}/progress`),
-    initialData: initial,
-    refetchInterval: (q) => ((q.state.data?.pending ?? 1) > 0 || (q.state.data?.sorting ?? true) ? 1500 : false),
-  });
-}
+import type { LibraryProgress as Progress } from "@/lib/api-types/libraries";
 
 export function LibraryProgress({ studioId, libraryId, initial }: { studioId: string; libraryId: string; initial: Progress }) {
   const { data } = useProgress(studioId, libraryId, initial);
-  const qc = useQueryClient();
+  const refreshSamples = useRefreshSamples(libraryId);
   const router = useRouter();
   const p = data ?? initial;
   const done = p.catalogued + p.rejected;
@@ -31,10 +21,10 @@ export function LibraryProgress({ studioId, libraryId, initial }: { studioId: st
     const now = `${p.pending}|${p.healthComputedAt}`;
     if (now !== last.current) {
       last.current = now;
-      qc.invalidateQueries({ queryKey: ["samples", libraryId] });
+      refreshSamples();
       if (p.pending === 0) router.refresh();
     }
-  }, [p.pending, p.healthComputedAt, libraryId, qc, router]);
+  }, [p.pending, p.healthComputedAt, refreshSamples, router]);
   return (
     <section className="card space-y-3" aria-live="polite" data-testid="progress">
       <div className="flex items-baseline justify-between">

@@ -1,17 +1,14 @@
 "use client";
 // One sample: waveform from the server's peaks, the reasons for its labels, key measures, and the preview.
-import { useQuery } from "@tanstack/react-query";
-import { api } from "../api";
+import { useCallback } from "react";
+import { loadSampleAudio, useSample } from "../data/samples";
 import { Preview } from "./preview";
 import { Waveform } from "./waveform";
 import { StateTag } from "./state-counts";
-import type { SampleRow } from "@/lib/types/catalogue";
-
-type Detail = SampleRow & { peaks: { min: number[]; max: number[] } | null; reasons: string[]; measurement: { onsetMs: number; attackMs: number; tail: string; samplePeakDbfs: number; clippedRuns: number; dcOffset: number; noiseFloorDbfs: number; warnings: string[] } | null };
 
 export function SampleDetail({ studioId, libraryId, sampleId, onClose }: { studioId: string; libraryId: string; sampleId: string; onClose: () => void }) {
-  const base = `/api/studios/${studioId}/libraries/${libraryId}/samples/${sampleId}`;
-  const q = useQuery({ queryKey: ["sample", sampleId], queryFn: () => api<Detail>(base) });
+  const q = useSample(studioId, libraryId, sampleId);
+  const load = useCallback(() => loadSampleAudio(studioId, libraryId, sampleId), [studioId, libraryId, sampleId]);
   const s = q.data;
   return (
     <aside className="card h-fit space-y-3 p-4 text-sm" data-testid="sample-detail" aria-label="Sample detail">
@@ -25,7 +22,7 @@ export function SampleDetail({ studioId, libraryId, sampleId, onClose }: { studi
           <div className="flex flex-wrap gap-2"><StateTag state={s.state} />{s.conflict === "strong" && <span className="tag border-warn/40 bg-warn-soft text-warn">⚑ name and sound disagree</span>}</div>
           {s.rejectReason && <p className="rounded border border-bad/30 bg-bad-soft p-2 text-bad">Rejected: {s.rejectReason}</p>}
           {s.peaks && <Waveform peaks={s.peaks} durationSec={s.durationSec ?? 0} onsetMs={s.measurement?.onsetMs ?? null} />}
-          {s.state !== "rejected" && <Preview src={`${base}/audio`} />}
+          {s.state !== "rejected" && <Preview load={load} />}
           <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-xs">
             <dt className="text-muted">Family / articulation</dt><dd>{s.family ?? "–"} / {s.articulation ?? "–"}</dd>
             <dt className="text-muted">Instrument</dt><dd>{s.instrumentName ?? "–"}</dd>

@@ -4,17 +4,15 @@
 // them in bulk; viewers browse and listen.
 import { useEffect, useMemo, useState } from "react";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
-import { keepPreviousData, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef } from "@tanstack/react-table";
-import { api, ApiError } from "../api";
-import { Message } from "../form-bits";
+import { FormError, Message } from "../form-bits";
+import { useConfirmSamples, useRelabelSamples, useSamplesPage } from "../data/samples";
 import { StateTag } from "./state-counts";
 import { SampleDetail } from "./sample-detail";
 import { ARTICULATIONS, FAMILIES } from "@/lib/catalog/taxonomy";
 import { MIC_POSITIONS } from "@/lib/catalog/names";
-import type { SampleRow } from "@/lib/types/catalogue";
+import type { RelabelBody, SampleRow } from "@/lib/api-types/samples";
 
-interface Page { rows: SampleRow[]; total: number; page: number; pageSize: number; search?: "words" | "contains" }
 type Inst = { key: string; name: string; family: string };
 
 const SORTABLE: Record<string, string> = { path: "path", state: "state", family: "family", articulation: "articulation", instrument: "instrument", layer: "layer", rr: "roundRobin", mic: "mic", strike: "strike", truePeak: "truePeak", duration: "duration", confidence: "confidence" };
@@ -26,7 +24,6 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
   const sp = useSearchParams();
   const router = useRouter();
   const pathname = usePathname();
-  const qc = useQueryClient();
   const params = useMemo(() => {
     const p = new URLSearchParams();
     for (const k of ["page", "pageSize", "sort", "dir", "q", "family", "articulation", "state", "instrument", "flag"]) {
@@ -48,11 +45,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [q]);
 
-  const query = useQuery({
-    queryKey: ["samples", libraryId, params.toString()],
-    queryFn: () => api<Page>(`/api/studios/${studioId}/libraries/${libraryId}/samples?${params.toString()}`),
-    placeholderData: keepPreviousData,
-  });
+  const query = useSamplesPage(studioId, libraryId, params.toString());
   const data = query.data;
   const [selected, setSelected] = useState<Set<string>>(new Set());
   const sort = sp.get("sort") ?? "path";
@@ -131,7 +124,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
         <label className="flex items-center gap-2 pb-2"><input type="checkbox" checked={sp.get("flag") === "conflict"} onChange={(e) => setParams({ flag: e.target.checked ? "conflict" : null })} /> Only flagged for review</label>
       </div>
 
-      {canWrite && <BulkBar studioId={studioId} libraryId={libraryId} selected={[...selected]} instruments={instruments} onDone={() => { setSelected(new Set()); qc.invalidateQueries({ queryKey: ["samples", libraryId] }); setTimeout(() => qc.invalidateQueries({ queryKey: ["samples", libraryId] }), 3000); }} onSelectPage={() => setSelected(new Set(allOnPage))} onClear={() => setSelected(new Set())} />}
+      {canWrite && <BulkBar studioId={studioId} libraryId={libraryId} selected={[...selected]} instruments={instruments} onDone={() => setSelected(new Set())} onSelectPage={() => setSelected(new Set(allOnPage))} onClear={() => setSelected(new Set())} />}
 
       <div className={openId ? "grid items-start gap-3 xl:grid-cols-[minmax(0,1fr)_380px]" : ""}>
         <div className="card overflow-x-auto p-0">
@@ -203,24 +196,20 @@ function BulkBar({ studioId, libraryId, selected, instruments, onDone, onSelectP
   const [art, setArt] = useState("");
   const [mic, setMic] = useState("");
   const [inst, setInst] = useState("");
-  const [msg, setMsg] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
-  const base = `/api/studios/${studioId}/libraries/${libraryId}/samples`;
-  const relabel = useMutation({
-    mutationFn: () => api<{ updated: number }>(`${base}/relabel`, { body: { sampleIds: selected, ...(family && { family }), ...(art && { articulation: art }), ...(mic && { mic: mic === "none" ? null : mic }), ...(inst && { instrumentKey: inst }) } }),
-    onSuccess: (r) => {
-      setMsg({ kind: "ok", text: `Relabelled ${r.updated} samples; the catalogue is being re-sorted.` });
-      onDone();
-    },
-    onError: (e) => setMsg({ kind: "error", text: e instanceof ApiError ? e.message : "Could not relabel." }),
-  });
-  const confirm = useMutation({
-    mutationFn: () => api<{ confirmed: number; skipped: number }>(`${base}/confirm`, { body: { sampleIds: selected } }),
-    onSuccess: (r) => {
-      setMsg({ kind: "ok", text: `Confirmed ${r.confirmed} samples${r.skipped ? ` (${r.skipped} not catalogued yet, skipped)` : ""}.` });
-      onDone();
-    },
-    onError: (e) => setMsg({ kind: "error", text: e instanceof ApiError ? e.message : "Could not confirm." }),
-  });
+  // the line under the bar tells what the last of the two writes did (or why it failed): each resets the other
+  const relabel = useRelabelSamples(studioId, libraryId);
+  const confirm = useConfirmSamples(studioId, libraryId);
+  const doRelabel = () => {
+    confirm.reset();
+    relabel.mutate(
+      { sampleIds: selected, ...(family && { family }), ...(art && { articulation: art }), ...(mic && { mic: mic === "none" ? null : mic }), ...(inst && { instrumentKey: inst }) } as RelabelBody,
+      { onSuccess: onDone },
+    );
+  };
+  const doConfirm = () => {
+    relabel.reset();
+    confirm.mutate(selected, { onSuccess: onDone });
+  };
   const none = !family && !art && !mic && !inst;
   return (
     <div className="card space-y-2 p-3 text-sm" data-testid="bulk-bar">
@@ -230,10 +219,12 @@ function BulkBar({ studioId, libraryId, selected, instruments, onDone, onSelectP
         <Select id="b-art" label="Set articulation" value={art || null} options={ARTICULATIONS} onChange={(v) => setArt(v ?? "")} />
         <Select id="b-mic" label="Set mic" value={mic || null} options={["none", ...MIC_POSITIONS]} onChange={(v) => setMic(v ?? "")} />
         <Select id="b-inst" label="Move to instrument" value={inst || null} options={instruments.map((i) => i.key)} labels={Object.fromEntries(instruments.map((i) => [i.key, i.name]))} onChange={(v) => setInst(v ?? "")} />
-        <button type="button" className="btn-primary" disabled={!selected.length || none || relabel.isPending} onClick={() => relabel.mutate()}>Relabel {selected.length || ""}</button>
-        <button type="button" className="btn-quiet" disabled={!selected.length || confirm.isPending} onClick={() => confirm.mutate()} title="Keep the current labels and mark them as confirmed by you">Confirm suggestions</button>
+        <button type="button" className="btn-primary" disabled={!selected.length || none || relabel.isPending} onClick={doRelabel}>Relabel {selected.length || ""}</button>
+        <button type="button" className="btn-quiet" disabled={!selected.length || confirm.isPending} onClick={doConfirm} title="Keep the current labels and mark them as confirmed by you">Confirm suggestions</button>
       </div>
-      {msg && <Message kind={msg.kind}>{msg.text}</Message>}
+      {relabel.isSuccess && <Message kind="ok">{`Relabelled ${relabel.data.updated} samples; the catalogue is being re-sorted.`}</Message>}
+      {confirm.isSuccess && <Message kind="ok">{`Confirmed ${confirm.data.confirmed} samples${confirm.data.skipped ? ` (${confirm.data.skipped} not catalogued yet, skipped)` : ""}.`}</Message>}
+      <FormError error={relabel.error ?? confirm.error} fallback={relabel.isError ? "Could not relabel." : "Could not confirm."} />
     </div>
   );
 }

@@ -1,9 +1,9 @@
 "use client";
 // Upload: drop files, whole folders (relative paths kept) or .zip packs, or pick them. Each file goes in its own
-// request (three at a time) so every file has its own progress bar; the batch bar sums the bytes sent. At the
-// end a summary: queued for measuring / duplicates / refused with reasons.
+// request (three at a time, sent by components/data/uploads.ts) so every file has its own progress bar; the
+// batch bar sums the bytes sent. At the end a summary: queued for measuring / duplicates / refused with reasons.
 import { useCallback, useRef, useState } from "react";
-import { useQueryClient } from "@tanstack/react-query";
+import { useUploads } from "../data/uploads";
 
 interface Item { id: number; file: File; path: string; loaded: number; state: "waiting" | "sending" | "done" | "failed"; results: { name: string; status: string; reason?: string }[] }
 
@@ -30,27 +30,12 @@ async function walk(entry: FsEntry, out: { file: File; path: string }[]): Promis
 
 const wanted = (p: string) => /\.(wav|wave|zip)$/i.test(p) && !p.split("/").some((x) => x.startsWith("."));
 
-function send(url: string, item: Item, onProgress: (loaded: number) => void): Promise<{ status: number; body: any }> {
-  return new Promise((resolve) => {
-    const xhr = new XMLHttpRequest();
-    xhr.open("POST", url);
-    xhr.responseType = "json";
-    xhr.upload.onprogress = (e) => onProgress(e.loaded);
-    xhr.onload = () => resolve({ status: xhr.status, body: xhr.response });
-    xhr.onerror = () => resolve({ status: 0, body: null });
-    const fd = new FormData();
-    fd.append("file", item.file, item.path);
-    xhr.send(fd);
-  });
-}
-
 export function Uploader({ studioId, libraryId }: { studioId: string; libraryId: string }) {
   const [items, setItems] = useState<Item[]>([]);
   const [over, setOver] = useState(false);
   const [running, setRunning] = useState(false);
   const seq = useRef(0);
-  const qc = useQueryClient();
-  const url = `/api/studios/${studioId}/libraries/${libraryId}/uploads`;
+  const uploads = useUploads(studioId, libraryId);
 
   // Sends the given items, CONCURRENCY at a time; failed ones (connection lost, server restarted, 5xx) stay
   // listed with their reason and can be sent again.
@@ -64,23 +49,17 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
         while (next < list.length) {
           const item = list[next++]!;
           update(item.id, { state: "sending", loaded: 0 });
-          const r = await send(url, item, (loaded) => update(item.id, { loaded }));
-          // 201: outcomes per file; 422/413 with outcomes: nothing in it was accepted, each file says why
-          const outcomes = r.status === 201 ? r.body?.files : r.body?.error?.details?.files;
-          if (Array.isArray(outcomes)) update(item.id, { state: "done", loaded: item.file.size, results: outcomes });
-          else {
-            const reason = r.body?.error?.message ?? (r.status === 0 ? "the connection failed" : `the server answered ${r.status}`);
-            update(item.id, { state: "failed", results: [{ name: item.path, status: "refused", reason }] });
-          }
-          qc.invalidateQueries({ queryKey: ["progress", libraryId] });
+          const r = await uploads.send(item.file, item.path, (loaded) => update(item.id, { loaded }));
+          if (r.ok) update(item.id, { state: "done", loaded: item.file.size, results: r.files });
+          else update(item.id, { state: "failed", results: [{ name: item.path, status: "refused", reason: r.reason }] });
+          uploads.fileSent();
         }
       };
       await Promise.all(Array.from({ length: CONCURRENCY }, lane));
       setRunning(false);
-      qc.invalidateQueries({ queryKey: ["progress", libraryId] });
-      qc.invalidateQueries({ queryKey: ["samples", libraryId] });
+      uploads.batchSent();
     },
-    [url, qc, libraryId],
+    [uploads],
   );
 
   const start = useCallback(

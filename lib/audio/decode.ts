@@ -10,7 +10,8 @@
 // Samples are read little-endian, as the RIFF spec stores them.
 import type { WavFormat } from "./types";
 import { WavRefusal } from "./refusal";
-import { fourcc, readFmt, readMetadata, u32, walkChunks, type FmtChunk, type WavMetadata } from "./chunks";
+import { readFmt, readMetadata, u32, walkChunks, type FmtChunk, type WavMetadata } from "./chunks";
+import { sniffWav } from "./sniff";
 
 export interface DecodeOptions {
   /** Longest accepted one-shot in seconds (default 60). */
@@ -166,12 +167,11 @@ export function decodeWav(bytes: Uint8Array, opts: DecodeOptions = {}): DecodedW
   const maxMissing = opts.maxMissingFraction ?? DEFAULT_MAX_MISSING_FRACTION;
   const warnings: string[] = [];
   if (bytes.length < 12) throw new WavRefusal("not-riff", `file is ${bytes.length} bytes, too short for a RIFF/WAVE header (12 bytes)`);
-  const magic = fourcc(bytes, 0);
-  if (magic === "RF64" || magic === "BW64") throw new WavRefusal("rf64", `${magic} (64-bit RIFF, EBU Tech 3306) files are not supported; export as a plain RIFF WAVE`);
-  if (magic === "RIFX") throw new WavRefusal("not-riff", "big-endian RIFX files are not supported; export as little-endian RIFF WAVE");
-  if (magic !== "RIFF") throw new WavRefusal("not-riff", `not a WAV file: ${magicName(magic)}`);
-  const form = fourcc(bytes, 8);
-  if (form !== "WAVE") throw new WavRefusal("not-riff", `RIFF file of type "${form}", not "WAVE"`);
+  const kind = sniffWav(bytes);
+  if (kind.kind === "rf64") throw new WavRefusal("rf64", `${kind.magic} (64-bit RIFF, EBU Tech 3306) files are not supported; export as a plain RIFF WAVE`);
+  if (kind.kind === "rifx") throw new WavRefusal("not-riff", "big-endian RIFX files are not supported; export as little-endian RIFF WAVE");
+  if (kind.kind === "not-riff") throw new WavRefusal("not-riff", `not a WAV file: ${magicName(kind.magic)}`);
+  if (kind.kind === "not-wave") throw new WavRefusal("not-riff", `RIFF file of type "${kind.form}", not "WAVE"`);
 
   const chunks = walkChunks(bytes);
   const fmtRef = chunks.find((c) => c.id === "fmt ");

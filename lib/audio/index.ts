@@ -2,6 +2,7 @@
 export type { Measurement, WavFormat, SpectralSummary, TailState } from "./types";
 export { MEASURE_VERSION } from "./version";
 export { WavRefusal, isWavRefusal, type WavRefusalCode } from "./refusal";
+export { sniffWav, SNIFF_BYTES, type WavSniff } from "./sniff";
 export { decodeWav, DEFAULT_MAX_SECONDS, DEFAULT_MAX_MISSING_FRACTION, type DecodedWav, type DecodeOptions } from "./decode";
 export type { WavMetadata, BextChunk, SmplChunk, SmplLoop, InstChunk, CuePoint } from "./chunks";
 export { measure, measureBytes, type MeasuredFile } from "./measure";

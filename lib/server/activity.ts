@@ -2,18 +2,8 @@ import "server-only";
 // The activity log: one row per change in a studio (who, what, when).
 import type { Knex } from "knex";
 import { db } from "./db";
-
-export interface ActivityEntry {
-  id: number;
-  studioId: string;
-  actorId: string | null;
-  actorName: string | null;
-  action: string;
-  subjectType: string | null;
-  subjectId: string | null;
-  details: Record<string, unknown> | null;
-  createdAt: string;
-}
+import { jsonColumn } from "./json-column";
+import type { ActivityEntry } from "@/lib/api-types/activity";
 
 export async function logActivity(
   trx: Knex | Knex.Transaction,
@@ -46,7 +36,7 @@ export async function listActivity({ studioId, before, limit }: { studioId: stri
     action: r.action,
     subjectType: r.subject_type,
     subjectId: r.subject_id,
-    details: r.details ? (typeof r.details === "string" ? JSON.parse(r.details) : r.details) : null,
+    details: r.details ? jsonColumn(r.details) : null,
     createdAt: new Date(r.created_at).toISOString(),
   }));
 }

@@ -1,16 +1,6 @@
 import "server-only";
 // One error class and one JSON shape for every failure: { error: { code, message } }.
-
-export type ErrorCode =
-  | "unauthenticated"
-  | "forbidden"
-  | "not-found"
-  | "invalid-input"
-  | "too-large"
-  | "conflict"
-  | "rate-limited"
-  | "unavailable"
-  | "internal";
+import type { ErrorBody, ErrorCode } from "@/lib/api-types/errors";
 
 const STATUS: Record<ErrorCode, number> = {
   unauthenticated: 401,
@@ -50,7 +40,7 @@ export function isDatabaseBusy(e: unknown): boolean {
   return (e as { code?: string })?.code === "ER_CON_COUNT_ERROR" || /Knex: Timeout acquiring a connection/.test((e as Error)?.message ?? "");
 }
 
-export function toErrorBody(e: unknown): { status: number; body: { error: { code: string; message: string; details?: unknown } } } {
+export function toErrorBody(e: unknown): { status: number; body: ErrorBody } {
   if (e instanceof AppError) {
     return { status: e.status, body: { error: { code: e.code, message: e.message, ...(e.details ? { details: e.details } : {}) } } };
   }

@@ -1,13 +1,7 @@
 import "server-only";
 // The studio's home page in numbers: libraries with their sample states, kits, layouts and the latest audits.
 import { db } from "./db";
-
-export interface StudioOverview {
-  libraries: { id: string; name: string; total: number; catalogued: number; pending: number; rejected: number }[];
-  kits: number;
-  layouts: number;
-  audits: { id: string; layoutName: string; kitName: string; score: number; silentPads: number; createdAt: string }[];
-}
+import type { StudioOverview } from "@/lib/api-types/studios";
 
 export async function studioOverview({ studioId }: { studioId: string }): Promise<StudioOverview> {
   const [libs, counts, kits, layouts, audits] = await Promise.all([

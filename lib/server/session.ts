@@ -9,7 +9,8 @@ import { getToken } from "next-auth/jwt";
 import { notFound, redirect } from "next/navigation";
 import { env } from "./env";
 import { liveSessionUser } from "./auth/sessions";
-import { listStudiosForUser, type StudioSummary } from "./studios";
+import { listStudiosForUser } from "./studios";
+import type { StudioSummary } from "@/lib/api-types/studios";
 import type { Role } from "@/lib/permissions";
 
 /** The signed-in user while their session is live (lib/server/auth/sessions.ts), else null. */

@@ -192,7 +192,7 @@ export class S3Storage implements Storage {
 
 /** Partial files of local writes in progress (`put` above): `<key>.part-<12 hex>`. */
 const PART_FILE = /\.part-[0-9a-f]{12}$/;
-/** Where an uploaded .zip pack is spooled while it is read (lib/server/catalogue/upload.ts). */
+/** Where an uploaded .zip pack is spooled while it is read (lib/server/catalogue/upload/zip.ts). */
 const ZIP_SPOOL = /^kw-zip-[0-9a-f]{16}\.zip$/;
 export function zipSpoolPath(tmpDir = os.tmpdir()): string {
   return path.join(tmpDir, `kw-zip-${crypto.randomBytes(8).toString("hex")}.zip`);

@@ -9,13 +9,12 @@ import { logActivity } from "./activity";
 import { sendVerificationMail } from "./auth/accounts";
 import { endAllSessions } from "./auth/sessions";
 import { later } from "./later";
-import { isRole, type Role } from "@/lib/permissions";
+import { can, CREATOR_ROLE, isRole, KEPT_PERMISSION, rolesWith, roleWithArticle, type Role } from "@/lib/permissions";
+import type { StudioSummary } from "@/lib/api-types/studios";
+import type { Member } from "@/lib/api-types/members";
+import type { Invitation, InvitationView } from "@/lib/api-types/invitations";
 
 const INVITE_TTL_MS = 7 * 24 * 3600_000;
-
-export interface StudioSummary { id: string; name: string; role: Role }
-export interface Member { userId: string; name: string; email: string; role: Role; since: string }
-export interface Invitation { id: string; email: string; role: Role; invitedBy: string; expiresAt: string; createdAt: string }
 
 export async function listStudiosForUser(userId: string): Promise<StudioSummary[]> {
   const rows = await db()("memberships as m").join("studios as s", "s.id", "m.studio_id").where("m.user_id", userId).orderBy("s.name").select("s.id", "s.name", "m.role");
@@ -32,7 +31,7 @@ export async function createStudio({ userId, name }: { userId: string; name: str
   const id = newId();
   await db().transaction(async (trx) => {
     await trx("studios").insert({ id, name, created_by: userId });
-    await trx("memberships").insert({ studio_id: id, user_id: userId, role: "owner" });
+    await trx("memberships").insert({ studio_id: id, user_id: userId, role: CREATOR_ROLE });
     await logActivity(trx, { studioId: id, actorId: userId, action: "studio.created", subjectType: "studio", subjectId: id, details: { name } });
   });
   return { id };
@@ -47,23 +46,29 @@ export async function renameStudio({ studioId, actorId, name }: { studioId: stri
   });
 }
 
+/** Members by role as ROLES lists them (the column is an ENUM in that order), then by name. */
 export async function listMembers({ studioId }: { studioId: string }): Promise<Member[]> {
   const rows = await db()("memberships as m").join("users as u", "u.id", "m.user_id").where("m.studio_id", studioId).orderBy([{ column: "m.role" }, { column: "u.name" }]).select("u.id", "u.name", "u.email", "m.role", "m.created_at");
   return rows.map((r) => ({ userId: r.id, name: r.name, email: r.email, role: r.role, since: new Date(r.created_at).toISOString() }));
 }
 
-async function lockedOwnerCount(trx: Knex.Transaction, studioId: string): Promise<number> {
+/** Members who hold KEPT_PERMISSION (the owners), their rows locked until the transaction ends. */
+async function lockedKeeperCount(trx: Knex.Transaction, studioId: string): Promise<number> {
   const rows = await trx("memberships").where({ studio_id: studioId }).forUpdate().select("role");
-  return rows.filter((r) => r.role === "owner").length;
+  return rows.filter((r) => can(r.role, KEPT_PERMISSION)).length;
 }
+
+/** The role that keeps a studio manageable, named for messages ("owner"). */
+const keeper = () => rolesWith(KEPT_PERMISSION).join(" or ");
+const aKeeper = () => rolesWith(KEPT_PERMISSION).map(roleWithArticle).join(" or ");
 
 export async function changeRole({ studioId, actorId, userId, role }: { studioId: string; actorId: string; userId: string; role: Role }): Promise<void> {
   await db().transaction(async (trx) => {
-    const owners = await lockedOwnerCount(trx, studioId);
+    const keepers = await lockedKeeperCount(trx, studioId);
     const m = await trx("memberships").where({ studio_id: studioId, user_id: userId }).first("role");
     if (!m) throw notFound("That member");
     if (m.role === role) return;
-    if (m.role === "owner" && owners <= 1) throw new AppError("conflict", "A studio needs at least one owner: make someone else an owner first.");
+    if (can(m.role, KEPT_PERMISSION) && !can(role, KEPT_PERMISSION) && keepers <= 1) throw new AppError("conflict", `A studio needs at least one ${keeper()}: make someone else ${aKeeper()} first.`);
     await trx("memberships").where({ studio_id: studioId, user_id: userId }).update({ role });
     await logActivity(trx, { studioId, actorId, action: "member.role-changed", subjectType: "user", subjectId: userId, details: { from: m.role, to: role } });
   });
@@ -71,10 +76,10 @@ export async function changeRole({ studioId, actorId, userId, role }: { studioId
 
 export async function removeMember({ studioId, actorId, userId }: { studioId: string; actorId: string; userId: string }): Promise<void> {
   await db().transaction(async (trx) => {
-    const owners = await lockedOwnerCount(trx, studioId);
+    const keepers = await lockedKeeperCount(trx, studioId);
     const m = await trx("memberships as m").join("users as u", "u.id", "m.user_id").where({ "m.studio_id": studioId, "m.user_id": userId }).first("m.role", "u.email");
     if (!m) throw notFound("That member");
-    if (m.role === "owner" && owners <= 1) throw new AppError("conflict", "The last owner cannot be removed: make someone else an owner first.");
+    if (can(m.role, KEPT_PERMISSION) && keepers <= 1) throw new AppError("conflict", `The last ${keeper()} cannot be removed: make someone else ${aKeeper()} first.`);
     await trx("memberships").where({ studio_id: studioId, user_id: userId }).delete();
     // the removed person is signed out everywhere: a session is not a pass into the studio they left
     await endAllSessions(trx, userId);
@@ -104,7 +109,7 @@ export async function createInvitation({ studioId, actorId, email, role }: { stu
   await sendMail({
     to: email,
     subject: `${inviter?.name ?? "Someone"} invited you to the studio "${studio.name}" on Kitwright`,
-    text: `Hello,\n\n${inviter?.name ?? "Someone"} invited you to join the studio "${studio.name}" on Kitwright as ${role === "owner" ? "an owner" : `an ${role}`}.\n\nAccept the invitation here (you can create an account on the way):\n\n${appUrl(`/invite/${token}`)}\n\nThe invitation expires in 7 days.\n`,
+    text: `Hello,\n\n${inviter?.name ?? "Someone"} invited you to join the studio "${studio.name}" on Kitwright as ${roleWithArticle(role)}.\n\nAccept the invitation here (you can create an account on the way):\n\n${appUrl(`/invite/${token}`)}\n\nThe invitation expires in 7 days.\n`,
   });
   return { id };
 }
@@ -117,10 +122,6 @@ export async function revokeInvitation({ studioId, actorId, invitationId }: { st
     await logActivity(trx, { studioId, actorId, action: "invitation.revoked", subjectType: "invitation", subjectId: invitationId, details: { email: inv.email, role: inv.role } });
   });
 }
-
-export type InvitationView =
-  | { state: "pending"; studioName: string; email: string; role: Role; inviter: string }
-  | { state: "invalid" | "accepted" | "revoked" | "expired" };
 
 export async function viewInvitation(token: string): Promise<InvitationView> {
   const r = await db()("invitations as i").join("studios as s", "s.id", "i.studio_id").join("users as u", "u.id", "i.invited_by").where("i.token_hash", hashToken(token)).first("i.*", "s.name as studio_name", "u.name as inviter");

@@ -5,6 +5,7 @@ import { z } from "zod";
 import { ARTICULATIONS, FAMILIES } from "@/lib/catalog/taxonomy";
 import { KIT_SCHEMA, LAYOUT_SCHEMA, kitBodySchema, layoutBodySchema, MAX_GRID_PADS, padSchema as auditPadSchema } from "@/lib/audit/schema";
 import { TEMPLATE_NAMES } from "@/lib/audit/templates";
+import { EXPORT_FORMAT_IDS } from "@/lib/audit/export-formats";
 import { idParam } from "./studio";
 
 const name = z.string().trim().min(1, "Give it a name.").max(160);
@@ -90,7 +91,7 @@ export const updateLayoutSchema = z
 export const runAuditSchema = z.strictObject({ layoutId: idParam, kitId: idParam });
 export const auditListQuery = z.strictObject({ layoutId: idParam.optional() });
 export const compareQuery = z.strictObject({ before: idParam, after: idParam });
-export const exportQuery = z.strictObject({ format: z.enum(["csv", "json", "midi"]) });
+export const exportQuery = z.strictObject({ format: z.enum(EXPORT_FORMAT_IDS) });
 
 export const kitParams = z.strictObject({ studioId: idParam, kitId: idParam });
 export const layoutParams = z.strictObject({ studioId: idParam, layoutId: idParam });

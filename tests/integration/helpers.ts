@@ -10,6 +10,7 @@ import { env } from "@/lib/server/env";
 import { authOptions } from "@/lib/server/auth/options";
 import { startSession } from "@/lib/server/auth/sessions";
 import { addMember, createStudio, createUser, type Role } from "@/db/factories";
+import { CREATOR_ROLE, ROLES } from "@/lib/permissions";
 import type { WrappedHandler } from "@/lib/server/route";
 
 export const uniq = (p = "t") => `${p}-${crypto.randomBytes(5).toString("hex")}`;
@@ -21,14 +22,14 @@ export async function makeUser(opts: { verified?: boolean; name?: string } = {})
   return createUser(db(), { email: `${tag}@example.test`, name: opts.name ?? `User ${tag}`, password: "correct-horse-9", verified: opts.verified });
 }
 
-/** A studio with an owner, an editor and a viewer, plus an outsider who owns another studio. */
+/** A studio with one member in each role of lib/permissions.ts (owner, editor, viewer), plus an outsider who owns another studio. */
 export async function makeStudioWithRoles() {
-  const [owner, editor, viewer, outsider] = await Promise.all([makeUser({ name: "Owner" }), makeUser({ name: "Editor" }), makeUser({ name: "Viewer" }), makeUser({ name: "Outsider" })]);
-  const studio = await createStudio(db(), { name: uniq("Studio"), ownerId: owner.id });
-  await addMember(db(), { studioId: studio.id, userId: editor.id, role: "editor" });
-  await addMember(db(), { studioId: studio.id, userId: viewer.id, role: "viewer" });
+  const [outsider, ...people] = await Promise.all([makeUser({ name: "Outsider" }), ...ROLES.map((r) => makeUser({ name: r.charAt(0).toUpperCase() + r.slice(1) }))]);
+  const byRole = Object.fromEntries(ROLES.map((r, i) => [r, people[i]!])) as Record<Role, TestUser>;
+  const studio = await createStudio(db(), { name: uniq("Studio"), ownerId: byRole[CREATOR_ROLE].id });
+  for (const role of ROLES) if (role !== CREATOR_ROLE) await addMember(db(), { studioId: studio.id, userId: byRole[role].id, role });
   const otherStudio = await createStudio(db(), { name: uniq("Other"), ownerId: outsider.id });
-  return { studio, otherStudio, users: { owner, editor, viewer, outsider } as Record<"owner" | "editor" | "viewer" | "outsider", TestUser> };
+  return { studio, otherStudio, users: { ...byRole, outsider } as Record<Role | "outsider", TestUser> };
 }
 
 export async function addToStudio(studioId: string, user: TestUser, role: Role) {

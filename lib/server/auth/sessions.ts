@@ -7,15 +7,10 @@ import type { Knex } from "knex";
 import type { JWT } from "next-auth/jwt";
 import { db } from "../db";
 import { newId } from "../ids";
+import type { SessionUser } from "@/lib/api-types/account";
 
 /** How long a session lasts after signing in (the cookie's lifetime too). */
 export const SESSION_MAX_AGE_S = 7 * 24 * 3600;
-
-export interface SessionUser {
-  id: string;
-  email: string;
-  name: string;
-}
 
 /** Starts a session for the user; returns its id (kept in the session cookie). */
 export async function startSession(userId: string): Promise<string> {

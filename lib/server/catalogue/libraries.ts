@@ -7,21 +7,8 @@ import { newId } from "../ids";
 import { storage } from "../storage";
 import { enqueueRegroup } from "./queue";
 import type { VelocityCurveName } from "@/lib/validation/library";
+import type { LibraryProgress, LibrarySummary, StateCounts } from "@/lib/api-types/libraries";
 import { deleteWordsOfLibrary } from "./words";
-
-export type StateCounts = { queued: number; measuring: number; catalogued: number; rejected: number; total: number };
-
-export interface LibrarySummary {
-  id: string;
-  name: string;
-  description: string | null;
-  createdAt: string;
-  updatedAt: string;
-  counts: StateCounts;
-  instruments: number;
-  healthComputedAt: string | null;
-  velocityCurve: VelocityCurveName;
-}
 
 /** Storage folder of a library's files. */
 export const libraryPrefix = (studioId: string, libraryId: string) => `studios/${studioId}/libraries/${libraryId}/`;
@@ -93,7 +80,7 @@ export async function assertLibrary({ studioId, libraryId }: { studioId: string;
  * Counts per state, plus `sorting`: catalogued samples changed (measured, relabelled) after the last regroup
  * read them, so instruments, layers and health are about to change.
  */
-export async function libraryProgress({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<StateCounts & { pending: number; sorting: boolean; healthComputedAt: string | null }> {
+export async function libraryProgress({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<LibraryProgress> {
   await assertLibrary({ studioId, libraryId });
   const c = (await countsFor(studioId, [libraryId])).get(libraryId)!;
   const [h, last] = await Promise.all([

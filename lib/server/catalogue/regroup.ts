@@ -9,8 +9,8 @@ import { DLS, type VelocityCurve } from "@/lib/catalog/velocity";
 import { db } from "../db";
 import { newId } from "../ids";
 import { noteRegroupDuration } from "./queue";
+import { jsonColumn } from "../json-column";
 
-const parse = <T,>(v: unknown): T => (typeof v === "string" ? JSON.parse(v) : v) as T;
 const isMic = (s: unknown): s is MicPosition => typeof s === "string" && (MIC_POSITIONS as readonly string[]).includes(s);
 
 /** The studio's nearest-neighbour model from the samples members labelled (family_source = person). */
@@ -18,7 +18,7 @@ export async function studioLabelModel(studioId: string): Promise<LabelModel | u
   const rows = await db()("samples").where({ studio_id: studioId, family_source: "person", state: "catalogued" }).whereNotNull("measurement").orderBy("confirmed_at", "desc").limit(5000).select("measurement", "family", "articulation");
   const examples = rows
     .filter((r) => isFamily(r.family) && isArticulation(r.articulation))
-    .map((r) => ({ features: featureVector(parse<Measurement>(r.measurement)), family: r.family, articulation: r.articulation }));
+    .map((r) => ({ features: featureVector(jsonColumn<Measurement>(r.measurement)), family: r.family, articulation: r.articulation }));
   return examples.length ? buildLabelModel(examples) : undefined;
 }
 
@@ -42,7 +42,7 @@ export async function regroupLibrary({ studioId, libraryId }: { studioId: string
       if (r.confirmed_mic === "-") confirmed.mic = null;
       else if (isMic(r.confirmed_mic)) confirmed.mic = r.confirmed_mic;
       if (r.confirmed_instrument_key) confirmed.instrumentKey = r.confirmed_instrument_key;
-      return { id: r.id, path: r.rel_path, sha256: r.sha256, measurement: parse<Measurement>(r.measurement), confirmed };
+      return { id: r.id, path: r.rel_path, sha256: r.sha256, measurement: jsonColumn<Measurement>(r.measurement), confirmed };
     });
     const curve: VelocityCurve = lib.velocity_curve === "dannenberg" ? { kind: "dannenberg" } : DLS;
     const cat = catalogueSamples(inputs, { labelModel, curve });

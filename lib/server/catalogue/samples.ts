@@ -1,22 +1,19 @@
 import "server-only";
-// Samples of a library: the paged browser (server-side sorting, filtering, paging), one sample's detail,
-// bulk relabel and confirm (labels become the member's: source "person"), and the stored file for listening.
+// Samples of a library, read-only: the paged browser (server-side sorting, filtering, paging), one sample's
+// detail, and the stored file for listening. The members' label writes are in sample-labels.ts.
 import type { Knex } from "knex";
 import { db } from "../db";
-import { logActivity } from "../activity";
-import { AppError, notFound } from "../errors";
+import { jsonColumn } from "../json-column";
+import { notFound } from "../errors";
 import { assertLibrary, countsFor } from "./libraries";
-import { enqueueRegroup } from "./queue";
-import { countWordMatches, pathContainsMatches, planWords, rowsCapped, searchableByWords, wherePathContains, whereWordsExist, wordMatches, type SearchMode } from "./words";
+import { countWordMatches, pathContainsMatches, planWords, rowsCapped, searchableByWords, wherePathContains, whereWordsExist, wordMatches } from "./words";
+import type { SampleDetail, SampleRow, SamplesPage, SearchMode } from "@/lib/api-types/samples";
 
 /** A words search lists up to this many matching ids at once (more are counted, and pages walk an index). */
 const ID_LIST_MAX = 5000;
 /** A page walk may read three times the rows it should need (evenly spread matches), at least this many. */
 const WALK_ROWS_MIN = 500;
 import type { SampleSort, SamplesQuery } from "@/lib/validation/library";
-import type { SampleRow } from "@/lib/types/catalogue";
-
-export type { SampleRow };
 
 const SORT_COLUMN: Record<SampleSort, string> = {
   name: "s.file_name",
@@ -67,15 +64,6 @@ function filtered(k: Knex, studioId: string, libraryId: string, q: Omit<SamplesQ
   return b;
 }
 
-export interface SamplesPage {
-  rows: SampleRow[];
-  total: number;
-  page: number;
-  pageSize: number;
-  /** How a search term was matched: "words" (path words starting with each word typed) or "contains" (the
-   * fallback when no word starts with it, or the term has no letters or digits). */
-  search?: SearchMode;
-}
 
 export async function listSamples({ studioId, libraryId, query }: { studioId: string; libraryId: string; query: SamplesQuery }): Promise<SamplesPage> {
   await assertLibrary({ studioId, libraryId });
@@ -189,7 +177,7 @@ async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, 
   return { rows: found.map(toRow), total };
 }
 
-export async function getSample({ studioId, libraryId, sampleId }: { studioId: string; libraryId: string; sampleId: string }) {
+export async function getSample({ studioId, libraryId, sampleId }: { studioId: string; libraryId: string; sampleId: string }): Promise<SampleDetail> {
   const r = await db()("samples as s")
     .leftJoin("instruments as i", function () {
       this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");
@@ -197,12 +185,11 @@ export async function getSample({ studioId, libraryId, sampleId }: { studioId: s
     .where({ "s.studio_id": studioId, "s.library_id": libraryId, "s.id": sampleId })
     .first([...LIST_COLS, "s.peaks", "s.reasons", "s.measurement"]);
   if (!r) throw notFound("The sample");
-  const parse = (v: unknown) => (v == null ? null : typeof v === "string" ? JSON.parse(v) : v);
-  const m = parse(r.measurement) as Record<string, any> | null;
+  const m = jsonColumn(r.measurement) as Record<string, any> | null;
   return {
     ...toRow(r),
-    peaks: parse(r.peaks) as { min: number[]; max: number[] } | null,
-    reasons: (parse(r.reasons) as string[] | null) ?? [],
+    peaks: jsonColumn(r.peaks) as { min: number[]; max: number[] } | null,
+    reasons: (jsonColumn(r.reasons) as string[] | null) ?? [],
     measurement: m ? { onsetMs: m.onsetMs, attackMs: m.attackMs, tail: m.tail, samplePeakDbfs: m.samplePeakDbfs, clippedRuns: m.clippedRuns, dcOffset: m.dcOffset, noiseFloorDbfs: m.noiseFloorDbfs, warnings: m.warnings } : null,
   };
 }
@@ -212,65 +199,4 @@ export async function sampleFile({ studioId, libraryId, sampleId }: { studioId: 
   const r = await db()("samples").where({ studio_id: studioId, library_id: libraryId, id: sampleId }).first("storage_key", "size_bytes", "file_name");
   if (!r) throw notFound("The sample");
   return { key: r.storage_key, size: Number(r.size_bytes), fileName: r.file_name };
-}
-
-async function ownedIds(trx: Knex.Transaction, studioId: string, libraryId: string, ids: string[]): Promise<string[]> {
-  const rows = await trx("samples").where({ studio_id: studioId, library_id: libraryId }).whereIn("id", ids).select("id");
-  if (rows.length !== new Set(ids).size) throw notFound("Some of the selected samples");
-  return rows.map((r) => r.id);
-}
-
-export interface RelabelInput { sampleIds: string[]; family?: string; articulation?: string; mic?: string | null; instrumentKey?: string }
-
-/** Sets labels on many samples at once; they become confirmed (source "person"), are logged, and trigger a regroup. */
-export async function relabelSamples({ studioId, libraryId, actorId, input }: { studioId: string; libraryId: string; actorId: string; input: RelabelInput }): Promise<{ updated: number }> {
-  await assertLibrary({ studioId, libraryId });
-  if (input.instrumentKey) {
-    const inst = await db()("instruments").where({ studio_id: studioId, library_id: libraryId, key: input.instrumentKey }).first("id");
-    if (!inst) throw new AppError("invalid-input", "That instrument is not in this library.");
-  }
-  const updated = await db().transaction(async (trx) => {
-    const ids = await ownedIds(trx, studioId, libraryId, input.sampleIds);
-    const patch: Record<string, unknown> = { confirmed_by: actorId, confirmed_at: trx.fn.now(3), updated_at: trx.fn.now(3) };
-    if (input.family !== undefined) Object.assign(patch, { confirmed_family: input.family, family: input.family, family_source: "person" });
-    if (input.articulation !== undefined) Object.assign(patch, { confirmed_articulation: input.articulation, articulation: input.articulation, articulation_source: "person" });
-    if (input.mic !== undefined) Object.assign(patch, { confirmed_mic: input.mic ?? "-", mic: input.mic });
-    if (input.instrumentKey !== undefined) Object.assign(patch, { confirmed_instrument_key: input.instrumentKey, instrument_key: input.instrumentKey });
-    for (let i = 0; i < ids.length; i += 1000) await trx("samples").whereIn("id", ids.slice(i, i + 1000)).update(patch);
-    const set = Object.fromEntries(Object.entries({ family: input.family, articulation: input.articulation, mic: input.mic, instrumentKey: input.instrumentKey }).filter(([, v]) => v !== undefined));
-    await logActivity(trx, { studioId, actorId, action: "samples.relabelled", subjectType: "library", subjectId: libraryId, details: { count: ids.length, set, sampleIds: ids.slice(0, 50) } });
-    return ids.length;
-  });
-  await enqueueRegroup({ studioId, libraryId });
-  return { updated };
-}
-
-/** Confirms the current family and articulation (and mic, instrument) of catalogued samples as they are. */
-export async function confirmSamples({ studioId, libraryId, actorId, sampleIds }: { studioId: string; libraryId: string; actorId: string; sampleIds: string[] }): Promise<{ confirmed: number; skipped: number }> {
-  await assertLibrary({ studioId, libraryId });
-  const confirmed = await db().transaction(async (trx) => {
-    await ownedIds(trx, studioId, libraryId, sampleIds);
-    const rows = await trx("samples").where({ studio_id: studioId, library_id: libraryId, state: "catalogued" }).whereIn("id", sampleIds).whereNotNull("family").select("id");
-    const ids = rows.map((r) => r.id as string);
-    for (let i = 0; i < ids.length; i += 1000) {
-      await trx("samples")
-        .whereIn("id", ids.slice(i, i + 1000))
-        .update({
-          confirmed_family: trx.ref("family"),
-          confirmed_articulation: trx.ref("articulation"),
-          confirmed_mic: trx.raw("COALESCE(mic, '-')"),
-          confirmed_instrument_key: trx.ref("instrument_key"),
-          family_source: "person",
-          articulation_source: "person",
-          confidence: 1,
-          confirmed_by: actorId,
-          confirmed_at: trx.fn.now(3),
-          updated_at: trx.fn.now(3),
-        });
-    }
-    await logActivity(trx, { studioId, actorId, action: "samples.confirmed", subjectType: "library", subjectId: libraryId, details: { count: ids.length, sampleIds: ids.slice(0, 50) } });
-    return ids.length;
-  });
-  await enqueueRegroup({ studioId, libraryId });
-  return { confirmed, skipped: sampleIds.length - confirmed };
 }

@@ -49,8 +49,6 @@ export async function sweepOrphanWords(k: Knex): Promise<number> {
   return n;
 }
 
-export type SearchMode = "words" | "contains";
-
 /** Whether a term can use the word index (it has letters or digits). */
 export const searchableByWords = (term: string) => searchRuns(term).length > 0;
 

@@ -5,30 +5,16 @@ import { db } from "../db";
 import { AppError, notFound } from "../errors";
 import { newId } from "../ids";
 import { logActivity } from "../activity";
+import { jsonColumn } from "../json-column";
 import { runAudit } from "@/lib/audit/audit";
-import { diffAudits, type AuditDiff } from "@/lib/audit/export";
+import { diffAudits } from "@/lib/audit/export";
 import type { AuditResult } from "@/lib/audit/types";
+import type { AuditComparison, AuditRecord, AuditSummaryRow, StudioCatalogueInstrument } from "@/lib/api-types/audits";
 import { getKit } from "./kits";
 import { getLayout } from "./layouts";
-import { loadStudioCatalogue, type StudioCatalogueInstrument } from "./catalogue-for-audit";
-
-export interface AuditSummaryRow {
-  id: string;
-  layoutId: string;
-  kitId: string | null;
-  layoutName: string;
-  kitName: string;
-  score: number;
-  silentPads: number;
-  standInPads: number;
-  conflicts: number;
-  createdAt: string;
-  createdBy: string | null;
-}
-export interface AuditRecord extends AuditSummaryRow { result: AuditResult }
+import { loadStudioCatalogue } from "./catalogue-for-audit";
 
 const iso = (d: unknown) => new Date(d as string).toISOString();
-const parse = (v: unknown) => (typeof v === "string" ? JSON.parse(v) : v);
 
 function summary(r: Record<string, unknown>): AuditSummaryRow {
   return {
@@ -68,11 +54,11 @@ export async function listAudits({ studioId, layoutId, limit = 200 }: { studioId
 export async function getAudit({ studioId, auditId }: { studioId: string; auditId: string }): Promise<AuditRecord> {
   const r = await db()("audits as a").leftJoin("users as u", "u.id", "a.created_by").where({ "a.studio_id": studioId, "a.id": auditId }).first("a.*", "u.name as created_by_name");
   if (!r) throw notFound("The audit");
-  return { ...summary(r), result: parse(r.result) as AuditResult };
+  return { ...summary(r), result: jsonColumn(r.result) as AuditResult };
 }
 
 /** What changed between two audits of the same layout. */
-export async function compareAudits({ studioId, before, after }: { studioId: string; before: string; after: string }): Promise<{ before: AuditSummaryRow; after: AuditSummaryRow; diff: AuditDiff }> {
+export async function compareAudits({ studioId, before, after }: { studioId: string; before: string; after: string }): Promise<AuditComparison> {
   const [a, b] = await Promise.all([getAudit({ studioId, auditId: before }), getAudit({ studioId, auditId: after })]);
   if (a.layoutId !== b.layoutId) throw new AppError("invalid-input", "Only audits of the same layout can be compared.");
   const { result: ra, ...sa } = a;

@@ -7,35 +7,10 @@ import "server-only";
 // reported one way everywhere.
 import type { Knex } from "knex";
 import { db } from "../db";
-import type { Family } from "@/lib/catalog/taxonomy";
+import { jsonColumnOrNull } from "../json-column";
 import { readCatalogue } from "@/lib/audit/catalogue-input";
-import type { CatalogueInstrument } from "@/lib/audit/types";
-
-const parseJson = (v: unknown): unknown => {
-  if (typeof v !== "string") return v;
-  try {
-    return JSON.parse(v);
-  } catch {
-    return null; // reported by the converter as "no layers list"
-  }
-};
-
-/** One instrument as the kit editor lists it (family, library, sample counts). */
-export interface InstrumentChoice {
-  id: string;
-  name: string;
-  family: Family;
-  libraryId: string;
-  libraryName: string;
-  pitchHz: number | null;
-  sampleCount: number;
-  articulations: string[];
-}
-
-/** The catalogue instrument plus the library it belongs to (the audition fetches sample audio per library). */
-export interface StudioCatalogueInstrument extends CatalogueInstrument {
-  libraryId: string;
-}
+import type { InstrumentChoice } from "@/lib/api-types/kits";
+import type { StudioCatalogueInstrument } from "@/lib/api-types/audits";
 
 /**
  * The studio's catalogue for lib/audit (every library, or only the given instrument ids), with what the
@@ -55,10 +30,11 @@ export async function readStudioCatalogue(
   const idByKey = new Map(insts.map((r) => [`${r.library_id}\u0000${r.key}`, r.id as string]));
   const reading = readCatalogue({
     instruments: insts.map((r) => ({ id: r.id, name: r.name, family: r.family, pitchHz: r.pitch_hz === null || r.pitch_hz === undefined ? null : Number(r.pitch_hz) })),
-    // groups of instruments not asked for are not read
+    // groups of instruments not asked for are not read; layers that are not JSON are reported by the
+    // converter as "no layers list"
     groups: groups.flatMap((g) => {
       const instrumentId = idByKey.get(`${g.library_id}\u0000${g.instrument_key}`);
-      return instrumentId ? [{ instrumentId, articulation: g.articulation, mic: g.mic ?? null, layers: parseJson(g.layers) }] : [];
+      return instrumentId ? [{ instrumentId, articulation: g.articulation, mic: g.mic ?? null, layers: jsonColumnOrNull(g.layers) }] : [];
     }),
   });
   const libraryOf = new Map(insts.map((r) => [r.id as string, r.library_id as string]));

@@ -6,26 +6,24 @@ import { db } from "../db";
 import { AppError, notFound } from "../errors";
 import { newId } from "../ids";
 import { logActivity } from "../activity";
+import { jsonColumn } from "../json-column";
 import { buildDefaultKit } from "@/lib/audit/kits";
 import { getTemplate } from "@/lib/audit/templates";
 import type { Kit, KitSlot } from "@/lib/audit/types";
+import type { KitRecord, KitSummary } from "@/lib/api-types/kits";
 import { loadStudioCatalogue } from "./catalogue-for-audit";
 
-export interface KitSummary { id: string; name: string; slots: number; filled: number; updatedAt: string }
-export interface KitRecord { id: string; name: string; kit: Kit; createdAt: string; updatedAt: string }
-
 const iso = (d: unknown) => new Date(d as string).toISOString();
-const parse = (v: unknown) => (typeof v === "string" ? JSON.parse(v) : v);
 
 function toRecord(r: Record<string, unknown>): KitRecord {
-  const body = parse(r.body) as Kit;
+  const body = jsonColumn(r.body) as Kit;
   return { id: r.id as string, name: r.name as string, kit: { ...body, id: r.id as string, name: r.name as string }, createdAt: iso(r.created_at), updatedAt: iso(r.updated_at) };
 }
 
 export async function listKits({ studioId }: { studioId: string }): Promise<KitSummary[]> {
   const rows = await db()("kits").where({ studio_id: studioId }).orderBy("name").select("id", "name", "body", "updated_at");
   return rows.map((r) => {
-    const k = parse(r.body) as Kit;
+    const k = jsonColumn(r.body) as Kit;
     return { id: r.id, name: r.name, slots: k.slots.length, filled: k.slots.filter((s) => s.instrumentId).length, updatedAt: iso(r.updated_at) };
   });
 }

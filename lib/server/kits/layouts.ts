@@ -6,24 +6,22 @@ import { db } from "../db";
 import { AppError, notFound } from "../errors";
 import { newId } from "../ids";
 import { logActivity } from "../activity";
+import { jsonColumn } from "../json-column";
 import { getTemplate } from "@/lib/audit/templates";
 import type { Layout, Pad } from "@/lib/audit/types";
-
-export interface LayoutSummary { id: string; name: string; kind: "grid" | "zones"; rows: number | null; cols: number | null; pads: number; pedal: boolean; updatedAt: string }
-export interface LayoutRecord { id: string; name: string; layout: Layout; createdAt: string; updatedAt: string }
+import type { LayoutRecord, LayoutSummary } from "@/lib/api-types/layouts";
 
 const iso = (d: unknown) => new Date(d as string).toISOString();
-const parse = (v: unknown) => (typeof v === "string" ? JSON.parse(v) : v);
 
 function toRecord(r: Record<string, unknown>): LayoutRecord {
-  const body = parse(r.body) as Layout;
+  const body = jsonColumn(r.body) as Layout;
   return { id: r.id as string, name: r.name as string, layout: { ...body, id: r.id as string, name: r.name as string }, createdAt: iso(r.created_at), updatedAt: iso(r.updated_at) };
 }
 
 export async function listLayouts({ studioId }: { studioId: string }): Promise<LayoutSummary[]> {
   const rows = await db()("layouts").where({ studio_id: studioId }).orderBy("name").select("id", "name", "body", "updated_at");
   return rows.map((r) => {
-    const l = parse(r.body) as Layout;
+    const l = jsonColumn(r.body) as Layout;
     return {
       id: r.id, name: r.name, kind: l.surface.kind,
       rows: l.surface.kind === "grid" ? l.surface.rows : null, cols: l.surface.kind === "grid" ? l.surface.cols : null,

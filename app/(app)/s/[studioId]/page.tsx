@@ -3,18 +3,10 @@ import Link from "next/link";
 import { requireStudio } from "@/lib/server/session";
 import { listMembers } from "@/lib/server/studios";
 import { studioOverview } from "@/lib/server/overview";
-import { can, ROLE_PERMISSIONS } from "@/lib/permissions";
+import { can, PERMISSION_INFO, ROLE_PERMISSIONS } from "@/lib/permissions";
 import { RenameStudioForm } from "@/components/studio-forms";
 
 export const metadata: Metadata = { title: "Studio" };
-
-const WORDS: Record<string, string> = {
-  "studio:read": "view libraries, samples, kits, layouts and audits; listen; export",
-  "studio:write": "upload, label and confirm samples; edit kits and layouts; run audits",
-  "studio:manage": "rename the studio and delete libraries",
-  "members:manage": "invite people, change roles, remove members",
-  "activity:read": "read the activity log",
-};
 
 export default async function StudioOverview({ params }: { params: Promise<{ studioId: string }> }) {
   const { studioId } = await params;
@@ -69,7 +61,7 @@ export default async function StudioOverview({ params }: { params: Promise<{ stu
       <section className="card space-y-3">
         <h2>Your role: {studio.role}</h2>
         <ul className="list-disc space-y-1 pl-5 text-sm" data-testid="my-permissions">
-          {ROLE_PERMISSIONS[studio.role].map((p) => <li key={p}>{WORDS[p]}</li>)}
+          {ROLE_PERMISSIONS[studio.role].map((p) => <li key={p}>{PERMISSION_INFO[p].description}</li>)}
         </ul>
       </section>
       <section className="card space-y-3 lg:col-span-2">

@@ -45,7 +45,7 @@ export default async function ActivityPage({ params, searchParams }: { params: P
   const { studioId } = await params;
   const { before } = await searchParams;
   const { studio } = await requireStudio(studioId);
-  if (!can(studio.role, "activity:read")) return <NotAllowed what="read the activity log" role={studio.role} />;
+  if (!can(studio.role, "activity:read")) return <NotAllowed permission="activity:read" role={studio.role} />;
   const limit = 50;
   const beforeId = before && /^\d+$/.test(before) ? Number(before) : undefined;
   const entries = await listActivity({ studioId: studio.id, before: beforeId, limit });

@@ -4,7 +4,7 @@ import { requireStudio } from "@/lib/server/session";
 import { listKits } from "@/lib/server/kits/kits";
 import { can } from "@/lib/permissions";
 import { CreateKitForm } from "@/components/kit/create-kit";
-import { ImportJson } from "@/components/kit/entity-actions";
+import { ImportKitFile } from "@/components/item-actions";
 
 export const metadata: Metadata = { title: "Kits" };
 
@@ -34,7 +34,7 @@ export default async function KitsPage({ params }: { params: Promise<{ studioId:
       {write && (
         <aside className="space-y-6">
           <section className="card space-y-3"><h2>New kit</h2><CreateKitForm studioId={studio.id} /></section>
-          <section className="card"><ImportJson action={`/api/studios/${studio.id}/kits/import`} pageBase={`/s/${studio.id}/kits`} label="Import a kit file (kitwright.kit/v1)" /></section>
+          <section className="card"><ImportKitFile studioId={studio.id} label="Import a kit file (kitwright.kit/v1)" /></section>
         </aside>
       )}
     </div>

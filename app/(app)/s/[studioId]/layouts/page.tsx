@@ -4,7 +4,7 @@ import { requireStudio } from "@/lib/server/session";
 import { listLayouts } from "@/lib/server/kits/layouts";
 import { can } from "@/lib/permissions";
 import { CreateLayoutForm } from "@/components/layout-editor/create-layout";
-import { ImportJson } from "@/components/kit/entity-actions";
+import { ImportLayoutFile } from "@/components/item-actions";
 
 export const metadata: Metadata = { title: "Layouts" };
 
@@ -36,7 +36,7 @@ export default async function LayoutsPage({ params }: { params: Promise<{ studio
       {write && (
         <aside className="space-y-6">
           <section className="card space-y-3"><h2>New layout</h2><CreateLayoutForm studioId={studio.id} /></section>
-          <section className="card"><ImportJson action={`/api/studios/${studio.id}/layouts/import`} pageBase={`/s/${studio.id}/layouts`} label="Import a layout file (kitwright.layout/v1)" /></section>
+          <section className="card"><ImportLayoutFile studioId={studio.id} label="Import a layout file (kitwright.layout/v1)" /></section>
         </aside>
       )}
     </div>

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { requireStudio } from "@/lib/server/session";
 import { listLibraries } from "@/lib/server/catalogue/libraries";
-import { can } from "@/lib/permissions";
+import { can, whoCan } from "@/lib/permissions";
 import { CreateLibraryForm } from "@/components/library/library-forms";
 import { StateCountsLine } from "@/components/library/state-counts";
 
@@ -19,7 +19,7 @@ export default async function LibrariesPage({ params }: { params: Promise<{ stud
         {libraries.length === 0 && (
           <div className="card">
             <h2>No libraries yet</h2>
-            <p className="mt-2 text-sm text-muted">A library is one sample pack or recording project. {write ? "Create one, then drop a folder or a zip pack of WAV one-shots on it." : "Editors and owners can create one."}</p>
+            <p className="mt-2 text-sm text-muted">A library is one sample pack or recording project. {write ? "Create one, then drop a folder or a zip pack of WAV one-shots on it." : `${whoCan("studio:write", { capital: true })} can create one.`}</p>
           </div>
         )}
         {libraries.map((l) => (

@@ -5,11 +5,13 @@ import { requireStudio } from "@/lib/server/session";
 import { getAudit, listAudits } from "@/lib/server/kits/audits";
 import { AppError } from "@/lib/server/errors";
 import { can } from "@/lib/permissions";
+import { EXPORT_FORMATS } from "@/lib/audit/export-formats";
 import { PadChart } from "@/components/audit/pad-chart";
 import { FindingsTable } from "@/components/audit/findings-table";
 import { PedalZonesBar } from "@/components/audit/pedal-bar";
 import { OutcomeIcon } from "@/components/audit/outcome-icon";
 import { CompareWith, PrintButton, RunAuditForm } from "@/components/audit/run-audit";
+import { paths } from "@/components/data/paths";
 
 export const metadata: Metadata = { title: "Audit" };
 
@@ -20,7 +22,6 @@ export default async function AuditPage({ params }: { params: Promise<{ studioId
   const a = await getAudit({ studioId: studio.id, auditId }).catch((e) => { if (e instanceof AppError && e.status === 404) notFound(); throw e; });
   const r = a.result;
   const others = (await listAudits({ studioId: studio.id, layoutId: a.layoutId })).filter((x) => x.id !== a.id);
-  const exp = `/api/studios/${studio.id}/audits/${a.id}/export`;
   const s = r.summary;
   return (
     <div className="space-y-6">
@@ -40,9 +41,7 @@ export default async function AuditPage({ params }: { params: Promise<{ studioId
           <p className="text-sm text-muted">Audited <span className="num">{a.createdAt.replace("T", " ").slice(0, 19)}</span> UTC{a.createdBy ? ` by ${a.createdBy}` : ""}</p>
         </div>
         <div className="no-print flex flex-wrap gap-2">
-          <a className="btn-quiet" href={`${exp}?format=csv`} download data-testid="export-csv">CSV</a>
-          <a className="btn-quiet" href={`${exp}?format=json`} download>JSON</a>
-          <a className="btn-quiet" href={`${exp}?format=midi`} download>MIDI file</a>
+          {EXPORT_FORMATS.map((f) => <a key={f.id} className="btn-quiet" href={paths.auditExport(studio.id, a.id, f.id)} download data-testid={`export-${f.id}`}>{f.label}</a>)}
           <PrintButton />
         </div>
       </header>

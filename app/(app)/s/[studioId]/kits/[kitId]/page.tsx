@@ -7,7 +7,7 @@ import { listInstrumentChoices } from "@/lib/server/kits/catalogue-for-audit";
 import { AppError } from "@/lib/server/errors";
 import { can } from "@/lib/permissions";
 import { KitEditor } from "@/components/kit/kit-editor";
-import { EntityActions } from "@/components/kit/entity-actions";
+import { KitActions } from "@/components/item-actions";
 
 export const metadata: Metadata = { title: "Kit" };
 
@@ -23,7 +23,7 @@ export default async function KitPage({ params }: { params: Promise<{ studioId: 
       <p className="no-print text-sm"><Link href={`/s/${studio.id}/kits`}>← All kits</Link></p>
       <div className="flex flex-wrap items-start justify-between gap-4">
         <h2 className="text-xl" data-testid="kit-name">{kit.name}</h2>
-        <EntityActions apiBase={`/api/studios/${studio.id}/kits/${kit.id}`} pageBase={`/s/${studio.id}/kits`} listHref={`/s/${studio.id}/kits`} name={kit.name} what="kit" canWrite={write} />
+        <KitActions studioId={studio.id} kitId={kit.id} name={kit.name} canWrite={write} />
       </div>
       <KitEditor key={`${kit.id}:${kit.name}`} studioId={studio.id} kit={kit.kit} instruments={instruments} canWrite={write} />
     </div>

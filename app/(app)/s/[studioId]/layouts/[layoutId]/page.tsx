@@ -7,7 +7,7 @@ import { getKit, listKits } from "@/lib/server/kits/kits";
 import { AppError } from "@/lib/server/errors";
 import { can } from "@/lib/permissions";
 import { LayoutEditor } from "@/components/layout-editor/layout-editor";
-import { EntityActions } from "@/components/kit/entity-actions";
+import { LayoutActions } from "@/components/item-actions";
 
 export const metadata: Metadata = { title: "Layout" };
 
@@ -26,7 +26,7 @@ export default async function LayoutPage({ params }: { params: Promise<{ studioI
       <p className="no-print text-sm"><Link href={`/s/${studio.id}/layouts`}>← All layouts</Link> · <Link href={`/s/${studio.id}/audits?layoutId=${rec.id}`}>Audits of this layout</Link></p>
       <div className="flex flex-wrap items-start justify-between gap-4">
         <h2 className="text-xl" data-testid="layout-name">{rec.name}</h2>
-        <EntityActions apiBase={`/api/studios/${studio.id}/layouts/${rec.id}`} pageBase={`/s/${studio.id}/layouts`} listHref={`/s/${studio.id}/layouts`} name={rec.name} what="layout" canWrite={write} />
+        <LayoutActions studioId={studio.id} layoutId={rec.id} name={rec.name} canWrite={write} />
       </div>
       <LayoutEditor key={`${rec.id}:${rec.name}`} studioId={studio.id} layout={rec.layout} kits={kits} canWrite={write} />
     </div>

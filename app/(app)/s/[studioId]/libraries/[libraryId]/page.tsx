@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { Suspense } from "react";
 import { requireStudio } from "@/lib/server/session";
 import { getLibrary, libraryProgress } from "@/lib/server/catalogue/libraries";
-import { listInstruments } from "@/lib/server/catalogue/views";
+import { listInstruments } from "@/lib/server/catalogue/instruments";
 import { can } from "@/lib/permissions";
 import { LibraryProgress } from "@/components/library/progress";
 import { Uploader } from "@/components/library/uploader";

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { requireStudio } from "@/lib/server/session";
-import { libraryHealth } from "@/lib/server/catalogue/views";
+import { libraryHealth } from "@/lib/server/catalogue/reports";
 
 export const metadata: Metadata = { title: "Library health" };
 

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { requireStudio } from "@/lib/server/session";
-import { listInstruments } from "@/lib/server/catalogue/views";
+import { listInstruments } from "@/lib/server/catalogue/instruments";
 import { can } from "@/lib/permissions";
 import { InstrumentsList } from "@/components/library/instruments";
 

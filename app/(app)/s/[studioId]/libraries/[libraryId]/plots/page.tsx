@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { requireStudio } from "@/lib/server/session";
-import { libraryPlots } from "@/lib/server/catalogue/views";
+import { libraryPlots } from "@/lib/server/catalogue/reports";
 import { FeatureMap, LoudnessLadder } from "@/components/library/plots";
 
 export const metadata: Metadata = { title: "Plots" };

@@ -1,6 +1,6 @@
 // PATCH /api/studios/:studioId/libraries/:libraryId/instruments/:instrumentId – rename (kept across regroups).
 import { route } from "@/lib/server/route";
-import { renameInstrument } from "@/lib/server/catalogue/views";
+import { renameInstrument } from "@/lib/server/catalogue/instruments";
 import { instrumentParams, renameInstrumentSchema } from "@/lib/validation/library";
 
 export const PATCH = route({ access: { kind: "studio", permission: "studio:write" }, params: instrumentParams, body: renameInstrumentSchema }, async ({ studio, user, params, body }) => {

@@ -1,7 +1,7 @@
 // POST /api/studios/:studioId/libraries/:libraryId/instruments/merge – { sourceIds, targetId }: move the
 // sources' samples into the target instrument; regroups the library.
 import { route } from "@/lib/server/route";
-import { mergeInstruments } from "@/lib/server/catalogue/views";
+import { mergeInstruments } from "@/lib/server/catalogue/instruments";
 import { libraryParams, mergeInstrumentsSchema } from "@/lib/validation/library";
 
 export const POST = route({ access: { kind: "studio", permission: "studio:write" }, params: libraryParams, body: mergeInstrumentsSchema }, async ({ studio, user, params, body }) =>

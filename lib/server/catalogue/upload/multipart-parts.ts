@@ -2,7 +2,7 @@ import "server-only";
 // Every part of a multipart/form-data body, as its Content-Disposition header says, in order: busboy skips a
 // part whose header it cannot read (a file name with a raw '"' in it, say) without a word, and one bad file must
 // never vanish without an outcome. The upload feeds the body through this scanner as well, and asks busboy's own
-// header reader which parts it will have skipped (lib/server/catalogue/upload.ts).
+// header reader which parts it will have skipped (intake.ts).
 // RFC 2046 section 5.1.1: a part starts after CRLF "--" boundary, the rest of that line, then header lines up to
 // an empty line; "--" right after the boundary closes the body.
 import { parseContentType, parseDisposition } from "busboy/lib/utils.js";

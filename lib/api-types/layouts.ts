@@ -1,0 +1,25 @@
+// Requests and answers of /api/studios/:id/layouts (list, create, import) and /api/studios/:id/layouts/:layoutId
+// (read, save, rename, copy, delete). Types only, shared by lib/server and components/data.
+import type { z } from "zod";
+import type { Layout } from "@/lib/audit/types";
+import type { createLayoutSchema } from "@/lib/validation/kit";
+
+export interface LayoutSummary { id: string; name: string; kind: "grid" | "zones"; rows: number | null; cols: number | null; pads: number; pedal: boolean; updatedAt: string }
+export interface LayoutRecord { id: string; name: string; layout: Layout; createdAt: string; updatedAt: string }
+
+/** GET /api/studios/:id/layouts */
+export interface LayoutList {
+  layouts: LayoutSummary[];
+}
+/** Answer of every route that reads or writes one layout (GET, PATCH, POST create / copy / import). */
+export interface LayoutAnswer {
+  layout: LayoutRecord;
+}
+
+/** POST /api/studios/:id/layouts: a template, a blank grid (rows x cols) or a blank list of trigger zones. */
+export type CreateLayoutBody = z.input<typeof createLayoutSchema>;
+/** PATCH /api/studios/:id/layouts/:layoutId: the editor saves the whole layout (the server keeps the row id). */
+export interface UpdateLayoutBody {
+  name?: string;
+  layout?: Omit<Layout, "id">;
+}
