@@ -233,12 +233,19 @@ function fitWords(m: Measurement, family: Family): string | null {
   const good = RULES[family].filter((r) => membership(f, r) > 0.6).map((r) => words[r[0]]);
   const bad = RULES[family].filter((r) => membership(f, r) < 0.1).map((r) => words[r[0]]);
   const out: string[] = [];
-  if (good.length) out.push(`${[...new Set(good)].join(", ")} as expected of a ${family}`);
-  if (bad.length) out.push(`unusual ${[...new Set(bad)].join(", ")} for a ${family}`);
+  if (good.length) out.push(`${[...new Set(good)].join(", ")} as expected of ${aFamily(family)}`);
+  if (bad.length) out.push(`unusual ${[...new Set(bad)].join(", ")} for ${aFamily(family)}`);
   return out.length ? out.join("; ") : null;
 }
 
 const pctWord = (x: number) => `${Math.round(x * 100)} %`;
+
+/** A family in running text: "a hi-hat", "a hand drum", "an other sound". */
+function aFamily(f: Family): string {
+  if (f === "other") return "another kind of percussion";
+  const w = f === "hand-drum" ? "hand drum" : f;
+  return `${/^[aeiou]/.test(w) ? "an" : "a"} ${w}`;
+}
 
 /**
  * Family and articulation from the trained sound model. The confidence is calibrated on held-out recordings;
@@ -255,7 +262,7 @@ export function suggestByModel(m: Measurement, model: SoundModel): SoundSuggesti
   const articulation = p.articulation ?? rulesArt.articulation;
   const reasons = [
     soundInWords(m),
-    `sounds most like a ${p.family}${next ? `; next: ${next[0]}` : ""} (trained on real recordings; right ${pctWord(p.confidence)} of the time at this certainty)`,
+    `sounds most like ${aFamily(p.family)}${next ? `; next: ${aFamily(next[0])}` : ""} (trained on real recordings; right ${pctWord(p.confidence)} of the time at this certainty)`,
   ];
   const fit = fitWords(m, p.family);
   if (fit) reasons.push(fit);
