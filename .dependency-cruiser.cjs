@@ -1,7 +1,7 @@
 // Which folders may import which (dependency-cruiser 17). Checked by tests/layering.test.ts (unit project,
 // so by `scripts/test.sh`), or by hand: npx depcruise app components lib workers cli db scripts bench tests --config .dependency-cruiser.cjs
 //
-//   lib/audio, lib/catalog, lib/audit   the pure core: each other and their listed packages only, no Node built-in
+//   lib/audio, lib/catalogue, lib/audit   the pure core: each other and their listed packages only, no Node built-in
 //   lib/synth                           pure too: the core and itself
 //   lib/audio-pool                      lib/audio, Node built-ins and tsx (its thread bootstrap) only
 //   lib/api-types                       request/answer types for server and client: types only (data-layer.test.ts),
@@ -19,17 +19,17 @@
 const PURE_PACKAGES = ["wavefile", "music-metadata", "meyda", "fft.js", "simple-statistics", "ml-random-forest", "zod"];
 const pkg = (names) => `^node_modules/(${names.map((n) => n.replace(/[.]/g, "\\.")).join("|")})/`;
 const TEST_FILE = "(\\.test\\.ts|/test-[a-z-]+\\.ts)$";
-const PURE = "^lib/(audio|catalog|audit)/";
+const PURE = "^lib/(audio|catalogue|audit)/";
 const OUTSIDE_CORE = "^(lib/server|lib/audio-pool|workers|app|components|cli|db)/";
 
 module.exports = {
   forbidden: [
     {
       name: "pure-core-imports-only-core",
-      comment: "lib/audio, lib/catalog and lib/audit import each other and their listed packages only (no Node built-in, no framework, no server)",
+      comment: "lib/audio, lib/catalogue and lib/audit import each other and their listed packages only (no Node built-in, no framework, no server)",
       severity: "error",
       from: { path: PURE, pathNot: TEST_FILE },
-      to: { pathNot: ["^lib/(audio|catalog|audit)/", pkg(PURE_PACKAGES)] },
+      to: { pathNot: ["^lib/(audio|catalogue|audit)/", pkg(PURE_PACKAGES)] },
     },
     {
       name: "pure-core-tests-stay-out-of-the-server",
@@ -43,7 +43,7 @@ module.exports = {
       comment: "lib/synth (the demo and test synthesizer) imports the pure core and itself only",
       severity: "error",
       from: { path: "^lib/synth/", pathNot: TEST_FILE },
-      to: { pathNot: ["^lib/(audio|catalog|audit|synth)/"] },
+      to: { pathNot: ["^lib/(audio|catalogue|audit|synth)/"] },
     },
     {
       name: "audio-pool-imports-audio-and-node-only",
@@ -57,7 +57,7 @@ module.exports = {
       comment: "lib/api-types holds the request and answer shapes both server and client import: it imports the pure core, lib/validation, lib/permissions and zod at most, never the server",
       severity: "error",
       from: { path: "^lib/api-types/" },
-      to: { pathNot: ["^lib/(audio|catalog|audit|api-types|validation)/", "^lib/permissions\\.ts$", pkg(["zod"])] },
+      to: { pathNot: ["^lib/(audio|catalogue|audit|api-types|validation)/", "^lib/permissions\\.ts$", pkg(["zod"])] },
     },
     {
       name: "server-never-imports-up",

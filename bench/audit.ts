@@ -5,7 +5,7 @@
 import { indexCatalogue, runAudit } from "../lib/audit/audit";
 import { buildDefaultKit } from "../lib/audit/kits";
 import type { CatalogueInstrument, Layout, Pad } from "../lib/audit/types";
-import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation } from "../lib/catalog/taxonomy";
+import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation } from "../lib/catalogue/taxonomy";
 import { mulberry32 as rng } from "../lib/synth/rng";
 
 function arg(name: string, dflt: number): number {

@@ -10,7 +10,7 @@ import { db } from "@/lib/server/db";
 import { env } from "@/lib/server/env";
 import { createSessionCookie, createStudio, createUser } from "@/db/factories";
 import { insertSamplesWithWords } from "@/lib/server/catalogue/words";
-import { FAMILIES, FAMILY_ARTICULATIONS } from "@/lib/catalog/taxonomy";
+import { FAMILIES, FAMILY_ARTICULATIONS } from "@/lib/catalogue/taxonomy";
 import * as samplesRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/samples/route";
 import { mulberry32 as rng } from "../lib/synth/rng";
 

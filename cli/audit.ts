@@ -91,7 +91,7 @@ async function loadLayout(arg: string): Promise<Layout> {
 
 /**
  * Catalogue a folder exactly as `kitwright catalogue` does (the same function: measure every WAV with lib/audio,
- * sort with lib/catalog, instrument pitch included), then read it as the auditor's input with the converter the
+ * sort with lib/catalogue, instrument pitch included), then read it as the auditor's input with the converter the
  * server uses too (lib/audit/catalogue-input.ts).
  */
 async function catalogueFolder(dir: string, warn: (s: string) => void): Promise<CatalogueInstrument[]> {

@@ -6,8 +6,8 @@ import { createHash } from "node:crypto";
 import { readFile, stat } from "node:fs/promises";
 import path from "node:path";
 import type { Measurement } from "../lib/audio";
-import { catalogueSamples, type Catalogue, type CatalogueEntry, type CatalogueSampleInput } from "../lib/catalog/catalogue";
-import type { VelocityCurve } from "../lib/catalog/velocity";
+import { catalogueSamples, type Catalogue, type CatalogueEntry, type CatalogueSampleInput } from "../lib/catalogue/catalogue";
+import type { VelocityCurve } from "../lib/catalogue/velocity";
 import { findWavs, inOrder, poolFor } from "./files";
 
 const USAGE = `usage: kitwright catalogue <folder> [--json | --csv] [--curve dls|dannenberg]

@@ -44,18 +44,18 @@ describe("layering (dependency-cruiser)", () => {
     tmp = fs.mkdtempSync(path.join(os.tmpdir(), "kw-layers-"));
     const files: Record<string, string> = {
       "tsconfig.json": JSON.stringify({ compilerOptions: { strict: true, module: "esnext", moduleResolution: "bundler" } }),
-      "lib/catalog/ok.ts": 'import { a } from "../audit/ok";\nexport const c = a;\n', // allowed: core to core
+      "lib/catalogue/ok.ts": 'import { a } from "../audit/ok";\nexport const c = a;\n', // allowed: core to core
       "lib/audit/ok.ts": "export const a = 1;\n",
       "lib/audio/uses-fs.ts": 'import fs from "node:fs";\nexport const f = fs;\n',
       "lib/audio/uses-server.ts": 'import { s } from "../server/s";\nexport const x = s;\n',
       "lib/audit/uses-knex.ts": 'import knex from "knex";\nexport const k = knex;\n',
-      "lib/catalog/ok.test.ts": 'import { s } from "../server/s";\nexport const t = s;\n',
+      "lib/catalogue/ok.test.ts": 'import { s } from "../server/s";\nexport const t = s;\n',
       "lib/server/s.ts": 'import { w } from "../../workers/w";\nexport const s = w;\n',
       "workers/w.ts": "export const w = 1;\n",
       "components/c.tsx": 'import type { S } from "../lib/server/types";\nexport const c: S | null = null;\n',
       "lib/server/types.ts": "export type S = string;\n",
       "cli/x.ts": 'import { s } from "../lib/server/s";\nexport const x = s;\n',
-      "lib/audio-pool/p.ts": 'import { c } from "../catalog/ok";\nexport const p = c;\n',
+      "lib/audio-pool/p.ts": 'import { c } from "../catalogue/ok";\nexport const p = c;\n',
       "lib/synth/s.ts": 'import { s } from "../server/s";\nexport const y = s;\n',
       "lib/api-types/t.ts": 'import type { S } from "../server/types";\nexport type T = S;\n',
       "lib/api-types/ok.ts": "export type A = { id: string };\n",
@@ -74,18 +74,18 @@ describe("layering (dependency-cruiser)", () => {
       "pure-core-imports-only-core: lib/audio/uses-fs.ts -> fs",
       "pure-core-imports-only-core: lib/audio/uses-server.ts -> lib/server/s.ts",
       "pure-core-imports-only-core: lib/audit/uses-knex.ts -> knex",
-      "pure-core-tests-stay-out-of-the-server: lib/catalog/ok.test.ts -> lib/server/s.ts",
+      "pure-core-tests-stay-out-of-the-server: lib/catalogue/ok.test.ts -> lib/server/s.ts",
       "server-never-imports-up: lib/server/s.ts -> workers/w.ts",
       "components-not-server: components/c.tsx -> lib/server/types.ts",
       "component-tests-only-the-error-door: components/c.test.ts -> lib/server/s.ts",
       "cli-without-server: cli/x.ts -> lib/server/s.ts",
       "only-workers-import-workers: lib/server/s.ts -> workers/w.ts",
-      "audio-pool-imports-audio-and-node-only: lib/audio-pool/p.ts -> lib/catalog/ok.ts",
+      "audio-pool-imports-audio-and-node-only: lib/audio-pool/p.ts -> lib/catalogue/ok.ts",
       "synth-is-pure: lib/synth/s.ts -> lib/server/s.ts",
       "types-are-neutral: lib/api-types/t.ts -> lib/server/types.ts",
     ]) expect(got, want).toContain(want);
     // core to core is allowed, and so are components reading the shared request and answer types
-    expect([...got].some((g) => g.includes("lib/catalog/ok.ts -> lib/audit/ok.ts"))).toBe(false);
+    expect([...got].some((g) => g.includes("lib/catalogue/ok.ts -> lib/audit/ok.ts"))).toBe(false);
     expect([...got].some((g) => g.includes("components/uses-api-types.tsx"))).toBe(false);
     // a component's test may read the server's error answers, and only those
     expect([...got].some((g) => g.includes("components/reads-errors.test.ts"))).toBe(false);

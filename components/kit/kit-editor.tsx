@@ -6,7 +6,7 @@ import { useMemo, useState } from "react";
 import { useRouter } from "next/navigation";
 import { FormError, Message } from "@/components/form-bits";
 import { useSaveKitSlots } from "@/components/data/kits";
-import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalog/taxonomy";
+import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalogue/taxonomy";
 import { orderTomsByPitch } from "@/lib/audit/kits";
 import type { Kit, KitSlot } from "@/lib/audit/types";
 import type { InstrumentChoice } from "@/lib/api-types/kits";

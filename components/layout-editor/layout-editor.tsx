@@ -9,7 +9,7 @@ import { useSaveLayout } from "@/components/data/layouts";
 import { useMidi, type MidiEvent } from "@/components/midi/use-midi";
 import { MidiMonitor, MidiStatusLine } from "@/components/midi/midi-panel";
 import { MiddleCSetting, noteName, useMiddleC } from "@/components/midi/notes";
-import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalog/taxonomy";
+import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalogue/taxonomy";
 import type { HiHatPedal, Layout, LayoutSlot, Pad } from "@/lib/audit/types";
 import { PedalEditor } from "./pedal-editor";
 

@@ -1,7 +1,7 @@
 "use client";
 // The hi-hat pedal: controller number (4 = Foot Controller by default), channel, slot, which end is closed,
 // zones over 0-127 aimed at openness articulations, and the pedal-chick note.
-import type { Articulation } from "@/lib/catalog/taxonomy";
+import type { Articulation } from "@/lib/catalogue/taxonomy";
 import type { HiHatPedal, LayoutSlot } from "@/lib/audit/types";
 import { noteName, type MiddleC } from "@/components/midi/note-name";
 import { PedalZonesBar } from "@/components/audit/pedal-bar";

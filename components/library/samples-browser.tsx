@@ -9,8 +9,8 @@ import { FormError, Message } from "../form-bits";
 import { useConfirmSamples, useRelabelSamples, useSamplesPage } from "../data/samples";
 import { StateTag } from "./state-counts";
 import { SampleDetail } from "./sample-detail";
-import { ARTICULATIONS, FAMILIES } from "@/lib/catalog/taxonomy";
-import { MIC_POSITIONS } from "@/lib/catalog/names";
+import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
+import { MIC_POSITIONS } from "@/lib/catalogue/names";
 import type { RelabelBody, SampleRow } from "@/lib/api-types/samples";
 
 type Inst = { key: string; name: string; family: string };

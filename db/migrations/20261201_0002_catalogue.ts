@@ -1,6 +1,6 @@
 // Catalogue tables: libraries, samples (with their measurement and sorted labels), instruments, layer
 // groups and library health. The regroup job rewrites instruments, layer groups and health of a library
-// from lib/catalog's catalogueSamples(); sample rows keep per-sample columns for fast browsing.
+// from lib/catalogue's catalogueSamples(); sample rows keep per-sample columns for fast browsing.
 import type { Knex } from "knex";
 
 export async function up(knex: Knex): Promise<void> {
@@ -80,7 +80,7 @@ export async function up(knex: Knex): Promise<void> {
     t.string("id", 36).primary();
     t.string("studio_id", 36).notNullable().references("studios.id").onDelete("CASCADE");
     t.string("library_id", 36).notNullable().references("libraries.id").onDelete("CASCADE");
-    t.string("key", 191).notNullable(); // deterministic key from lib/catalog (stable across regroups)
+    t.string("key", 191).notNullable(); // deterministic key from lib/catalogue (stable across regroups)
     t.string("name", 160).notNullable();
     t.string("family", 20).notNullable();
     t.float("pitch_hz").nullable();

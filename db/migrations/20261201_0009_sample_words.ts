@@ -1,4 +1,4 @@
-// Words of each sample's path (lib/catalog/path-words.ts), for the samples table's search: (library, word,
+// Words of each sample's path (lib/catalogue/path-words.ts), for the samples table's search: (library, word,
 // sample) is the primary key, so "words starting with rr2 in this library" is one index range, counted without
 // reading a sample row; the second index, (sample_id, word), answers "does this sample have a word starting
 // with ..." in one dive.
@@ -8,7 +8,7 @@
 // so this table has none: its rows are deleted with their sample or library by the code that deletes those
 // (lib/server/catalogue/words.ts deleteWords*), and the worker's maintenance removes any left without a sample.
 import type { Knex } from "knex";
-import { pathWords } from "../../lib/catalog/path-words";
+import { pathWords } from "../../lib/catalogue/path-words";
 
 export async function up(knex: Knex): Promise<void> {
   await knex.raw(`CREATE TABLE sample_words (

@@ -1,9 +1,9 @@
-// The path folded (lib/catalog/path-words.ts foldText: NFKD, accents dropped, lower case) in a binary column
+// The path folded (lib/catalogue/path-words.ts foldText: NFKD, accents dropped, lower case) in a binary column
 // with its own index, for the search's "path contains" fallback (a term no path word starts with). A LIKE
 // '%...%' cannot use an index range, so it reads every entry of the library; compared byte by byte that read
 // took 89 ms at 100,000 rows where the same read of path_key under utf8mb4_unicode_ci took 636 ms.
 import type { Knex } from "knex";
-import { foldText } from "../../lib/catalog/path-words";
+import { foldText } from "../../lib/catalogue/path-words";
 
 export async function up(knex: Knex): Promise<void> {
   await knex.raw("ALTER TABLE samples ADD COLUMN path_fold VARCHAR(500) CHARACTER SET utf8mb4 COLLATE utf8mb4_bin NULL AFTER path_key");

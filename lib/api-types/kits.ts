@@ -2,7 +2,7 @@
 // /api/studios/:id/kits/:kitId (read, save, rename, copy, delete). Types only, shared by lib/server and
 // components/data.
 import type { z } from "zod";
-import type { Family } from "@/lib/catalog/taxonomy";
+import type { Family } from "@/lib/catalogue/taxonomy";
 import type { Kit, KitSlot } from "@/lib/audit/types";
 import type { copySchema, createKitSchema } from "@/lib/validation/kit";
 

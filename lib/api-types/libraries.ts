@@ -1,7 +1,7 @@
 // Requests and answers of /api/studios/:id/libraries(/:libraryId) and the library's read models (progress,
 // health, plots). Types only, shared by lib/server and components/data.
 import type { z } from "zod";
-import type { HealthFinding } from "@/lib/catalog";
+import type { HealthFinding } from "@/lib/catalogue";
 import type { createLibrarySchema, deleteLibrarySchema, updateLibrarySchema, VelocityCurveName } from "@/lib/validation/library";
 
 export type StateCounts = { queued: number; measuring: number; catalogued: number; rejected: number; total: number };

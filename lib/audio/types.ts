@@ -1,5 +1,5 @@
 // The measurement record of one WAV one-shot: the contract between lib/audio (which fills it),
-// lib/catalog (which sorts by it), the workers (which store it) and the UI (which shows it).
+// lib/catalogue (which sorts by it), the workers (which store it) and the UI (which shows it).
 // Fields may be added; do not rename or remove fields without bumping MEASURE_VERSION and updating users.
 
 export interface WavFormat {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { catalogueSamples, type CatalogueSampleInput } from "../catalog/catalogue";
-import { measurement } from "../catalog/test-helpers";
+import { catalogueSamples, type CatalogueSampleInput } from "../catalogue/catalogue";
+import { measurement } from "../catalogue/test-helpers";
 import { readCatalogue, readLayers } from "./catalogue-input";
 import { catalogueToFile } from "./schema";
 import { testCatalogue } from "./test-catalogue";

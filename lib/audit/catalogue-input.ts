@@ -1,5 +1,5 @@
 // The one converter from a catalogue to the auditor's CatalogueInstrument list. The command line feeds it the
-// cataloguer's output (lib/catalog catalogueSamples()) or a catalogue file; the server feeds it the rows the
+// cataloguer's output (lib/catalogue catalogueSamples()) or a catalogue file; the server feeds it the rows the
 // regroup wrote (instruments + layer_groups, lib/server/kits/catalogue-for-audit.ts). Tolerant of field names
 // (id/key, name/displayName, instrumentId/instrumentKey), strict on values: anything it cannot read, and every
 // value it changes, is reported in `problems`, one line each; nothing is silently invented.
@@ -14,7 +14,7 @@
 //   sampleIds keeps its strings.
 // An instrument's pitchHz is a positive number or null (anything else is reported and read as null).
 
-import { isArticulation, isFamily } from "../catalog/taxonomy";
+import { isArticulation, isFamily } from "../catalogue/taxonomy";
 import { CATALOGUE_SCHEMA, parseCatalogueFile } from "./schema";
 import type { CatalogueArticulation, CatalogueInstrument, CatalogueLayer } from "./types";
 

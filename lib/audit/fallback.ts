@@ -18,7 +18,7 @@
 // is used when the articulation it names is recorded; its path is [requested, played] and its cost
 // OVERRIDE_COST. When it names something not recorded, the graph decides and the result says so.
 
-import { ARTICULATIONS, FAMILY_ARTICULATIONS, type Articulation, type Family } from "../catalog/taxonomy";
+import { ARTICULATIONS, FAMILY_ARTICULATIONS, type Articulation, type Family } from "../catalogue/taxonomy";
 
 /** One edge of a family graph: two articulations and how far apart they sound (lower is closer). */
 export type ArticulationEdge = readonly [Articulation, Articulation, number];

@@ -10,7 +10,7 @@
 // An instrument is never used twice; expected slots with no instrument left stay empty (their pads go
 // silent); instruments no slot asked for are appended as extra slots so the kit holds all of them.
 
-import { FAMILIES, FAMILY_ARTICULATIONS, type Family } from "../catalog/taxonomy";
+import { FAMILIES, FAMILY_ARTICULATIONS, type Family } from "../catalogue/taxonomy";
 import type { Catalogue, CatalogueInstrument, Kit, KitSlot, Layout, LayoutSlot } from "./types";
 
 const FAMILY_WORDS: Array<[RegExp, Family]> = [

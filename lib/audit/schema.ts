@@ -5,7 +5,7 @@
 // Parsing returns the plain types of types.ts or throws SchemaError with every problem, path by path.
 
 import { z } from "zod";
-import { ARTICULATIONS, FAMILIES } from "../catalog/taxonomy";
+import { ARTICULATIONS, FAMILIES } from "../catalogue/taxonomy";
 import type { CatalogueInstrument, Kit, Layout } from "./types";
 
 export const LAYOUT_SCHEMA = "kitwright.layout/v1";

@@ -4,7 +4,7 @@
 // 42 closed hi-hat ...); articulations General MIDI does not name get a note from EXTRA_NOTES (84-95),
 // Kitwright's own choice, above the GM range so the two never collide.
 
-import type { Family } from "../catalog/taxonomy";
+import type { Family } from "../catalogue/taxonomy";
 import type { Articulation, Layout, LayoutSlot, Pad } from "./types";
 
 /** General MIDI Level 1 percussion key map, channel 10 (MIDI Manufacturers Association, GM Level 1). */

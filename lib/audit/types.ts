@@ -1,7 +1,7 @@
 // The data the auditor reads (layouts, kits, the catalogue) and the findings it writes.
 // Plain objects only; the JSON schemas in schema.ts describe the same shapes for import/export.
 
-import type { Articulation, Family } from "../catalog/taxonomy";
+import type { Articulation, Family } from "../catalogue/taxonomy";
 import type { StandInOverrides } from "./fallback";
 
 export type { Articulation, Family, StandInOverrides };

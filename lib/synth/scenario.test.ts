@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { FAMILY_ARTICULATIONS, isArticulation } from "../catalog/taxonomy";
+import { FAMILY_ARTICULATIONS, isArticulation } from "../catalogue/taxonomy";
 import { renderScenarioChannels, renderScenarioFile } from "./render";
 import { DEMO_FAULTS, DEMO_INSTRUMENTS, DEMO_LIBRARY, demoScenario, dynamics, layerVelocity, type ScenarioFile } from "./scenario";
 import { rmsDb } from "./test-utils";

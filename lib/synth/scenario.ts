@@ -2,7 +2,7 @@
 // sound, strength, take, microphone, format), the truth about each file, and the deliberate faults the health
 // checks must find. Pure data + small helpers; the generator script renders and writes it.
 
-import type { Articulation, Family } from "../catalog/taxonomy";
+import type { Articulation, Family } from "../catalogue/taxonomy";
 import { defaultSeconds, type Mic, type SoundSpec } from "./drums";
 
 export const DEMO_LIBRARY = {

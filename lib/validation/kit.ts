@@ -2,7 +2,7 @@
 // Bodies are strict (unknown fields are refused with 422); the document shapes follow lib/audit/schema.ts
 // (kitwright.kit/v1, kitwright.layout/v1), whose own refinements (grid cells, duplicate ids) run on top.
 import { z } from "zod";
-import { ARTICULATIONS, FAMILIES } from "@/lib/catalog/taxonomy";
+import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
 import { KIT_SCHEMA, LAYOUT_SCHEMA, kitBodySchema, layoutBodySchema, MAX_GRID_PADS, padSchema as auditPadSchema } from "@/lib/audit/schema";
 import { TEMPLATE_NAMES } from "@/lib/audit/templates";
 import { EXPORT_FORMAT_IDS } from "@/lib/audit/export-formats";

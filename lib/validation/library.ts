@@ -1,7 +1,7 @@
 // Shared zod schemas for libraries, samples, instruments (used by the API routes and the forms).
 import { z } from "zod";
-import { ARTICULATIONS, FAMILIES } from "@/lib/catalog/taxonomy";
-import { MIC_POSITIONS } from "@/lib/catalog/names";
+import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
+import { MIC_POSITIONS } from "@/lib/catalogue/names";
 import { idParam } from "./studio";
 
 export const libraryNameSchema = z.string().trim().min(1, "Name the library.").max(160, "At most 160 characters.");

@@ -3,7 +3,7 @@
 
 import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
-import type { Articulation, Family } from "../../lib/catalog/taxonomy";
+import type { Articulation, Family } from "../../lib/catalogue/taxonomy";
 
 /** Bump when the rendering or the labels change: the corpus is then rebuilt. */
 export const CORPUS_BUILDER_VERSION = 2;

@@ -1,6 +1,6 @@
 // The rows the sound model learns from and is judged on: the open corpus of real recordings
 // (scripts/corpus, npm run corpus) and our own generator's library (lib/synth), each file measured by
-// lib/audio exactly as an upload is, then turned into the model's features (lib/catalog/sound-features.ts).
+// lib/audio exactly as an upload is, then turned into the model's features (lib/catalogue/sound-features.ts).
 // Training rows of the corpus are augmented (other gains, a few semitones of transposition, a noise floor, a
 // shortened tail, a mono fold): a held-out recording is never augmented and its copies never train the fold
 // that judges it.
@@ -9,8 +9,8 @@ import { createHash } from "node:crypto";
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { decodeWav, measureBytes, type Measurement } from "../../lib/audio";
-import { soundFeatures } from "../../lib/catalog/sound-features";
-import type { TrainingRow } from "../../lib/catalog/sound-model";
+import { soundFeatures } from "../../lib/catalogue/sound-features";
+import type { TrainingRow } from "../../lib/catalogue/sound-model";
 import { demoScenario } from "../../lib/synth/scenario";
 import { renderScenarioFile } from "../../lib/synth/render";
 import { encodeWav } from "../../lib/synth/wav";

@@ -4,7 +4,7 @@
 // inside one collection overstates accuracy when copies leak). Pure computation over measured rows.
 
 import { createHash } from "node:crypto";
-import { calibrationTable, predictSound, trainSoundModel, type CalibrationTable, type ForestOptions } from "../../lib/catalog/sound-model";
+import { calibrationTable, predictSound, trainSoundModel, type CalibrationTable, type ForestOptions } from "../../lib/catalogue/sound-model";
 import type { Row } from "./dataset";
 
 export interface Prediction {

@@ -1,5 +1,5 @@
 // npm run train:sound   — grouped cross-validation (for the calibration table), then the final model on all
-//                         rows, written to lib/catalog/sound-model.json with its version, data hash and command
+//                         rows, written to lib/catalogue/sound-model.json with its version, data hash and command
 // npm run eval:sound    — grouped cross-validation only: accuracy, confusion, per-class recall, calibration,
 //                         cut-tail flag rate per family; printed, and written to scripts/sound-model/RESULTS.md
 // Options: --folds N (5), --trees N, --no-generator, --quick (a small subset: proves the pipeline, judges nothing)
@@ -8,20 +8,20 @@ import { createHash } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { MEASURE_VERSION } from "../../lib/audio";
-import { SOUND_FEATURE_NAMES } from "../../lib/catalog/sound-features";
-import { suggestByRules } from "../../lib/catalog/classify";
-import { calibrationTable, domainOf, trainSoundModel, type ForestOptions, type SoundModel } from "../../lib/catalog/sound-model";
+import { SOUND_FEATURE_NAMES } from "../../lib/catalogue/sound-features";
+import { suggestByRules } from "../../lib/catalogue/classify";
+import { calibrationTable, domainOf, trainSoundModel, type ForestOptions, type SoundModel } from "../../lib/catalogue/sound-model";
 import { corpusDir } from "../corpus/corpus";
 import { corpusRows, dataHash, generatorRows, type Row } from "./dataset";
 import { ARTICULATION_KEYS, crossValidate, formatReport, report, type Prediction } from "./evaluate";
 
 const ROOT = path.resolve(__dirname, "../..");
-export const MODEL_PATH = path.join(ROOT, "lib/catalog/sound-model.data.ts");
+export const MODEL_PATH = path.join(ROOT, "lib/catalogue/sound-model.data.ts");
 
 /** The model as a TypeScript module holding its JSON text (a JSON import this size would slow the type checker). */
 export function writeModel(model: SoundModel, file = MODEL_PATH) {
   const text = JSON.stringify(model);
-  writeFileSync(file, `// Made by ${String(model.meta.command ?? "npm run train:sound")}: the trained sound model (lib/catalog/sound-model.ts), version ${model.version}.\n// Do not edit by hand; train again.\nexport const SOUND_MODEL_JSON: string = ${JSON.stringify(text)};\n`);
+  writeFileSync(file, `// Made by ${String(model.meta.command ?? "npm run train:sound")}: the trained sound model (lib/catalogue/sound-model.ts), version ${model.version}.\n// Do not edit by hand; train again.\nexport const SOUND_MODEL_JSON: string = ${JSON.stringify(text)};\n`);
 }
 /** The forest settings of the committed model (chosen on held-out folds, scripts/sound-model/README.md). */
 export const FOREST: ForestOptions = { trees: 60, maxDepth: 12, maxFeatures: 0.35, minPerClass: 30, seed: 7 };

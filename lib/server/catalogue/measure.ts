@@ -4,7 +4,7 @@ import "server-only";
 // refusal's code and reason). Idempotent: a sample already measured at this MEASURE_VERSION is left alone; one
 // measured by an older version is measured again (queued at worker start: maintenance.ts requeueOutdated).
 import { MEASURE_VERSION } from "@/lib/audio/version";
-import { decaySec } from "@/lib/catalog/features";
+import { decaySec } from "@/lib/catalogue/features";
 import type { MeasureOutcome } from "@/lib/audio";
 import { db } from "../db";
 import { storage } from "../storage";

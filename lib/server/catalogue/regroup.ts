@@ -1,11 +1,11 @@
 import "server-only";
 // Regroup of a library: every catalogued sample + its confirmed labels + the studio's label model through
-// lib/catalog's catalogueSamples(); then, in one transaction, the per-sample labels, layers and round robins,
+// lib/catalogue's catalogueSamples(); then, in one transaction, the per-sample labels, layers and round robins,
 // the instruments with their pitch (upserted by key so ids stay stable; gone ones deleted), the layer groups and
 // the health. Nothing is computed here that the command line would compute otherwise.
-import { buildLabelModel, catalogueSamples, featureVector, isArticulation, isFamily, MIC_POSITIONS, type CatalogueSampleInput, type LabelModel, type MicPosition } from "@/lib/catalog";
+import { buildLabelModel, catalogueSamples, featureVector, isArticulation, isFamily, MIC_POSITIONS, type CatalogueSampleInput, type LabelModel, type MicPosition } from "@/lib/catalogue";
 import type { Measurement } from "@/lib/audio";
-import { DLS, type VelocityCurve } from "@/lib/catalog/velocity";
+import { DLS, type VelocityCurve } from "@/lib/catalogue/velocity";
 import { db } from "../db";
 import { newId } from "../ids";
 import { noteRegroupDuration } from "./queue";
@@ -66,7 +66,7 @@ export async function regroupLibrary({ studioId, libraryId }: { studioId: string
     const exByKey = new Map(existing.map((x) => [x.key as string, x]));
     for (const inst of cat.instruments) {
       const ex = exByKey.get(inst.key);
-      // the instrument's pitch comes from lib/catalog (instrument-pitch.ts), as the command line's does
+      // the instrument's pitch comes from lib/catalogue (instrument-pitch.ts), as the command line's does
       const row = { family: inst.family, sample_count: inst.sampleIds.length, pitch_hz: inst.pitchHz, updated_at: trx.fn.now(3) };
       if (ex) await trx("instruments").where({ id: ex.id }).update(ex.name_source === "person" ? row : { ...row, name: inst.displayName.slice(0, 160) });
       else await trx("instruments").insert({ id: newId(), studio_id: studioId, library_id: libraryId, key: inst.key, name: inst.displayName.slice(0, 160), ...row });

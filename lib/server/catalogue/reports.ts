@@ -4,7 +4,7 @@ import "server-only";
 import { db } from "../db";
 import { jsonColumn } from "../json-column";
 import { assertLibrary } from "./libraries";
-import type { HealthFinding, Layer } from "@/lib/catalog";
+import type { HealthFinding, Layer } from "@/lib/catalogue";
 import type { FeaturePoint, HealthView, LadderGroup, LibraryPlots } from "@/lib/api-types/libraries";
 
 export async function libraryHealth({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<HealthView> {

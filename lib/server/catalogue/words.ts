@@ -1,8 +1,8 @@
 import "server-only";
 // The search index of sample paths (table sample_words, migration 0009): rows written and deleted with their
-// sample, and the queries that read it. The words themselves are cut by lib/catalog/path-words.ts.
+// sample, and the queries that read it. The words themselves are cut by lib/catalogue/path-words.ts.
 import type { Knex } from "knex";
-import { foldText, pathWords, searchRuns } from "@/lib/catalog/path-words";
+import { foldText, pathWords, searchRuns } from "@/lib/catalogue/path-words";
 
 export interface WordRow { library_id: string; word: string; sample_id: string }
 

@@ -2,13 +2,13 @@
 // their path words. Every way the server can answer (a single word range counted directly; several words
 // listed or counted; pages by walking the sort index or by fetching the matches; other filters joined; the
 // "contains" fallback) is compared with the rule itself, applied here in plain code to every row: a sample
-// matches when each run of the term starts one of its path words (lib/catalog/path-words.ts, unit-tested on
+// matches when each run of the term starts one of its path words (lib/catalogue/path-words.ts, unit-tested on
 // its own examples), or, when no sample does, when its path contains the term.
 import crypto from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { call, makeStudioWithRoles } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
-import { pathWords, searchRuns } from "@/lib/catalog/path-words";
+import { pathWords, searchRuns } from "@/lib/catalogue/path-words";
 import { insertSamplesWithWords, sweepOrphanWords } from "@/lib/server/catalogue/words";
 import { deleteLibrary } from "@/lib/server/catalogue/libraries";
 import * as samplesRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/samples/route";

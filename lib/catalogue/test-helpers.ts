@@ -1,4 +1,4 @@
-// Test helpers of lib/catalog: a seeded random generator and a Measurement factory.
+// Test helpers of lib/catalogue: a seeded random generator and a Measurement factory.
 // Not used by the product code.
 
 import type { Measurement, SpectralSummary } from "../audio/types";

@@ -3,7 +3,7 @@
 // hi-hat openness, cymbal strokes, tom strokes, hand-drum strokes) says the articulation within the family.
 // A forest's vote share is not a probability: the confidence shown is the share mapped through a calibration
 // table measured on held-out folds (see scripts/sound-model/README.md), so "0.9" means about nine in ten right.
-// Training and prediction are pure; the model is a JSON document (lib/catalog/sound-model.json) made by
+// Training and prediction are pure; the model is a JSON document (lib/catalogue/sound-model.json) made by
 // `npm run train:sound`.
 
 import { RandomForestClassifier } from "ml-random-forest";

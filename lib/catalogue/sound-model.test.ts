@@ -52,7 +52,7 @@ describe("training pipeline (a small subset of our generator's library: proves t
   });
 });
 
-describe("the committed model (lib/catalog/sound-model.data.ts, made by npm run train:sound)", () => {
+describe("the committed model (lib/catalogue/sound-model.data.ts, made by npm run train:sound)", () => {
   const model = trainedSoundModel();
   it("carries its version, training data hash, command and held-out figures", () => {
     expect(model.version).toMatch(/^\d{4}-\d{2}-\d{2}-[0-9a-f]{8}$/);
