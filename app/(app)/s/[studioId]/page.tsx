@@ -5,6 +5,7 @@ import { listMembers } from "@/lib/server/studios";
 import { studioOverview } from "@/lib/server/overview";
 import { can, PERMISSION_INFO, ROLE_PERMISSIONS } from "@/lib/permissions";
 import { RenameStudioForm } from "@/components/studio-forms";
+import { NextStepSlot } from "@/app/(app)/s/[studioId]/next-step-slot";
 
 export const metadata: Metadata = { title: "Studio" };
 
@@ -14,6 +15,8 @@ export default async function StudioOverview({ params }: { params: Promise<{ stu
   const [members, o] = await Promise.all([listMembers({ studioId: studio.id }), studioOverview({ studioId: studio.id })]);
   const base = `/s/${studio.id}`;
   return (
+    <>
+    <NextStepSlot studio={studio} always />
     <div className="grid gap-6 lg:grid-cols-3">
       <section className="card space-y-3 lg:col-span-2" data-testid="overview-libraries">
         <div className="flex items-baseline justify-between">
@@ -70,5 +73,6 @@ export default async function StudioOverview({ params }: { params: Promise<{ stu
         {can(studio.role, "studio:manage") && <RenameStudioForm studioId={studio.id} name={studio.name} />}
       </section>
     </div>
+    </>
   );
 }
