@@ -50,8 +50,9 @@ export function nextStep(p: StudioProgress, { base, canWrite }: { base: string; 
       action: act({ kind: "link", label: "Create a library", href: `${base}/libraries#new-library` }),
     };
   }
+  const instruments = p.libraries.reduce((s, l) => s + l.instruments, 0);
   const withSamples = p.libraries.filter((l) => l.samples > 0);
-  if (withSamples.length === 0) {
+  if (instruments === 0 && withSamples.length === 0) {
     const lib = p.libraries[0]!;
     return {
       key: "samples", number: 2, title: `Add samples to “${lib.name}”`,
@@ -61,7 +62,6 @@ export function nextStep(p: StudioProgress, { base, canWrite }: { base: string; 
       action: act({ kind: "link", label: "Drop a folder of samples", href: `${base}/libraries/${lib.id}#add-samples` }),
     };
   }
-  const instruments = p.libraries.reduce((s, l) => s + l.instruments, 0);
   if (instruments === 0) {
     const pending = p.libraries.reduce((s, l) => s + l.pending, 0);
     const lib = [...withSamples].sort((a, b) => b.pending - a.pending)[0]!;
