@@ -60,7 +60,7 @@ describe("filling a kit for a kit template", () => {
     expect(byInst[ids.tomLow]!.id).toBe("tom-2");
     expect(slots.find((x) => x.id === "ride-1")!.instrumentId).toBeNull();
     const act = await db()("activity").where({ studio_id: s.studio.id, subject_id: r.json.kit.id }).first("details");
-    expect(JSON.parse(act.details)).toMatchObject({ template: "trigger-five", libraryId: libA });
+    expect(typeof act.details === "string" ? JSON.parse(act.details) : act.details).toMatchObject({ template: "trigger-five", libraryId: libA });
   });
 
   it("without a library takes every library's instruments (the richer snare wins the snare slot)", async () => {
