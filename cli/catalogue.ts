@@ -2,6 +2,7 @@
 // Measures every WAV under a folder and sorts it (names, sound, instruments, layers, round robins, health),
 // with no server or database. One record per file, then the health findings and the refused files.
 
+import { formatConfidence } from "../lib/catalogue/confidence";
 import { createHash } from "node:crypto";
 import { readFile, stat } from "node:fs/promises";
 import path from "node:path";
@@ -109,7 +110,7 @@ function line(s: CatalogueEntry): string {
   const rr = s.roundRobin === null ? "-" : `${s.roundRobin}/${s.roundRobinCount}`;
   const vel = s.velocityLow === null ? "" : ` vel ${s.velocityLow}-${s.velocityHigh}`;
   const lufs = Number.isFinite(s.strikeLufs) ? `${s.strikeLufs.toFixed(1)} LUFS` : "no strike";
-  return `${s.path}\n    ${s.family} | ${s.instrumentName} | ${s.articulation} | layer ${layer}${vel} | rr ${rr} | mic ${s.mic ?? "-"} | ${lufs} | ${s.familySource}/${s.articulationSource} ${s.confidence.toFixed(2)}\n    ${s.reasons.join("; ")}`;
+  return `${s.path}\n    ${s.family} | ${s.instrumentName} | ${s.articulation} | layer ${layer}${vel} | rr ${rr} | mic ${s.mic ?? "-"} | ${lufs} | ${s.familySource}/${s.articulationSource} ${formatConfidence(s.confidence)}\n    ${s.reasons.join("; ")}`;
 }
 
 export function toText(cat: Catalogue, refused: Refused[], folder: string): string {
