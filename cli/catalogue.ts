@@ -2,13 +2,13 @@
 // Measures every WAV under a folder and sorts it (names, sound, instruments, layers, round robins, health),
 // with no server or database. One record per file, then the health findings and the refused files.
 
-import { formatConfidence } from "../lib/catalogue/confidence";
 import { createHash } from "node:crypto";
 import { readFile, stat } from "node:fs/promises";
 import path from "node:path";
 import type { Measurement } from "../lib/audio";
 import { catalogueSamples, type Catalogue, type CatalogueEntry, type CatalogueSampleInput } from "../lib/catalogue/catalogue";
 import type { VelocityCurve } from "../lib/catalogue/velocity";
+import { formatConfidence } from "../lib/catalogue/confidence";
 import { findWavs, inOrder, poolFor } from "./files";
 
 const USAGE = `usage: kitwright catalogue <folder> [--json | --csv] [--curve dls|dannenberg]
