@@ -32,6 +32,13 @@ describe("nextStep", () => {
     expect(s.action).toEqual({ kind: "link", label: "Watch “Busy”", href: "/s/studio-1/libraries/b" });
   });
 
+  it("every sample measured but not yet sorted into instruments: still sorting, not a dead end", () => {
+    const s = nextStep({ ...empty, libraries: [lib({ samples: 4 }), lib({ id: "lib-2", name: "Fresh", samples: 6, sorting: true })] }, editor);
+    expect(s.key).toBe("sorting");
+    expect(s.text).toMatch(/^Sorting them into instruments and velocity layers\./);
+    expect(s.action).toEqual({ kind: "link", label: "Watch “Fresh”", href: "/s/studio-1/libraries/lib-2" });
+  });
+
   it("every sample refused or unsorted: say so and offer to add others", () => {
     const s = nextStep({ ...empty, libraries: [lib({ samples: 4 })] }, editor);
     expect(s.key).toBe("no-instruments");

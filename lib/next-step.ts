@@ -4,8 +4,11 @@
 import { whoCan } from "./permissions";
 
 export interface StudioProgress {
-  /** Libraries by name; samples counts every stored sample, pending those still queued or measuring. */
-  libraries: ReadonlyArray<{ id: string; name: string; samples: number; pending: number; instruments: number }>;
+  /**
+   * Libraries by name; samples counts every stored sample, pending those still queued or measuring; sorting is
+   * true while measured samples wait to be sorted into instruments (the regroup has not read them yet).
+   */
+  libraries: ReadonlyArray<{ id: string; name: string; samples: number; pending: number; instruments: number; sorting?: boolean }>;
   /** Kits, most recently changed first; filled = slots holding an instrument. */
   kits: ReadonlyArray<{ id: string; name: string; slots: number; filled: number }>;
   /** Layouts, most recently changed first, with how many audits each has. */
@@ -64,11 +67,11 @@ export function nextStep(p: StudioProgress, { base, canWrite }: { base: string; 
   }
   if (instruments === 0) {
     const pending = p.libraries.reduce((s, l) => s + l.pending, 0);
-    const lib = [...withSamples].sort((a, b) => b.pending - a.pending)[0]!;
-    if (pending > 0) {
+    const lib = [...withSamples].sort((a, b) => b.pending - a.pending || Number(!!b.sorting) - Number(!!a.sorting))[0]!;
+    if (pending > 0 || lib.sorting) {
       return {
         key: "sorting", number: 2, title: "Measuring and sorting your samples",
-        text: `${plural(pending, "sample")} still to measure. When they are sorted into instruments, the next step is a kit. You can watch them arrive.`,
+        text: `${pending > 0 ? `${plural(pending, "sample")} still to measure.` : "Sorting them into instruments and velocity layers."} When they are sorted into instruments, the next step is a kit. You can watch them arrive.`,
         action: { kind: "link", label: `Watch “${lib.name}”`, href: `${base}/libraries/${lib.id}` },
       };
     }

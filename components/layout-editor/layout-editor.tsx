@@ -130,7 +130,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
                 const r = Math.floor(i / grid.cols) + 1;
                 const c = (i % grid.cols) + 1;
                 const p = layout.pads.find((x) => x.row === r && x.col === c);
-                return p ? padButton(p) : !canWrite ? <div key={`e${r}-${c}`} className="min-h-20 rounded-md border border-dashed border-line" aria-label="no pad here" role="img" /> : (
+                return p ? padButton(p) : !canWrite ? <div key={`e${r}-${c}`} className="min-h-20 rounded-md border border-dashed border-line" aria-hidden /> : (
                   <button key={`e${r}-${c}`} type="button" className="min-h-20 rounded-md border border-dashed border-line text-xs text-muted"
                     onClick={() => {
                       const ids = new Set(layout.pads.map((x) => x.id));

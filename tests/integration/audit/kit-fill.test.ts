@@ -91,7 +91,7 @@ describe("the studio's next step as its rows say", () => {
     const base = `/s/${s.otherStudio.id}`;
     // the other studio has one library and nothing else: its next step is to add samples
     const other = await studioProgress({ studioId: s.otherStudio.id });
-    expect(other).toEqual({ libraries: [{ id: otherLib, name: "Not yours", samples: 0, pending: 0, instruments: 0 }], kits: [], layouts: [], latestAudit: null });
+    expect(other).toEqual({ libraries: [{ id: otherLib, name: "Not yours", samples: 0, pending: 0, instruments: 0, sorting: false }], kits: [], layouts: [], latestAudit: null });
     expect(nextStep(other, { base, canWrite: true }).key).toBe("samples");
     // this studio: instruments and the two kits made above, no layout yet
     const mine = await studioProgress({ studioId: s.studio.id });
