@@ -5,9 +5,9 @@ import { whoCan, type Permission } from "@/lib/permissions";
 
 export function ViewOnlyNote({ what, permission = "studio:write", className = "" }: { what: string; permission?: Permission; className?: string }) {
   return (
-    <p role="note" className={`flex flex-wrap items-center gap-2 text-sm text-muted ${className}`} data-testid="view-only-note">
-      <span className="tag border-line bg-paper text-ink">view only</span>
-      <span>{whoCan(permission, { capital: true })} can change {what}.</span>
+    <p role="note" className={`text-sm text-muted ${className}`} data-testid="view-only-note">
+      <span className="tag mr-2 border-line bg-paper text-ink">view only</span>
+      {whoCan(permission, { capital: true })} can change {what}.
     </p>
   );
 }

@@ -16,11 +16,11 @@ export const TEMPLATE_LABELS: Record<string, string> = {
 
 /** Kit templates: the slot plans a new kit can be filled for (lib/audit/templates.ts; two templates that expect
  * the same slots are offered once). */
-export const KIT_TEMPLATES: ReadonlyArray<{ id: string; label: string; slots: number }> = [
-  { id: "trigger-five", label: "Five-piece kit: kick, snare, 3 toms, hi-hat, crash, ride" },
-  { id: "grid-24", label: "Kit with more cymbals: the five-piece plus a second crash, a china and a splash" },
-  { id: "gm-percussion", label: "Kit and hand percussion: a slot for every General MIDI sound" },
-].map((t) => ({ ...t, slots: expectedSlots(getTemplate(t.id)!).length }));
+export const KIT_TEMPLATES: ReadonlyArray<{ id: string; label: string; slots: string[] }> = [
+  { id: "trigger-five", label: "Five-piece kit" },
+  { id: "grid-24", label: "Five-piece with more cymbals" },
+  { id: "gm-percussion", label: "Kit and hand percussion (General MIDI)" },
+].map((t) => ({ ...t, slots: expectedSlots(getTemplate(t.id)!).map((s) => s.name) }));
 
 export function CreateKitForm({ studioId, libraries, library }: { studioId: string; libraries: Array<{ id: string; name: string; instruments: number }>; library?: string }) {
   const router = useRouter();
@@ -28,6 +28,7 @@ export function CreateKitForm({ studioId, libraries, library }: { studioId: stri
   const [template, setTemplate] = useState(libraries.some((l) => l.instruments > 0) ? "trigger-five" : "");
   const withInstruments = libraries.filter((l) => l.instruments > 0);
   const [libraryId, setLibraryId] = useState(library && libraries.some((l) => l.id === library) ? library : withInstruments.length === 1 ? withInstruments[0]!.id : "");
+  const chosen = KIT_TEMPLATES.find((t) => t.id === template);
   const create = useCreateKit(studioId);
   // stays busy after success until the new kit's page replaces this one
   const busy = create.isPending || create.isSuccess;
@@ -44,9 +45,12 @@ export function CreateKitForm({ studioId, libraries, library }: { studioId: stri
         <label className="label" htmlFor="kit-template">Kit template</label>
         <select id="kit-template" className="field" value={template} onChange={(e) => setTemplate(e.target.value)} aria-describedby="kit-template-hint">
           <option value="">No template: start with no slots</option>
-          {KIT_TEMPLATES.map((t) => <option key={t.id} value={t.id}>{t.label} ({t.slots} slots)</option>)}
+          {KIT_TEMPLATES.map((t) => <option key={t.id} value={t.id}>{t.label} ({t.slots.length} slots)</option>)}
         </select>
-        <p id="kit-template-hint" className="mt-1 text-xs text-muted">A template names the slots and puts one instrument in each (toms high to low by measured pitch); instruments left over get slots of their own. You can change every slot afterwards.</p>
+        <p id="kit-template-hint" className="mt-1 text-xs text-muted">
+          {chosen && <span className="block text-ink" data-testid="kit-template-slots">{chosen.slots.length > 12 ? `${chosen.slots.slice(0, 12).join(", ")} and ${chosen.slots.length - 12} more` : chosen.slots.join(", ")}.</span>}
+          A template names the slots and puts one instrument in each (toms high to low by measured pitch); instruments left over get slots of their own. You can change every slot afterwards.
+        </p>
       </div>
       {template && (
         <div>

@@ -199,38 +199,39 @@ function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; i
   );
 }
 
-/** The kit as text, for members who may not change it. */
+/** The kit as text, for members who may not change it: one row per slot, stacked on a phone. */
 function KitView({ kit, instruments }: { kit: Kit; instruments: InstrumentChoice[] }) {
   const byId = new Map(instruments.map((i) => [i.id, i]));
+  const grid = "md:grid md:grid-cols-[13rem_7rem_minmax(0,1fr)_11rem] md:gap-3";
   return (
     <div className="space-y-3">
       <ViewOnlyNote what="this kit" />
       {kit.slots.length === 0 ? <p className="text-sm text-muted">This kit has no slots yet.</p> : (
-        <div className="card overflow-x-auto p-0">
-          <table className="w-full text-sm" data-testid="kit-slots">
-            <caption className="sr-only">Slots of the kit</caption>
-            <thead className="text-left text-xs text-muted"><tr><th className="px-3 py-2 font-medium">#</th><th className="px-2 py-2 font-medium">Slot</th><th className="px-2 py-2 font-medium">Expects</th><th className="px-2 py-2 font-medium">Instrument</th><th className="px-3 py-2 font-medium">Stand-in overrides</th></tr></thead>
-            <tbody>
-              {kit.slots.map((s, i) => {
-                const inst = s.instrumentId ? byId.get(s.instrumentId) : undefined;
-                const overrides = Object.entries(s.standIns ?? {});
-                return (
-                  <tr key={s.id} className="border-t border-line align-top" data-testid="kit-slot">
-                    <td className="num px-3 py-2 text-muted">{i + 1}.</td>
-                    <td className="px-2 py-2 font-medium" data-testid="kit-slot-name">{s.name}</td>
-                    <td className="px-2 py-2">{s.family}</td>
-                    <td className="px-2 py-2">
-                      {!s.instrumentId ? <span className="text-muted">empty: its pads stay silent</span>
-                        : !inst ? <span className="text-bad">✕ no longer in the catalogue</span>
-                        : <>{instLabel(inst)}<span className="block text-xs text-muted">Recorded: {inst.articulations.join(", ") || "nothing yet"}</span></>}
-                      {inst && inst.family !== s.family && <span className="block text-xs text-warn">⚠ a {inst.family} in a {s.family} slot</span>}
-                    </td>
-                    <td className="px-3 py-2 text-xs">{overrides.length ? overrides.map(([req, play]) => `${req} → ${play}`).join(", ") : <span className="text-muted">none</span>}</td>
-                  </tr>
-                );
-              })}
-            </tbody>
-          </table>
+        <div className="card p-0">
+          <div className={`hidden px-4 py-2 text-xs font-medium text-muted ${grid}`} aria-hidden><span>Slot</span><span>Expects</span><span>Instrument</span><span>Stand-in overrides</span></div>
+          <ol className="text-sm" data-testid="kit-slots" aria-label="Slots of the kit">
+            {kit.slots.map((s, i) => {
+              const inst = s.instrumentId ? byId.get(s.instrumentId) : undefined;
+              const overrides = Object.entries(s.standIns ?? {});
+              return (
+                <li key={s.id} className={`space-y-1 border-t border-line px-4 py-2 md:space-y-0 ${grid}`} data-testid="kit-slot">
+                  <p className="flex gap-2 font-medium">
+                    <span className="num w-6 shrink-0 text-muted">{i + 1}.</span>
+                    <span data-testid="kit-slot-name">{s.name}</span>
+                    <span className="font-normal text-muted md:hidden">expects {s.family}</span>
+                  </p>
+                  <p className="hidden md:block">{s.family}</p>
+                  <div className="pl-8 md:pl-0">
+                    {!s.instrumentId ? <span className="text-muted">empty: its pads stay silent</span>
+                      : !inst ? <span className="text-bad">✕ no longer in the catalogue</span>
+                      : <>{instLabel(inst)}<span className="block text-xs text-muted">Recorded: {inst.articulations.join(", ") || "nothing yet"}</span></>}
+                    {inst && inst.family !== s.family && <span className="block text-xs text-warn">⚠ a {inst.family} in a {s.family} slot</span>}
+                  </div>
+                  <p className={`pl-8 text-xs md:pl-0 ${overrides.length ? "" : "hidden md:block"}`}><span className="md:hidden">Stand-in overrides: </span>{overrides.length ? overrides.map(([req, play]) => `${req} → ${play}`).join(", ") : <span className="text-muted">none</span>}</p>
+                </li>
+              );
+            })}
+          </ol>
         </div>
       )}
     </div>

@@ -119,6 +119,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
   return (
     <div className="grid gap-6 xl:grid-cols-[1fr_360px]">
       <div className="space-y-4">
+        {!canWrite && <ViewOnlyNote what="this layout" />}
         <section className="card space-y-3">
           <div className="flex flex-wrap items-center justify-between gap-3">
             <h2>{grid ? `Pads (${grid.rows} × ${grid.cols} grid)` : `Trigger zones (${layout.pads.length})`}</h2>
@@ -158,7 +159,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
 
         <section className="card space-y-3">
           <h2>MIDI learn</h2>
-          <p className="text-sm text-muted">Connect your controller, select a pad above, press “Learn pads”, then hit the controller’s pad: its note, channel and velocity are captured{advance ? " and the next pad is selected" : ""}.</p>
+          <p className="text-sm text-muted">{canWrite ? <>Connect your controller, select a pad above, press “Learn pads”, then hit the controller’s pad: its note, channel and velocity are captured{advance ? " and the next pad is selected" : ""}.</> : "Connect your controller to see what each pad sends."}</p>
           <MidiStatusLine status={midi.status} message={midi.message} inputs={midi.inputs} onConnect={midi.connect} />
           {canWrite && (
             <div className="flex flex-wrap items-center gap-3">
@@ -182,7 +183,6 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
       <aside className="space-y-4">
         <section className="card space-y-3" data-testid="pad-settings">
           <h2>Selected pad</h2>
-          {!canWrite && <ViewOnlyNote what="this layout" />}
           {!pad ? <p className="text-sm text-muted">Select a pad.</p> : !canWrite ? <PadView pad={pad} grid={!!grid} slot={slotOf(pad.target?.slotId)} middleC={middleC} shared={(noteUse.get(`${pad.note}/${pad.channel}`) ?? 0) > 1} /> : (
             <fieldset className="space-y-3">
               <div>

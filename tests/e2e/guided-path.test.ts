@@ -139,6 +139,7 @@ describe("the guided path", () => {
     await shots(page, "04-new-kit");
     await page.getByLabel("Kit name").fill(`Harbour kit ${tag}`);
     expect(await page.getByLabel("Kit template").inputValue()).toBe("trigger-five");
+    expect(await page.getByTestId("kit-template-slots").textContent()).toBe("Kick, Snare A, Tom 1, Tom 2, Tom 3, Hi-hat, Crash 1, Ride 1.");
     expect(await page.getByLabel("Take the instruments from").locator("option:checked").textContent()).toBe(`Harbour room ${tag} (${found} instruments)`);
     await page.getByRole("button", { name: "Create kit" }).click();
     await page.waitForURL(/\/kits\/[0-9a-f-]{36}$/);
