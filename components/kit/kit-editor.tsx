@@ -75,8 +75,9 @@ function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; i
   };
   const addSlot = () => {
     const ids = new Set(slots.map((s) => s.id));
+    const names = new Set(slots.map((s) => slotNameKey(s.name)));
     let n = slots.length + 1;
-    while (ids.has(`slot-${n}`)) n++;
+    while (ids.has(`slot-${n}`) || names.has(slotNameKey(`Slot ${n}`))) n++;
     change([...slots, { id: `slot-${n}`, name: `Slot ${n}`, family: "snare", instrumentId: null }]);
   };
 
