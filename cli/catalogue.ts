@@ -8,6 +8,7 @@ import path from "node:path";
 import type { Measurement } from "../lib/audio";
 import { catalogueSamples, type Catalogue, type CatalogueEntry, type CatalogueSampleInput } from "../lib/catalogue/catalogue";
 import type { VelocityCurve } from "../lib/catalogue/velocity";
+import { formatConfidence } from "../lib/catalogue/confidence";
 import { findWavs, inOrder, poolFor } from "./files";
 
 const USAGE = `usage: kitwright catalogue <folder> [--json | --csv] [--curve dls|dannenberg]
@@ -109,7 +110,7 @@ function line(s: CatalogueEntry): string {
   const rr = s.roundRobin === null ? "-" : `${s.roundRobin}/${s.roundRobinCount}`;
   const vel = s.velocityLow === null ? "" : ` vel ${s.velocityLow}-${s.velocityHigh}`;
   const lufs = Number.isFinite(s.strikeLufs) ? `${s.strikeLufs.toFixed(1)} LUFS` : "no strike";
-  return `${s.path}\n    ${s.family} | ${s.instrumentName} | ${s.articulation} | layer ${layer}${vel} | rr ${rr} | mic ${s.mic ?? "-"} | ${lufs} | ${s.familySource}/${s.articulationSource} ${s.confidence.toFixed(2)}\n    ${s.reasons.join("; ")}`;
+  return `${s.path}\n    ${s.family} | ${s.instrumentName} | ${s.articulation} | layer ${layer}${vel} | rr ${rr} | mic ${s.mic ?? "-"} | ${lufs} | ${s.familySource}/${s.articulationSource} ${formatConfidence(s.confidence)}\n    ${s.reasons.join("; ")}`;
 }
 
 export function toText(cat: Catalogue, refused: Refused[], folder: string): string {

@@ -1,13 +1,16 @@
 "use client";
 // The kit editor: an ordered list of named slots, each expecting a family and holding one catalogued instrument
-// (from any library of the studio, any family), with per-slot stand-in overrides; toms can be ordered by
-// measured pitch, high to low.
+// (offered from one library or every library of the studio, the slot's expected family first), with per-slot
+// stand-in overrides; toms can be ordered by measured pitch, high to low. Members who may not edit see the kit
+// as text with a "view only" note.
 import { useMemo, useState } from "react";
 import { useRouter } from "next/navigation";
 import { FormError, Message } from "@/components/form-bits";
 import { useSaveKitSlots } from "@/components/data/kits";
+import { ViewOnlyNote } from "@/components/view-only";
 import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalogue/taxonomy";
 import { orderTomsByPitch } from "@/lib/audit/kits";
+import { choicesForSlot, slotNameKey } from "@/lib/audit/kit-fill";
 import type { Kit, KitSlot } from "@/lib/audit/types";
 import type { InstrumentChoice } from "@/lib/api-types/kits";
 
@@ -27,16 +30,39 @@ export function orderTomSlots(slots: KitSlot[], instruments: InstrumentChoice[])
 }
 
 export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: string; kit: Kit; instruments: InstrumentChoice[]; canWrite: boolean }) {
+  if (!canWrite) return <KitView kit={kit} instruments={instruments} />;
+  return <KitForm studioId={studioId} kit={kit} instruments={instruments} />;
+}
+
+const instLabel = (i: InstrumentChoice) => `${i.name} — ${i.libraryName} · ${i.sampleCount} samples${i.pitchHz ? ` · ${Math.round(i.pitchHz)} Hz` : ""}`;
+
+/** The libraries the kit's instruments come from, most used first (the picker starts on the first). */
+function librariesOf(slots: KitSlot[], byId: Map<string, InstrumentChoice>): string[] {
+  const n = new Map<string, number>();
+  for (const s of slots) {
+    const i = s.instrumentId ? byId.get(s.instrumentId) : undefined;
+    if (i) n.set(i.libraryId, (n.get(i.libraryId) ?? 0) + 1);
+  }
+  return [...n].sort((a, b) => b[1] - a[1]).map(([id]) => id);
+}
+
+function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; instruments: InstrumentChoice[] }) {
   const router = useRouter();
   const [slots, setSlots] = useState<KitSlot[]>(kit.slots);
   const [dirty, setDirty] = useState(false);
   const saveSlots = useSaveKitSlots(studioId, kit.id);
   const byId = useMemo(() => new Map(instruments.map((i) => [i.id, i])), [instruments]);
-  const byFamily = useMemo(() => {
-    const m = new Map<Family, InstrumentChoice[]>();
-    for (const i of instruments) m.set(i.family, [...(m.get(i.family) ?? []), i]);
-    return m;
-  }, [instruments]);
+  const libraries = useMemo(() => [...new Map(instruments.map((i) => [i.libraryId, i.libraryName])).entries()].sort((a, b) => a[1].localeCompare(b[1])), [instruments]);
+  // only one library's instruments are offered, unless the kit already mixes libraries
+  const [libraryId, setLibraryId] = useState<string>(() => {
+    const used = librariesOf(kit.slots, new Map(instruments.map((i) => [i.id, i])));
+    return used.length === 1 ? used[0]! : used.length === 0 && libraries.length === 1 ? libraries[0]![0] : "";
+  });
+  const clash = useMemo(() => {
+    const n = new Map<string, number>();
+    for (const s of slots) n.set(slotNameKey(s.name), (n.get(slotNameKey(s.name)) ?? 0) + 1);
+    return new Set([...n].filter(([, c]) => c > 1).map(([k]) => k));
+  }, [slots]);
 
   const change = (next: KitSlot[]) => { setSlots(next); setDirty(true); saveSlots.reset(); };
   const patch = (i: number, p: Partial<KitSlot>) => change(slots.map((s, j) => (j === i ? { ...s, ...p } : s)));
@@ -49,8 +75,9 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
   };
   const addSlot = () => {
     const ids = new Set(slots.map((s) => s.id));
+    const names = new Set(slots.map((s) => slotNameKey(s.name)));
     let n = slots.length + 1;
-    while (ids.has(`slot-${n}`)) n++;
+    while (ids.has(`slot-${n}`) || names.has(slotNameKey(`Slot ${n}`))) n++;
     change([...slots, { id: `slot-${n}`, name: `Slot ${n}`, family: "snare", instrumentId: null }]);
   };
 
@@ -62,12 +89,19 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
       },
     });
 
-  const instLabel = (i: InstrumentChoice) => `${i.name} — ${i.libraryName} · ${i.sampleCount} samples${i.pitchHz ? ` · ${Math.round(i.pitchHz)} Hz` : ""}`;
-
   return (
     <div className="space-y-4">
       {instruments.length === 0 && (
         <Message kind="info">This studio has no catalogued instruments yet. Upload samples to a library; once they are measured and sorted, their instruments appear here.</Message>
+      )}
+      {libraries.length > 1 && (
+        <div className="flex flex-wrap items-center gap-2 text-sm">
+          <label htmlFor="kit-library-filter" className="font-medium">Offer instruments from</label>
+          <select id="kit-library-filter" className="field w-auto" value={libraryId} onChange={(e) => setLibraryId(e.target.value)}>
+            {libraries.map(([id, name]) => <option key={id} value={id}>{name}</option>)}
+            <option value="">every library</option>
+          </select>
+        </div>
       )}
       <div className="hidden grid-cols-[2rem_1fr_9rem_2fr_auto] gap-2 px-3 text-xs font-medium text-muted md:grid" aria-hidden><span>#</span><span>Slot</span><span>Expects</span><span>Instrument (family · library · samples)</span><span /></div>
       <ol className="card p-0" data-testid="kit-slots">
@@ -82,39 +116,44 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
                 <span className="num pt-2 text-muted">{i + 1}.</span>
                 <div>
                   <label className="sr-only" htmlFor={`slot-name-${i}`}>Slot name</label>
-                  <input id={`slot-name-${i}`} className="field py-1.5" value={s.name} disabled={!canWrite} onChange={(e) => patch(i, { name: e.target.value })} />
+                  <input id={`slot-name-${i}`} className="field py-1.5" value={s.name} aria-invalid={clash.has(slotNameKey(s.name))} aria-describedby={clash.has(slotNameKey(s.name)) ? `slot-name-${i}-clash` : undefined} onChange={(e) => patch(i, { name: e.target.value })} />
+                  {clash.has(slotNameKey(s.name)) && <p id={`slot-name-${i}-clash`} className="mt-0.5 text-xs text-warn">⚠ another slot has this name</p>}
                 </div>
                 <div>
                   <label className="sr-only" htmlFor={`slot-family-${i}`}>Expects</label>
-                  <select id={`slot-family-${i}`} className="field py-1.5" value={s.family} disabled={!canWrite} onChange={(e) => patch(i, { family: e.target.value as Family })}>
+                  <select id={`slot-family-${i}`} className="field py-1.5" value={s.family} onChange={(e) => patch(i, { family: e.target.value as Family })}>
                     {FAMILIES.map((f) => <option key={f} value={f}>{f}</option>)}
                   </select>
                 </div>
                 <div>
                   <label className="sr-only" htmlFor={`slot-inst-${i}`}>Instrument</label>
-                  <select id={`slot-inst-${i}`} className="field py-1.5" value={s.instrumentId ?? ""} disabled={!canWrite} onChange={(e) => patch(i, { instrumentId: e.target.value || null })}>
+                  <select id={`slot-inst-${i}`} className="field py-1.5" value={s.instrumentId ?? ""} onChange={(e) => patch(i, { instrumentId: e.target.value || null })}>
                     <option value="">— empty slot (its pads stay silent) —</option>
                     {s.instrumentId && !inst && <option value={s.instrumentId}>missing instrument {s.instrumentId}</option>}
-                    {[s.family, ...FAMILIES.filter((f) => f !== s.family)].map((f) => {
-                      const list = byFamily.get(f);
-                      return list?.length ? (
-                        <optgroup key={f} label={f === s.family ? `${f} (expected)` : f}>
-                          {list.map((x) => <option key={x.id} value={x.id}>{instLabel(x)}</option>)}
+                    {inst && libraryId && inst.libraryId !== libraryId && <option value={inst.id}>{instLabel(inst)}</option>}
+                    {(() => {
+                      const c = choicesForSlot(s.family, instruments, libraryId || null);
+                      return (<>
+                        <optgroup label={c.expected.length ? `${s.family} (what this slot expects)` : `no ${s.family} in this library`}>
+                          {c.expected.map((x) => <option key={x.id} value={x.id}>{instLabel(x)}</option>)}
                         </optgroup>
-                      ) : null;
-                    })}
+                        {c.others.map((g) => (
+                          <optgroup key={g.family} label={`other families: ${g.family}`}>
+                            {g.instruments.map((x) => <option key={x.id} value={x.id}>{instLabel(x)}</option>)}
+                          </optgroup>
+                        ))}
+                      </>);
+                    })()}
                   </select>
                   {inst && <p className="mt-0.5 text-xs text-muted">Recorded: {inst.articulations.join(", ") || "nothing yet"}</p>}
                   {otherFamily && <p className="mt-0.5 text-xs text-warn">⚠ holds a {inst.family} in a {s.family} slot: the audit uses the {inst.family}’s own articulations.</p>}
                   {s.instrumentId && !inst && <p className="mt-0.5 text-xs text-bad">✕ this instrument is no longer in the catalogue.</p>}
                 </div>
-                {canWrite ? (
-                  <div className="flex gap-1">
-                    <button type="button" className="btn-quiet px-2 py-1" onClick={() => move(i, -1)} disabled={i === 0} aria-label={`Move ${s.name} up`}>↑</button>
-                    <button type="button" className="btn-quiet px-2 py-1" onClick={() => move(i, 1)} disabled={i === slots.length - 1} aria-label={`Move ${s.name} down`}>↓</button>
-                    <button type="button" className="btn-danger px-2 py-1" onClick={() => change(slots.filter((_, j) => j !== i))} aria-label={`Remove slot ${s.name}`}>✕</button>
-                  </div>
-                ) : <span />}
+                <div className="flex gap-1">
+                  <button type="button" className="btn-quiet px-2 py-1" onClick={() => move(i, -1)} disabled={i === 0} aria-label={`Move ${s.name} up`}>↑</button>
+                  <button type="button" className="btn-quiet px-2 py-1" onClick={() => move(i, 1)} disabled={i === slots.length - 1} aria-label={`Move ${s.name} down`}>↓</button>
+                  <button type="button" className="btn-danger px-2 py-1" onClick={() => change(slots.filter((_, j) => j !== i))} aria-label={`Remove slot ${s.name}`}>✕</button>
+                </div>
               </div>
               <details className="md:ml-10">
                 <summary className="cursor-pointer text-xs text-muted">Stand-in overrides ({overrides.length})</summary>
@@ -122,7 +161,7 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
                   <p className="text-xs text-muted">When the requested articulation is missing, play this one instead (used only when it is recorded; otherwise the family’s closeness graph decides).</p>
                   {overrides.map(([req, play], k) => (
                     <div key={k} className="flex flex-wrap items-center gap-2 text-sm">
-                      <select aria-label="Requested articulation" className="field w-auto" value={req} disabled={!canWrite} onChange={(e) => {
+                      <select aria-label="Requested articulation" className="field w-auto" value={req} onChange={(e) => {
                         const next = { ...(s.standIns ?? {}) };
                         delete next[req];
                         next[e.target.value as Articulation] = play;
@@ -131,19 +170,17 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
                         {ARTICULATIONS.map((a) => <option key={a} value={a}>{a}</option>)}
                       </select>
                       <span aria-hidden>→</span>
-                      <select aria-label="Plays instead" className="field w-auto" value={play} disabled={!canWrite} onChange={(e) => patch(i, { standIns: { ...(s.standIns ?? {}), [req]: e.target.value as Articulation } })}>
+                      <select aria-label="Plays instead" className="field w-auto" value={play} onChange={(e) => patch(i, { standIns: { ...(s.standIns ?? {}), [req]: e.target.value as Articulation } })}>
                         {[...FAMILY_ARTICULATIONS[fam], ...ARTICULATIONS.filter((a) => !FAMILY_ARTICULATIONS[fam].includes(a))].map((a) => <option key={a} value={a}>{a}</option>)}
                       </select>
-                      {canWrite && <button type="button" className="btn-quiet py-1" onClick={() => { const next = { ...(s.standIns ?? {}) }; delete next[req]; patch(i, { standIns: Object.keys(next).length ? next : undefined }); }}>Remove</button>}
+                      <button type="button" className="btn-quiet py-1" onClick={() => { const next = { ...(s.standIns ?? {}) }; delete next[req]; patch(i, { standIns: Object.keys(next).length ? next : undefined }); }}>Remove</button>
                     </div>
                   ))}
-                  {canWrite && (
-                    <button type="button" className="btn-quiet py-1" onClick={() => {
-                      const used = new Set(Object.keys(s.standIns ?? {}));
-                      const req = FAMILY_ARTICULATIONS[fam].find((a) => !used.has(a) && !inst?.articulations.includes(a)) ?? ARTICULATIONS.find((a) => !used.has(a))!;
-                      patch(i, { standIns: { ...(s.standIns ?? {}), [req]: FAMILY_ARTICULATIONS[fam][0]! } });
-                    }}>Add override</button>
-                  )}
+                  <button type="button" className="btn-quiet py-1" onClick={() => {
+                    const used = new Set(Object.keys(s.standIns ?? {}));
+                    const req = FAMILY_ARTICULATIONS[fam].find((a) => !used.has(a) && !inst?.articulations.includes(a)) ?? ARTICULATIONS.find((a) => !used.has(a))!;
+                    patch(i, { standIns: { ...(s.standIns ?? {}), [req]: FAMILY_ARTICULATIONS[fam][0]! } });
+                  }}>Add override</button>
                 </div>
               </details>
             </li>
@@ -151,14 +188,51 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
         })}
       </ol>
       {slots.length === 0 && <p className="text-sm text-muted">No slots yet.</p>}
-      {canWrite && (
-        <div className="no-print sticky bottom-0 flex flex-wrap items-center gap-2 border-t border-line bg-paper py-3">
-          <button type="button" className="btn-quiet" onClick={addSlot}>Add slot</button>
-          <button type="button" className="btn-quiet" onClick={() => change(orderTomSlots(slots, instruments))} title="Tom slots keep their places; the toms they hold are reordered from the highest measured pitch to the lowest">Order toms by pitch (high → low)</button>
-          <button type="button" className="btn-primary" onClick={save} disabled={saveSlots.isPending || !dirty}>Save kit</button>
-          {dirty && <span className="text-sm text-warn">● unsaved changes</span>}
-          {saveSlots.isSuccess && <Message kind="ok">Kit saved.</Message>}
-          <FormError error={saveSlots.error} />
+      <div className="no-print sticky bottom-0 flex flex-wrap items-center gap-2 border-t border-line bg-paper py-3">
+        <button type="button" className="btn-quiet" onClick={addSlot}>Add slot</button>
+        <button type="button" className="btn-quiet" onClick={() => change(orderTomSlots(slots, instruments))} title="Tom slots keep their places; the toms they hold are reordered from the highest measured pitch to the lowest">Order toms by pitch (high → low)</button>
+        <button type="button" className="btn-primary" onClick={save} disabled={saveSlots.isPending || !dirty}>Save kit</button>
+        {dirty && <span className="text-sm text-warn">● unsaved changes</span>}
+        {saveSlots.isSuccess && <Message kind="ok">Kit saved.</Message>}
+        <FormError error={saveSlots.error} />
+      </div>
+    </div>
+  );
+}
+
+/** The kit as text, for members who may not change it: one row per slot, stacked on a phone. */
+function KitView({ kit, instruments }: { kit: Kit; instruments: InstrumentChoice[] }) {
+  const byId = new Map(instruments.map((i) => [i.id, i]));
+  const grid = "md:grid md:grid-cols-[13rem_7rem_minmax(0,1fr)_11rem] md:gap-3";
+  return (
+    <div className="space-y-3">
+      <ViewOnlyNote what="this kit" />
+      {kit.slots.length === 0 ? <p className="text-sm text-muted">This kit has no slots yet.</p> : (
+        <div className="card p-0">
+          <div className={`hidden px-4 py-2 text-xs font-medium text-muted ${grid}`} aria-hidden><span>Slot</span><span>Expects</span><span>Instrument</span><span>Stand-in overrides</span></div>
+          <ol className="text-sm" data-testid="kit-slots" aria-label="Slots of the kit">
+            {kit.slots.map((s, i) => {
+              const inst = s.instrumentId ? byId.get(s.instrumentId) : undefined;
+              const overrides = Object.entries(s.standIns ?? {});
+              return (
+                <li key={s.id} className={`space-y-1 border-t border-line px-4 py-2 md:space-y-0 ${grid}`} data-testid="kit-slot">
+                  <p className="flex gap-2 font-medium">
+                    <span className="num w-6 shrink-0 text-muted">{i + 1}.</span>
+                    <span data-testid="kit-slot-name">{s.name}</span>
+                    <span className="font-normal text-muted md:hidden">expects {s.family}</span>
+                  </p>
+                  <p className="hidden md:block">{s.family}</p>
+                  <div className="pl-8 md:pl-0">
+                    {!s.instrumentId ? <span className="text-muted">empty: its pads stay silent</span>
+                      : !inst ? <span className="text-bad">✕ no longer in the catalogue</span>
+                      : <>{instLabel(inst)}<span className="block text-xs text-muted">Recorded: {inst.articulations.join(", ") || "nothing yet"}</span></>}
+                    {inst && inst.family !== s.family && <span className="block text-xs text-warn">⚠ a {inst.family} in a {s.family} slot</span>}
+                  </div>
+                  <p className={`pl-8 text-xs md:pl-0 ${overrides.length ? "" : "hidden md:block"}`}><span className="md:hidden">Stand-in overrides: </span>{overrides.length ? overrides.map(([req, play]) => `${req} → ${play}`).join(", ") : <span className="text-muted">none</span>}</p>
+                </li>
+              );
+            })}
+          </ol>
         </div>
       )}
     </div>

@@ -12,6 +12,8 @@ import { MiddleCSetting, noteName, useMiddleC } from "@/components/midi/notes";
 import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalogue/taxonomy";
 import type { HiHatPedal, Layout, LayoutSlot, Pad } from "@/lib/audit/types";
 import { PedalEditor } from "./pedal-editor";
+import { ReadOnlyValue, ViewOnlyNote } from "@/components/view-only";
+import type { MiddleC } from "@/components/midi/note-name";
 
 export interface KitSlotsChoice { id: string; name: string; slots: LayoutSlot[] }
 
@@ -117,6 +119,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
   return (
     <div className="grid gap-6 xl:grid-cols-[1fr_360px]">
       <div className="space-y-4">
+        {!canWrite && <ViewOnlyNote what="this layout" />}
         <section className="card space-y-3">
           <div className="flex flex-wrap items-center justify-between gap-3">
             <h2>{grid ? `Pads (${grid.rows} × ${grid.cols} grid)` : `Trigger zones (${layout.pads.length})`}</h2>
@@ -128,8 +131,8 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
                 const r = Math.floor(i / grid.cols) + 1;
                 const c = (i % grid.cols) + 1;
                 const p = layout.pads.find((x) => x.row === r && x.col === c);
-                return p ? padButton(p) : (
-                  <button key={`e${r}-${c}`} type="button" disabled={!canWrite} className="min-h-20 rounded-md border border-dashed border-line text-xs text-muted"
+                return p ? padButton(p) : !canWrite ? <div key={`e${r}-${c}`} className="min-h-20 rounded-md border border-dashed border-line" aria-hidden /> : (
+                  <button key={`e${r}-${c}`} type="button" className="min-h-20 rounded-md border border-dashed border-line text-xs text-muted"
                     onClick={() => {
                       const ids = new Set(layout.pads.map((x) => x.id));
                       let id = `r${r}c${c}`;
@@ -156,7 +159,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
 
         <section className="card space-y-3">
           <h2>MIDI learn</h2>
-          <p className="text-sm text-muted">Connect your controller, select a pad above, press “Learn pads”, then hit the controller’s pad: its note, channel and velocity are captured{advance ? " and the next pad is selected" : ""}.</p>
+          <p className="text-sm text-muted">{canWrite ? <>Connect your controller, select a pad above, press “Learn pads”, then hit the controller’s pad: its note, channel and velocity are captured{advance ? " and the next pad is selected" : ""}.</> : "Connect your controller to see what each pad sends."}</p>
           <MidiStatusLine status={midi.status} message={midi.message} inputs={midi.inputs} onConnect={midi.connect} />
           {canWrite && (
             <div className="flex flex-wrap items-center gap-3">
@@ -180,8 +183,8 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
       <aside className="space-y-4">
         <section className="card space-y-3" data-testid="pad-settings">
           <h2>Selected pad</h2>
-          {!pad ? <p className="text-sm text-muted">Select a pad.</p> : (
-            <fieldset disabled={!canWrite} className="space-y-3">
+          {!pad ? <p className="text-sm text-muted">Select a pad.</p> : !canWrite ? <PadView pad={pad} grid={!!grid} slot={slotOf(pad.target?.slotId)} middleC={middleC} shared={(noteUse.get(`${pad.note}/${pad.channel}`) ?? 0) > 1} /> : (
+            <fieldset className="space-y-3">
               <div>
                 <label className="label" htmlFor="pad-label">Label</label>
                 <input id="pad-label" className="field" value={pad.label} maxLength={200} onChange={(e) => patchPad(pad.id, { label: e.target.value })} />
@@ -232,13 +235,13 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
 
         <section className="card space-y-3">
           <h2>Slots the pads aim at</h2>
-          <div>
+          {canWrite && <div>
             <label className="label" htmlFor="slots-from-kit">Take slots from a kit</label>
-            <select id="slots-from-kit" className="field" value={kitForSlots} onChange={(e) => { setKitForSlots(e.target.value); const k = kits.find((x) => x.id === e.target.value); if (k) update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], k.slots) })); }} disabled={!canWrite}>
+            <select id="slots-from-kit" className="field" value={kitForSlots} onChange={(e) => { setKitForSlots(e.target.value); const k = kits.find((x) => x.id === e.target.value); if (k) update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], k.slots) })); }}>
               <option value="">—</option>
               {kits.map((k) => <option key={k.id} value={k.id}>{k.name} ({k.slots.length} slots)</option>)}
             </select>
-          </div>
+          </div>}
           <ul className="flex max-h-48 flex-wrap gap-1 overflow-y-auto text-xs" data-testid="layout-slots">{slots.map((s) => <li key={s.id} className="tag border-line">{s.name} <span className="ml-1 text-muted">{s.family}</span></li>)}</ul>
           {canWrite && <AddSlot onAdd={(s) => update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], [s]) }))} taken={new Set(slots.map((s) => s.id))} />}
         </section>
@@ -284,5 +287,18 @@ function AddSlot({ onAdd, taken }: { onAdd: (s: LayoutSlot) => void; taken: Set<
         setName("");
       }}>Add</button>
     </div>
+  );
+}
+
+/** The selected pad's settings as text, for members who may not change the layout. */
+function PadView({ pad, grid, slot, middleC, shared }: { pad: Pad; grid: boolean; slot: LayoutSlot | undefined; middleC: MiddleC; shared: boolean }) {
+  return (
+    <dl className="grid grid-cols-2 gap-3" data-testid="pad-view">
+      <div className="col-span-2"><ReadOnlyValue label="Label" testId="pad-view-label">{pad.label || "(no label)"}</ReadOnlyValue></div>
+      {!grid && <div className="col-span-2"><ReadOnlyValue label="Trigger zone">{pad.zone ?? "–"}</ReadOnlyValue></div>}
+      <ReadOnlyValue label="MIDI note"><span className="num">{pad.note}</span> · {noteName(pad.note, middleC)}{shared ? " · other pads send it too" : ""}</ReadOnlyValue>
+      <ReadOnlyValue label="Channel"><span className="num">{pad.channel}</span></ReadOnlyValue>
+      <div className="col-span-2"><ReadOnlyValue label="Plays">{pad.target ? `${slot?.name ?? pad.target.slotId}${slot ? ` (${slot.family})` : ""}: ${pad.target.articulation}` : "nothing: no target"}</ReadOnlyValue></div>
+    </dl>
   );
 }

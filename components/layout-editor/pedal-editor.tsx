@@ -5,6 +5,7 @@ import type { Articulation } from "@/lib/catalogue/taxonomy";
 import type { HiHatPedal, LayoutSlot } from "@/lib/audit/types";
 import { noteName, type MiddleC } from "@/components/midi/note-name";
 import { PedalZonesBar } from "@/components/audit/pedal-bar";
+import { ReadOnlyValue } from "@/components/view-only";
 
 const OPENNESS: Articulation[] = ["closed", "quarter-open", "half-open", "open", "foot-splash"];
 
@@ -32,8 +33,8 @@ export function PedalEditor({ pedal, slots, canWrite, middleC, onChange }: { ped
           ? <button type="button" className="btn-danger py-1" onClick={() => onChange(null)}>Remove pedal</button>
           : <button type="button" className="btn-quiet py-1" onClick={() => onChange(defaultPedal(hatSlot))}>Add hi-hat pedal</button>)}
       </div>
-      {!pedal ? <p className="text-sm text-muted">No pedal on this layout.</p> : (
-        <fieldset disabled={!canWrite} className="space-y-3">
+      {!pedal ? <p className="text-sm text-muted">No pedal on this layout.</p> : !canWrite ? <PedalView pedal={pedal} slots={slots} middleC={middleC} /> : (
+        <fieldset className="space-y-3">
           <div className="grid gap-3 sm:grid-cols-4">
             <div>
               <label className="label" htmlFor="pedal-cc">Controller (CC)</label>
@@ -86,5 +87,25 @@ export function PedalEditor({ pedal, slots, canWrite, middleC, onChange }: { ped
         </fieldset>
       )}
     </section>
+  );
+}
+
+/** The pedal as text, for members who may not change the layout (the layout's "view only" note covers it). */
+function PedalView({ pedal, slots, middleC }: { pedal: HiHatPedal; slots: LayoutSlot[]; middleC: MiddleC }) {
+  const slot = slots.find((s) => s.id === pedal.slotId);
+  return (
+    <div className="space-y-3" data-testid="pedal-view">
+      <dl className="grid gap-3 sm:grid-cols-4">
+        <ReadOnlyValue label="Controller (CC)"><span className="num">{pedal.controller}</span>{pedal.controller === 4 ? " (Foot Controller)" : ""}</ReadOnlyValue>
+        <ReadOnlyValue label="Channel"><span className="num">{pedal.channel}</span></ReadOnlyValue>
+        <ReadOnlyValue label="Closed at">{pedal.closedAt === "high" ? "high values (127 = closed)" : "low values (0 = closed)"}</ReadOnlyValue>
+        <ReadOnlyValue label="Chick note">{pedal.chickNote === null ? "none" : <><span className="num">{pedal.chickNote}</span> · {noteName(pedal.chickNote, middleC)}</>}</ReadOnlyValue>
+        <div className="sm:col-span-4"><ReadOnlyValue label="Slot">{slot ? `${slot.name} (${slot.family})` : pedal.slotId}</ReadOnlyValue></div>
+      </dl>
+      <PedalZonesBar zones={pedal.zones.map((z) => ({ low: z.low, high: z.high, text: z.articulation, mark: "none" as const }))} closedAt={pedal.closedAt} />
+      <ul className="space-y-1 text-sm">
+        {pedal.zones.map((z, i) => <li key={i}><span className="num">{z.low}–{z.high}</span>: {z.articulation}</li>)}
+      </ul>
+    </div>
   );
 }

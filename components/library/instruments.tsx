@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { FormError, Message } from "../form-bits";
 import { useMergeInstruments, useRenameInstrument } from "../data/instruments";
+import { ViewOnlyNote } from "../view-only";
 import type { InstrumentRow } from "@/lib/api-types/instruments";
 
 export function InstrumentsList({ studioId, libraryId, instruments, canWrite }: { studioId: string; libraryId: string; instruments: InstrumentRow[]; canWrite: boolean }) {
@@ -22,6 +23,7 @@ export function InstrumentsList({ studioId, libraryId, instruments, canWrite }: 
   for (const i of instruments) byFamily.set(i.family, [...(byFamily.get(i.family) ?? []), i]);
   return (
     <div className="space-y-4">
+      {!canWrite && <ViewOnlyNote what="instrument names or merge instruments" />}
       {canWrite && (
         <div className="card flex flex-wrap items-end gap-3 p-3 text-sm">
           <span className="pb-2"><span className="num">{picked.size}</span> selected</span>

@@ -5,6 +5,7 @@ import { useRouter } from "next/navigation";
 import { Field, FormError, Message, fieldErrors } from "../form-bits";
 import { useCreateLibrary, useDeleteLibrary, useUpdateLibrary } from "../data/libraries";
 import { createLibrarySchema, updateLibrarySchema, type VelocityCurveName } from "@/lib/validation/library";
+import { VELOCITY_CURVE_WORDS } from "./curve-words";
 
 export function CreateLibraryForm({ studioId }: { studioId: string }) {
   const router = useRouter();
@@ -76,8 +77,7 @@ export function LibrarySettings({ studioId, libraryId, name, description, veloci
         <div>
           <label htmlFor="lib-curve" className="label">Velocity curve</label>
           <select id="lib-curve" name="velocityCurve" defaultValue={velocityCurve} className="field">
-            <option value="dls">Square law (MMA DLS Level 1): the default</option>
-            <option value="dannenberg">Dannenberg (ICMC 2006), over each group&apos;s measured range</option>
+            {(Object.keys(VELOCITY_CURVE_WORDS) as VelocityCurveName[]).map((c) => <option key={c} value={c}>{VELOCITY_CURVE_WORDS[c]}</option>)}
           </select>
           <p className="mt-1 text-xs text-muted">How the layers&apos; loudness maps to MIDI velocities. Changing it sorts the library again.</p>
         </div>

@@ -1,6 +1,6 @@
 "use client";
 // One sample: waveform from the server's peaks, the reasons for its labels, key measures, and the preview.
-import { useCallback } from "react";
+import { useCallback, useState } from "react";
 import { loadSampleAudio, useSample } from "../data/samples";
 import { Preview } from "./preview";
 import { Waveform } from "./waveform";
@@ -10,6 +10,7 @@ export function SampleDetail({ studioId, libraryId, sampleId, onClose }: { studi
   const q = useSample(studioId, libraryId, sampleId);
   const load = useCallback(() => loadSampleAudio(studioId, libraryId, sampleId), [studioId, libraryId, sampleId]);
   const s = q.data;
+  const [playhead, setPlayhead] = useState<number | null>(null);
   return (
     <aside className="card h-fit space-y-3 p-4 text-sm" data-testid="sample-detail" aria-label="Sample detail">
       <div className="flex items-start justify-between gap-2">
@@ -21,8 +22,8 @@ export function SampleDetail({ studioId, libraryId, sampleId, onClose }: { studi
         <>
           <div className="flex flex-wrap gap-2"><StateTag state={s.state} />{s.conflict === "strong" && <span className="tag border-warn/40 bg-warn-soft text-warn">⚑ name and sound disagree</span>}</div>
           {s.rejectReason && <p className="rounded border border-bad/30 bg-bad-soft p-2 text-bad">Rejected: {s.rejectReason}</p>}
-          {s.peaks && <Waveform peaks={s.peaks} durationSec={s.durationSec ?? 0} onsetMs={s.measurement?.onsetMs ?? null} />}
-          {s.state !== "rejected" && <Preview load={load} />}
+          {s.peaks && <Waveform peaks={s.peaks} durationSec={s.durationSec ?? 0} onsetMs={s.measurement?.onsetMs ?? null} playhead={playhead} />}
+          {s.state !== "rejected" && <Preview load={load} onPosition={setPlayhead} />}
           <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-xs">
             <dt className="text-muted">Family / articulation</dt><dd>{s.family ?? "–"} / {s.articulation ?? "–"}</dd>
             <dt className="text-muted">Instrument</dt><dd>{s.instrumentName ?? "–"}</dd>

@@ -11,11 +11,14 @@ import { StateTag } from "./state-counts";
 import { SampleDetail } from "./sample-detail";
 import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
 import { MIC_POSITIONS } from "@/lib/catalogue/names";
+import { formatConfidence } from "@/lib/catalogue/confidence";
 import type { RelabelBody, SampleRow } from "@/lib/api-types/samples";
 
 type Inst = { key: string; name: string; family: string };
 
 const SORTABLE: Record<string, string> = { path: "path", state: "state", family: "family", articulation: "articulation", instrument: "instrument", layer: "layer", rr: "roundRobin", mic: "mic", strike: "strike", truePeak: "truePeak", duration: "duration", confidence: "confidence" };
+/** The URL parameters that narrow the list (an empty list with any of them set is "no match", not "no samples"). */
+const FILTERS = ["q", "family", "articulation", "state", "instrument", "flag"] as const;
 const fmt = (x: number | null, d = 1) => (x === null || !Number.isFinite(x) ? "–" : x.toFixed(d));
 const SRC: Record<string, string> = { name: "from the name", sound: "from the sound", person: "confirmed by a member" };
 const srcMark = (s: string | null) => (s === "person" ? "✓" : s === "sound" ? "~" : s === "name" ? "" : "");
@@ -53,6 +56,11 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
   const page = Number(sp.get("page") ?? "1");
   const pageSize = Number(sp.get("pageSize") ?? "50");
   const openId = sp.get("sample");
+  const filtered = FILTERS.some((k) => sp.get(k));
+  const clearFilters = () => {
+    setQ("");
+    setParams(Object.fromEntries(FILTERS.map((k) => [k, null])));
+  };
 
   const columns = useMemo<ColumnDef<SampleRow>[]>(() => {
     const cols: ColumnDef<SampleRow>[] = [];
@@ -94,7 +102,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
       { id: "strike", header: "Strike LUFS", cell: ({ row }) => <span className="num">{fmt(row.original.strikeLufs)}</span> },
       { id: "truePeak", header: "True peak dBTP", cell: ({ row }) => <span className={`num ${row.original.truePeakDbtp !== null && row.original.truePeakDbtp > 0 ? "font-semibold text-bad" : ""}`}>{fmt(row.original.truePeakDbtp)}{row.original.truePeakDbtp !== null && row.original.truePeakDbtp > 0 ? " ▲" : ""}</span> },
       { id: "duration", header: "Length s", cell: ({ row }) => <span className="num">{fmt(row.original.durationSec, 2)}</span> },
-      { id: "confidence", header: "Confidence", cell: ({ row }) => <span className="num">{row.original.confidence === null ? "–" : `${Math.round(row.original.confidence * 100)}%`}</span> },
+      { id: "confidence", header: "Confidence", cell: ({ row }) => <span className="num" title="How sure Kitwright is of the family and articulation">{row.original.confidence === null ? "–" : formatConfidence(row.original.confidence)}</span> },
       { id: "flags", header: "Review", cell: ({ row }) => (row.original.conflict === "strong" ? <span className="tag border-warn/40 bg-warn-soft text-warn" title="The name and the sound disagree: check this sample">⚑ name ≠ sound</span> : row.original.conflict === "mild" ? <span className="text-xs text-muted" title="The sound only partly fits the name">~ check</span> : null) },
     );
     return cols;
@@ -157,7 +165,15 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
                   {r.getVisibleCells().map((c) => <td key={c.id} className="whitespace-nowrap px-2 py-1.5">{flexRender(c.column.columnDef.cell, c.getContext())}</td>)}
                 </tr>
               ))}
-              {data && data.rows.length === 0 && <tr><td colSpan={columns.length} className="px-3 py-6 text-center text-muted">No samples match.</td></tr>}
+              {data && data.rows.length === 0 && (
+                <tr><td colSpan={columns.length} className="px-3 py-6 text-center" data-testid="samples-empty">
+                  {filtered ? (
+                    <span className="text-muted">No samples match these filters. <button type="button" className="text-brand underline underline-offset-2" onClick={clearFilters}>Clear filters</button></span>
+                  ) : (
+                    <span className="text-muted">No samples yet{canWrite ? <> — drop a folder of WAV one-shots on <a href="#add-samples">Add samples</a>.</> : "."}</span>
+                  )}
+                </td></tr>
+              )}
             </tbody>
           </table>
           <div className="flex flex-wrap items-center justify-between gap-2 border-t border-line px-3 py-2 text-xs">

@@ -102,7 +102,7 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
   const failedCount = items.filter((i) => i.state === "failed").length;
 
   return (
-    <section className="card space-y-3" data-testid="uploader">
+    <section className="card space-y-3" id="add-samples" data-testid="uploader">
       <h3 className="font-semibold">Add samples</h3>
       <div
         onDragOver={(e) => {

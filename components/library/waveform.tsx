@@ -1,5 +1,6 @@
-// Waveform drawn as SVG from the server's min/max peaks per bucket; the detected onset as a marker.
-export function Waveform({ peaks, durationSec, onsetMs, height = 80 }: { peaks: { min: number[]; max: number[] }; durationSec: number; onsetMs: number | null; height?: number }) {
+// Waveform drawn as SVG from the server's min/max peaks per bucket; the detected onset as a marker; while the
+// sample plays, a playhead (`playhead`: 0..1 of the file) with the part already heard shaded.
+export function Waveform({ peaks, durationSec, onsetMs, height = 80, playhead = null }: { peaks: { min: number[]; max: number[] }; durationSec: number; onsetMs: number | null; height?: number; playhead?: number | null }) {
   const n = peaks.max.length;
   const w = 400;
   const mid = height / 2;
@@ -15,6 +16,12 @@ export function Waveform({ peaks, durationSec, onsetMs, height = 80 }: { peaks: 
       <svg viewBox={`0 0 ${w} ${height}`} className="h-20 w-full rounded border border-line bg-paper" role="img" aria-label={`Waveform, ${durationSec.toFixed(2)} s${clipped ? ", reaches full scale" : ""}`} data-testid="waveform">
         <line x1={0} x2={w} y1={mid} y2={mid} stroke="currentColor" className="text-line" strokeWidth={0.5} />
         <polygon points={[...top, ...bottom].join(" ")} className="fill-brand" />
+        {playhead !== null && (
+          <g data-testid="playhead" data-position={playhead.toFixed(3)}>
+            <rect x={0} y={0} width={Math.max(0, Math.min(1, playhead)) * w} height={height} className="fill-ink/10" />
+            <line x1={Math.max(0, Math.min(1, playhead)) * w} x2={Math.max(0, Math.min(1, playhead)) * w} y1={0} y2={height} stroke="currentColor" className="text-ink" strokeWidth={1.5} />
+          </g>
+        )}
         {onsetX !== null && <line x1={onsetX} x2={onsetX} y1={0} y2={height} stroke="currentColor" className="text-warn" strokeDasharray="3 2" strokeWidth={1} />}
       </svg>
       <figcaption className="mt-1 flex justify-between text-xs text-muted">

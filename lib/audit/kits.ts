@@ -8,9 +8,11 @@
 // line by key, and both must fill a layout's slots alike. Percussion slots
 // (hand drum, cowbell, shaker, other) first take an instrument whose name carries the slot's word.
 // An instrument is never used twice; expected slots with no instrument left stay empty (their pads go
-// silent); instruments no slot asked for are appended as extra slots so the kit holds all of them.
+// silent); instruments no slot asked for are appended as extra slots so the kit holds all of them. No two slots
+// share a name, whatever the case: clashing names are numbered ("Kick 1", "Kick 2"; kit-fill.ts uniqueSlotNames).
 
 import { FAMILIES, FAMILY_ARTICULATIONS, type Family } from "../catalogue/taxonomy";
+import { byName, tomPitchOrder, withUniqueNames } from "./kit-fill";
 import type { Catalogue, CatalogueInstrument, Kit, KitSlot, Layout, LayoutSlot } from "./types";
 
 const FAMILY_WORDS: Array<[RegExp, Family]> = [
@@ -81,21 +83,13 @@ function recordedCount(i: CatalogueInstrument): number {
 function sampleCount(i: CatalogueInstrument): number {
   return i.articulations.reduce((s, a) => s + a.layers.reduce((t, l) => t + l.sampleIds.length, 0), 0);
 }
-const byName = (a: CatalogueInstrument, b: CatalogueInstrument) => a.name.localeCompare(b.name) || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
 
 /** Other families: the instrument with the most recorded articulations first, then the most samples, then by name. */
 function richerFirst(a: CatalogueInstrument, b: CatalogueInstrument): number {
   return recordedCount(b) - recordedCount(a) || sampleCount(b) - sampleCount(a) || byName(a, b);
 }
 
-function tomOrder(a: CatalogueInstrument, b: CatalogueInstrument): number {
-  const pa = a.pitchHz ?? null;
-  const pb = b.pitchHz ?? null;
-  if (pa !== null && pb !== null && pa !== pb) return pb - pa;
-  if (pa !== null && pb === null) return -1;
-  if (pa === null && pb !== null) return 1;
-  return byName(a, b);
-}
+const tomOrder = tomPitchOrder;
 
 /** Build a kit for `layout` from the instruments of `catalogue` (rules above). */
 export function buildDefaultKit(layout: Layout, catalogue: Catalogue, name = `Default kit for ${layout.name}`): Kit {
@@ -140,7 +134,8 @@ export function buildDefaultKit(layout: Layout, catalogue: Catalogue, name = `De
       slots.push({ id, name: inst.name, family: inst.family, instrumentId: inst.id });
     }
   }
-  return { id: `default-${layout.id}`, name, slots };
+  // an instrument named like a slot ("Kick" beside the slot "Kick", "Hi-Hat" beside "Hi-hat") is numbered
+  return { id: `default-${layout.id}`, name, slots: withUniqueNames(slots) };
 }
 
 /** Order tom instruments from high to low measured pitch (unpitched last, by name). */

@@ -17,6 +17,7 @@
 // With confirmed labels (within the studio) it uses k nearest neighbours over standardised features, and falls
 // back to the rules for families with too few confirmed labels.
 
+import { formatConfidence } from "./confidence";
 import type { Measurement } from "../audio/types";
 import { decaySec, distance, featureVector, fitStandardiser, standardise, type Standardiser } from "./features";
 import { soundFeatures } from "./sound-features";
@@ -238,7 +239,6 @@ function fitWords(m: Measurement, family: Family): string | null {
   return out.length ? out.join("; ") : null;
 }
 
-const pctWord = (x: number) => `${Math.round(x * 100)} %`;
 
 /** A family in running text: "a hi-hat", "a hand drum", "an other sound". */
 function aFamily(f: Family): string {
@@ -262,7 +262,7 @@ export function suggestByModel(m: Measurement, model: SoundModel): SoundSuggesti
   const articulation = p.articulation ?? rulesArt.articulation;
   const reasons = [
     soundInWords(m),
-    `sounds most like ${aFamily(p.family)}${next ? `; next: ${aFamily(next[0])}` : ""} (trained on real recordings; right ${pctWord(p.confidence)} of the time at this certainty)`,
+    `sounds most like ${aFamily(p.family)}${next ? `; next: ${aFamily(next[0])}` : ""} (trained on real recordings; right ${formatConfidence(p.confidence)} of the time at this certainty)`,
   ];
   const fit = fitWords(m, p.family);
   if (fit) reasons.push(fit);
@@ -455,7 +455,7 @@ export function nameSoundConflict(
     const level = !alike && sure ? "strong" : "mild";
     return {
       level,
-      message: `Named ${name.family} but sounds like ${sound.family} (confidence ${sound.confidence.toFixed(2)}; ${sound.reasons[0] ?? ""}).`,
+      message: `Named ${name.family} but sounds like ${sound.family} (${formatConfidence(sound.confidence)} sure; ${sound.reasons[0] ?? ""}).`,
     };
   }
   if (name.articulation && sound.articulation !== name.articulation && sound.confidence >= minConf) {

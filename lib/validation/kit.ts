@@ -36,8 +36,15 @@ export const kitDocSchema = z.strictObject({ id: sid, name: z.string().min(1).ma
 export const kitFileStrictSchema = z.strictObject({ schema: z.literal(KIT_SCHEMA), kit: kitDocSchema });
 
 export const createKitSchema = z
-  .strictObject({ name, slots: kitSlotsSchema.optional(), template: z.enum(TEMPLATE_NAMES as [string, ...string[]]).optional() })
+  .strictObject({
+    name,
+    slots: kitSlotsSchema.optional(),
+    template: z.enum(TEMPLATE_NAMES as [string, ...string[]]).optional(),
+    /** With a template: fill the slots from this library's instruments only (else from every library). */
+    libraryId: idParam.optional(),
+  })
   .refine((b) => !(b.slots && b.template), { message: "Give slots or a template, not both." })
+  .refine((b) => !b.libraryId || b.template, { path: ["libraryId"], message: "A library is chosen only to fill a kit template." })
   .superRefine((b, ctx) => {
     if (b.slots) alsoCheck(kitBodySchema)({ id: "x", name: "x", slots: b.slots }, ctx);
   });

@@ -55,7 +55,7 @@ describe("audit flow in Chromium", () => {
     // a kit filled from the catalogue for the General MIDI slots
     await page.goto(`${BASE}/s/${s.studio.id}/kits`);
     await page.getByLabel("Kit name").fill(`Pier kit ${tag}`);
-    await page.getByLabel("Slots").selectOption("gm-percussion");
+    await page.getByLabel("Kit template").selectOption("gm-percussion");
     await page.getByRole("button", { name: "Create kit" }).click();
     await page.waitForURL(/\/kits\/[0-9a-f-]{36}$/);
     await page.getByTestId("kit-slots").waitFor();

@@ -44,7 +44,7 @@ async function checkInstruments(k: Knex, studioId: string, slots: KitSlot[]): Pr
 }
 
 export async function createKit(
-  { studioId, actorId, name, slots, template }: { studioId: string; actorId: string; name: string; slots?: KitSlot[]; template?: string },
+  { studioId, actorId, name, slots, template, libraryId }: { studioId: string; actorId: string; name: string; slots?: KitSlot[]; template?: string; libraryId?: string },
 ): Promise<KitRecord> {
   const id = newId();
   return db().transaction(async (trx) => {
@@ -52,13 +52,19 @@ export async function createKit(
     if (template) {
       const layout = getTemplate(template);
       if (!layout) throw new AppError("invalid-input", `Unknown template "${template}".`);
-      body = { ...buildDefaultKit(layout, await loadStudioCatalogue({ studioId }, trx), name), id, name };
+      let catalogue = await loadStudioCatalogue({ studioId }, trx);
+      if (libraryId) {
+        // the library must be this studio's (another studio's is not admitted to exist)
+        if (!(await trx("libraries").where({ studio_id: studioId, id: libraryId }).first("id"))) throw notFound("The library");
+        catalogue = catalogue.filter((i) => i.libraryId === libraryId);
+      }
+      body = { ...buildDefaultKit(layout, catalogue, name), id, name };
     } else {
       body = { id, name, slots: slots ?? [] };
     }
     await checkInstruments(trx, studioId, body.slots);
     await trx("kits").insert({ id, studio_id: studioId, name, body: JSON.stringify(body), created_by: actorId });
-    await logActivity(trx, { studioId, actorId, action: "kit.created", subjectType: "kit", subjectId: id, details: { name, slots: body.slots.length, ...(template ? { template } : {}) } });
+    await logActivity(trx, { studioId, actorId, action: "kit.created", subjectType: "kit", subjectId: id, details: { name, slots: body.slots.length, ...(template ? { template } : {}), ...(libraryId ? { libraryId } : {}) } });
     return getKit({ studioId, kitId: id }, trx);
   });
 }

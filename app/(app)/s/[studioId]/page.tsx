@@ -5,6 +5,8 @@ import { listMembers } from "@/lib/server/studios";
 import { studioOverview } from "@/lib/server/overview";
 import { can, PERMISSION_INFO, ROLE_PERMISSIONS } from "@/lib/permissions";
 import { RenameStudioForm } from "@/components/studio-forms";
+import { ReadOnlyValue, ViewOnlyNote } from "@/components/view-only";
+import { NextStepSlot } from "@/app/(app)/s/[studioId]/next-step-slot";
 
 export const metadata: Metadata = { title: "Studio" };
 
@@ -14,6 +16,8 @@ export default async function StudioOverview({ params }: { params: Promise<{ stu
   const [members, o] = await Promise.all([listMembers({ studioId: studio.id }), studioOverview({ studioId: studio.id })]);
   const base = `/s/${studio.id}`;
   return (
+    <>
+    <NextStepSlot studio={studio} always />
     <div className="grid gap-6 lg:grid-cols-3">
       <section className="card space-y-3 lg:col-span-2" data-testid="overview-libraries">
         <div className="flex items-baseline justify-between">
@@ -67,8 +71,14 @@ export default async function StudioOverview({ params }: { params: Promise<{ stu
       <section className="card space-y-3 lg:col-span-2">
         <h2>Members</h2>
         <p className="text-sm"><span className="num">{members.length}</span> {members.length === 1 ? "person" : "people"}: {members.map((m) => `${m.name} (${m.role})`).join(", ")}</p>
-        {can(studio.role, "studio:manage") && <RenameStudioForm studioId={studio.id} name={studio.name} />}
+        {can(studio.role, "studio:manage") ? <RenameStudioForm studioId={studio.id} name={studio.name} /> : (
+          <div className="space-y-2" data-testid="studio-settings-view">
+            <dl><ReadOnlyValue label="Studio name">{studio.name}</ReadOnlyValue></dl>
+            <ViewOnlyNote what="the studio's name" permission="studio:manage" />
+          </div>
+        )}
       </section>
     </div>
+    </>
   );
 }

@@ -5,6 +5,7 @@ import { listLayouts } from "@/lib/server/kits/layouts";
 import { can } from "@/lib/permissions";
 import { CreateLayoutForm } from "@/components/layout-editor/create-layout";
 import { ImportLayoutFile } from "@/components/item-actions";
+import { NextStepSlot } from "@/app/(app)/s/[studioId]/next-step-slot";
 
 export const metadata: Metadata = { title: "Layouts" };
 
@@ -14,6 +15,8 @@ export default async function LayoutsPage({ params }: { params: Promise<{ studio
   const layouts = await listLayouts({ studioId: studio.id });
   const write = can(studio.role, "studio:write");
   return (
+    <>
+    <NextStepSlot studio={studio} />
     <div className="grid gap-6 lg:grid-cols-[1fr_340px]">
       <section className="card p-0">
         <table className="w-full text-sm" data-testid="layouts-table">
@@ -29,16 +32,17 @@ export default async function LayoutsPage({ params }: { params: Promise<{ studio
                 <td className="px-5 py-2"><Link href={`/s/${studio.id}/audits?layoutId=${l.id}`}>audits</Link></td>
               </tr>
             ))}
-            {layouts.length === 0 && <tr><td colSpan={5} className="px-5 py-4 text-muted">No layouts yet.</td></tr>}
+            {layouts.length === 0 && <tr><td colSpan={5} className="px-5 py-4 text-muted">No layouts yet. A layout is your pad controller: which pad sends which note, and what it should play.{write ? " Add one with “New layout”." : ""}</td></tr>}
           </tbody>
         </table>
       </section>
       {write && (
         <aside className="space-y-6">
-          <section className="card space-y-3"><h2>New layout</h2><CreateLayoutForm studioId={studio.id} /></section>
+          <section className="card space-y-3" id="new-layout"><h2>New layout</h2><CreateLayoutForm studioId={studio.id} /></section>
           <section className="card"><ImportLayoutFile studioId={studio.id} label="Import a layout file (kitwright.layout/v1)" /></section>
         </aside>
       )}
     </div>
+    </>
   );
 }

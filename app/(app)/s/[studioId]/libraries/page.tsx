@@ -5,6 +5,7 @@ import { listLibraries } from "@/lib/server/catalogue/libraries";
 import { can, whoCan } from "@/lib/permissions";
 import { CreateLibraryForm } from "@/components/library/library-forms";
 import { StateCountsLine } from "@/components/library/state-counts";
+import { NextStepSlot } from "@/app/(app)/s/[studioId]/next-step-slot";
 
 export const metadata: Metadata = { title: "Libraries" };
 
@@ -14,6 +15,8 @@ export default async function LibrariesPage({ params }: { params: Promise<{ stud
   const libraries = await listLibraries({ studioId: studio.id });
   const write = can(studio.role, "studio:write");
   return (
+    <>
+    <NextStepSlot studio={studio} />
     <div className="grid gap-6 lg:grid-cols-[1fr_340px]">
       <section className="space-y-3" data-testid="libraries">
         {libraries.length === 0 && (
@@ -34,7 +37,8 @@ export default async function LibrariesPage({ params }: { params: Promise<{ stud
           </article>
         ))}
       </section>
-      {write && <aside className="card h-fit"><CreateLibraryForm studioId={studio.id} /></aside>}
+      {write && <aside className="card h-fit" id="new-library"><CreateLibraryForm studioId={studio.id} /></aside>}
     </div>
+    </>
   );
 }

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { requireStudio } from "@/lib/server/session";
 import { listInvitations, listMembers } from "@/lib/server/studios";
 import { can } from "@/lib/permissions";
+import { ViewOnlyNote } from "@/components/view-only";
 import { InviteForm, MemberControls, RevokeInvitationButton } from "@/components/studio-forms";
 
 export const metadata: Metadata = { title: "Members" };
@@ -16,6 +17,7 @@ export default async function MembersPage({ params }: { params: Promise<{ studio
   return (
     <div className="grid gap-6 lg:grid-cols-[1fr_340px]">
       <section className="space-y-6">
+        {!manage && <ViewOnlyNote what="roles or invite people" permission="members:manage" />}
         <div className="card overflow-x-auto p-0">
           <table className="w-full text-sm" data-testid="members-table">
             <caption className="px-5 pt-4 text-left font-semibold">Members</caption>

@@ -8,6 +8,7 @@ import { AppError } from "@/lib/server/errors";
 import { can } from "@/lib/permissions";
 import { KitEditor } from "@/components/kit/kit-editor";
 import { KitActions } from "@/components/item-actions";
+import { NextStepSlot } from "@/app/(app)/s/[studioId]/next-step-slot";
 
 export const metadata: Metadata = { title: "Kit" };
 
@@ -19,6 +20,8 @@ export default async function KitPage({ params }: { params: Promise<{ studioId: 
   const instruments = await listInstrumentChoices({ studioId: studio.id });
   const write = can(studio.role, "studio:write");
   return (
+    <>
+    <NextStepSlot studio={studio} />
     <div className="space-y-4">
       <p className="no-print text-sm"><Link href={`/s/${studio.id}/kits`}>← All kits</Link></p>
       <div className="flex flex-wrap items-start justify-between gap-4">
@@ -27,5 +30,6 @@ export default async function KitPage({ params }: { params: Promise<{ studioId: 
       </div>
       <KitEditor key={`${kit.id}:${kit.name}`} studioId={studio.id} kit={kit.kit} instruments={instruments} canWrite={write} />
     </div>
+    </>
   );
 }

@@ -8,6 +8,7 @@ import { AppError } from "@/lib/server/errors";
 import { can } from "@/lib/permissions";
 import { LayoutEditor } from "@/components/layout-editor/layout-editor";
 import { LayoutActions } from "@/components/item-actions";
+import { NextStepSlot } from "@/app/(app)/s/[studioId]/next-step-slot";
 
 export const metadata: Metadata = { title: "Layout" };
 
@@ -22,6 +23,8 @@ export default async function LayoutPage({ params }: { params: Promise<{ studioI
   }));
   const write = can(studio.role, "studio:write");
   return (
+    <>
+    <NextStepSlot studio={studio} />
     <div className="space-y-4">
       <p className="no-print text-sm"><Link href={`/s/${studio.id}/layouts`}>← All layouts</Link> · <Link href={`/s/${studio.id}/audits?layoutId=${rec.id}`}>Audits of this layout</Link></p>
       <div className="flex flex-wrap items-start justify-between gap-4">
@@ -30,5 +33,6 @@ export default async function LayoutPage({ params }: { params: Promise<{ studioI
       </div>
       <LayoutEditor key={`${rec.id}:${rec.name}`} studioId={studio.id} layout={rec.layout} kits={kits} canWrite={write} />
     </div>
+    </>
   );
 }

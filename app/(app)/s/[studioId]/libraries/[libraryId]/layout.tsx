@@ -7,6 +7,8 @@ import { can } from "@/lib/permissions";
 import { AppError } from "@/lib/server/errors";
 import { LibrarySettings } from "@/components/library/library-forms";
 import { LibraryTabs } from "@/components/library/library-tabs";
+import { ReadOnlyValue, ViewOnlyNote } from "@/components/view-only";
+import { VELOCITY_CURVE_WORDS } from "@/components/library/curve-words";
 
 export default async function LibraryLayout({ children, params }: { children: React.ReactNode; params: Promise<{ studioId: string; libraryId: string }> }) {
   const { studioId, libraryId } = await params;
@@ -38,6 +40,12 @@ export default async function LibraryLayout({ children, params }: { children: Re
               <LibrarySettings studioId={studio.id} libraryId={lib.id} name={lib.name} description={lib.description} velocityCurve={lib.velocityCurve} canDelete={can(studio.role, "studio:manage")} />
             </div>
           </details>
+        )}
+        {!can(studio.role, "studio:write") && (
+          <div className="card w-full max-w-md space-y-2 p-3 text-sm sm:w-auto" data-testid="library-settings-view">
+            <dl><ReadOnlyValue label="Velocity curve">{VELOCITY_CURVE_WORDS[lib.velocityCurve]}</ReadOnlyValue></dl>
+            <ViewOnlyNote what="the library's settings" />
+          </div>
         )}
       </div>
       <LibraryTabs tabs={tabs} />

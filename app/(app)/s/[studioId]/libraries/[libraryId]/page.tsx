@@ -7,6 +7,7 @@ import { can } from "@/lib/permissions";
 import { LibraryProgress } from "@/components/library/progress";
 import { Uploader } from "@/components/library/uploader";
 import { SamplesBrowser } from "@/components/library/samples-browser";
+import { NextStepSlot } from "@/app/(app)/s/[studioId]/next-step-slot";
 
 export const metadata: Metadata = { title: "Library" };
 
@@ -17,6 +18,8 @@ export default async function LibraryPage({ params }: { params: Promise<{ studio
   const [instruments, progress] = await Promise.all([listInstruments({ studioId: studio.id, libraryId }), libraryProgress({ studioId: studio.id, libraryId })]);
   const write = can(studio.role, "studio:write");
   return (
+    <>
+    <NextStepSlot studio={studio} />
     <div className="space-y-4">
       <div className={write ? "grid items-start gap-4 lg:grid-cols-[1fr_1fr]" : ""}>
         <LibraryProgress studioId={studio.id} libraryId={lib.id} initial={progress} />
@@ -26,5 +29,6 @@ export default async function LibraryPage({ params }: { params: Promise<{ studio
         <SamplesBrowser studioId={studio.id} libraryId={lib.id} canWrite={write} instruments={instruments.map((i) => ({ key: i.key, name: i.name, family: i.family }))} />
       </Suspense>
     </div>
+    </>
   );
 }
