@@ -30,6 +30,8 @@ export interface RouteMeta {
   access: Access;
   /** A "user" route that personal API tokens may call too (studio routes always may, on their own studio). */
   tokens?: boolean;
+  /** The zod schemas the wrapper parses with: the OpenAPI test checks the document names these very ones. */
+  schemas: { params?: z.ZodType; query?: z.ZodType; body?: z.ZodType };
 }
 
 type AnySchema = z.ZodType;
@@ -234,5 +236,6 @@ export function route<A extends Access, PS extends AnySchema | undefined = undef
     }
     return answer;
   };
-  return Object.assign(wrapped, { meta: { access: spec.access, ...(spec.tokens ? { tokens: true } : {}) } });
+  const meta: RouteMeta = { access: spec.access, ...(spec.tokens ? { tokens: true } : {}), schemas: { params: spec.params, query: spec.query, body: spec.body } };
+  return Object.assign(wrapped, { meta });
 }
