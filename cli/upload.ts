@@ -302,7 +302,9 @@ export async function run(args: string[]): Promise<number> {
     out.push(`  sent     ${tally.sent.length}`);
     const earlier = tally.skipped.filter((s) => s.why === "sent by an earlier run").length;
     const repeated = tally.skipped.filter((s) => s.why.startsWith("same content")).length;
-    out.push(`  skipped  ${tally.skipped.length}${tally.skipped.length ? ` (already in the library${earlier ? `, ${earlier} of them sent by an earlier run` : ""}${repeated ? `; ${repeated} repeated in the folder` : ""})` : ""}`);
+    const inLibrary = tally.skipped.length - repeated;
+    const why = [inLibrary ? `${inLibrary} already in the library${earlier ? `, ${earlier} of them sent by an earlier run` : ""}` : "", repeated ? `${repeated} repeated in the folder` : ""].filter(Boolean);
+    out.push(`  skipped  ${tally.skipped.length}${why.length ? ` (${why.join("; ")})` : ""}`);
     out.push(`  refused  ${tally.refused.length}`);
     for (const r of tally.refused) out.push(`    ${r.relPath}: ${r.reason}`);
     if (tally.failed.length) {
