@@ -89,12 +89,12 @@ function parseWith<S extends AnySchema | undefined>(schema: S, value: unknown, w
 }
 
 /**
- * The secret of `Authorization: Bearer <secret>` (RFC 6750 section 2.1), null without that header; an
- * Authorization header of another scheme is refused rather than ignored.
+ * The secret of `Authorization: Bearer <secret>` (RFC 6750 section 2.1), null without one. Another scheme is
+ * left alone (a proxy's Basic login in front of the app, say): the session cookie decides then.
  */
 export function bearerSecret(req: NextRequest): string | null {
   const h = req.headers.get("authorization");
-  if (h === null) return null;
+  if (h === null || !/^Bearer(\s|$)/i.test(h)) return null;
   const m = /^Bearer[ ]+(\S+)[ ]*$/i.exec(h);
   if (!m) throw new AppError("unauthenticated", "Send a personal API token as \"Authorization: Bearer <token>\".");
   return m[1]!;
