@@ -1,7 +1,7 @@
 // Roles as data: the table of DESIGN.md "Roles" (our own rule, no published source) and the words derived
 // from it. Every expected sentence below is written out by hand from that table.
 import { describe, expect, it } from "vitest";
-import { can, isRole, KEPT_PERMISSION, listInWords, PERMISSIONS, ROLES, ROLE_PERMISSIONS, roleWithArticle, rolesByReach, rolesInWords, rolesWith, whoCan, CREATOR_ROLE } from "./permissions";
+import { can, cappedRole, isRole, roleWithin, KEPT_PERMISSION, listInWords, PERMISSIONS, ROLES, ROLE_PERMISSIONS, roleWithArticle, rolesByReach, rolesInWords, rolesWith, whoCan, CREATOR_ROLE } from "./permissions";
 
 describe("roles as data", () => {
   it("holds DESIGN.md's table: viewers read, editors also write, owners also manage (deny by default)", () => {
@@ -33,5 +33,18 @@ describe("roles as data", () => {
     expect(ROLES.map(roleWithArticle)).toEqual(["an owner", "an editor", "a viewer"]);
     expect(listInWords([])).toBe("");
     expect(listInWords(["a", "b"], "or")).toBe("a or b");
+  });
+
+  it("caps a token's role by its creator's: never more than either (DESIGN.md's table, written out by hand)", () => {
+    expect(roleWithin("viewer", "editor")).toBe(true);
+    expect(roleWithin("editor", "viewer")).toBe(false);
+    expect(roleWithin("owner", "owner")).toBe(true);
+    expect(cappedRole("owner", "editor")).toBe("editor");
+    expect(cappedRole("editor", "owner")).toBe("editor");
+    expect(cappedRole("editor", "viewer")).toBe("viewer");
+    expect(cappedRole("viewer", "owner")).toBe("viewer");
+    expect(cappedRole("owner", "owner")).toBe("owner");
+    expect(cappedRole("editor", null)).toBe(null);
+    expect(cappedRole(undefined, "owner")).toBe(null);
   });
 });

@@ -101,3 +101,18 @@ export function rolesInWords(): string {
   });
   return `${parts.join("; ")}.`;
 }
+
+/** True when every permission of `a` is also one of `b`'s (a role "at most" another). */
+export function roleWithin(a: Role, b: Role): boolean {
+  return ROLE_PERMISSIONS[a].every((p) => can(b, p));
+}
+
+/**
+ * The most reaching role that holds nothing beyond either of two roles (a personal API token's role capped by its
+ * creator's current one); null when no role fits within both, or when either is missing.
+ */
+export function cappedRole(a: Role | null | undefined, b: Role | null | undefined): Role | null {
+  if (!a || !b) return null;
+  const fits = rolesByReach().filter((r) => roleWithin(r, a) && roleWithin(r, b));
+  return fits.length ? fits[fits.length - 1]! : null;
+}

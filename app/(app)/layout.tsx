@@ -19,7 +19,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
             {mailFake && <Link href="/mail" title="Mail caught by the local SMTP fake">Caught mail</Link>}
             {user ? (
               <>
-                <span className="text-muted" data-testid="signed-in-as">{user.name}</span>
+                <Link href="/account" className="text-muted" data-testid="signed-in-as" title="Your account and API tokens">{user.name}</Link>
                 <SignOutButton />
               </>
             ) : (

@@ -18,6 +18,9 @@ export const paths = {
   verification: () => "/api/auth/verification",
   passwordReset: () => "/api/auth/password-reset",
   passwordResetConfirm: () => "/api/auth/password-reset/confirm",
+  // personal API tokens (the account page)
+  apiTokens: () => "/api/me/tokens",
+  apiToken: (tokenId: string) => `/api/me/tokens/${tokenId}`,
   // studios, members, invitations, activity
   studios: () => "/api/studios",
   studio: (studioId: string) => studio(studioId),

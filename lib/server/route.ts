@@ -3,12 +3,18 @@ import "server-only";
 // params, query and body -> handler -> errors mapped to { error: { code, message } }.
 // Each wrapped handler carries `meta` (access kind and permission) so the role-matrix test can find routes
 // without a rule.
+// A request may instead carry a personal API token (`Authorization: Bearer kwt_...`, lib/server/auth/api-tokens.ts):
+// it acts for the token's creator, on its own studio's routes only, with the token's role capped by the creator's
+// current role; a route of the "user" kind accepts one only when it says `tokens: true`. A token request without
+// any cookie skips the same-origin check (no browser sends it, so no other site can make a browser send it), and
+// nothing else. Every use is recorded (last use, and a row in the studio's activity log).
 import { NextResponse, type NextRequest } from "next/server";
 import { getToken } from "next-auth/jwt";
 import { z } from "zod";
 import { env } from "./env";
 import { AppError, forbidden, notFound, toErrorBody } from "./errors";
 import { liveSessionUser } from "./auth/sessions";
+import { recordTokenUse, tokenCaller, type TokenCaller } from "./auth/api-tokens";
 import { requestHost } from "./client-address";
 import { mediaType } from "./media-type";
 import { can, isRole, type Permission, type Role } from "@/lib/permissions";
@@ -20,7 +26,13 @@ export type Access =
   | { kind: "user" }
   | { kind: "studio"; permission: Permission };
 
-export interface RouteMeta { access: Access }
+export interface RouteMeta {
+  access: Access;
+  /** A "user" route that personal API tokens may call too (studio routes always may, on their own studio). */
+  tokens?: boolean;
+  /** The zod schemas the wrapper parses with: the OpenAPI test checks the document names these very ones. */
+  schemas: { params?: z.ZodType; query?: z.ZodType; body?: z.ZodType };
+}
 
 type AnySchema = z.ZodType;
 type Out<S> = S extends AnySchema ? z.infer<S> : undefined;
@@ -32,10 +44,13 @@ export interface Ctx<P, Q, B> {
   body: B;
   user: { id: string; email: string; name: string } | null;
   studio: { id: string; role: Role } | null;
+  /** The personal API token the request carries, if it authenticated with one, with its role now (capped). */
+  token: (TokenCaller["token"] & { role: Role | null }) | null;
 }
 
 interface Spec<A extends Access, PS, QS, BS> {
   access: A;
+  tokens?: boolean;
   params?: PS;
   query?: QS;
   body?: BS;
@@ -71,6 +86,18 @@ function parseWith<S extends AnySchema | undefined>(schema: S, value: unknown, w
   const r = schema.safeParse(value);
   if (!r.success) throw zodMessage(r.error, where);
   return r.data as Out<S>;
+}
+
+/**
+ * The secret of `Authorization: Bearer <secret>` (RFC 6750 section 2.1), null without one. Another scheme is
+ * left alone (a proxy's Basic login in front of the app, say): the session cookie decides then.
+ */
+export function bearerSecret(req: NextRequest): string | null {
+  const h = req.headers.get("authorization");
+  if (h === null || !/^Bearer(\s|$)/i.test(h)) return null;
+  const m = /^Bearer[ ]+(\S+)[ ]*$/i.exec(h);
+  if (!m) throw new AppError("unauthenticated", "Send a personal API token as \"Authorization: Bearer <token>\".");
+  return m[1]!;
 }
 
 /** State-changing requests must come from our own origin (the Origin header, else Sec-Fetch-Site). */
@@ -156,14 +183,24 @@ export function route<A extends Access, PS extends AnySchema | undefined = undef
   handler: Handler<A, Out<PS>, Out<QS>, Out<BS>>,
 ): WrappedHandler {
   const wrapped = async (req: NextRequest, ctx: { params: Promise<Record<string, string | string[]>> }) => {
+    let caller: TokenCaller | null = null;
+    let answer: Response;
     try {
-      checkSameOrigin(req);
+      const bearer = spec.access.kind === "public" ? null : bearerSecret(req);
+      // a cookie-less token request is no browser's: it cannot be a forged cross-site request
+      if (!(bearer && !req.headers.has("cookie"))) checkSameOrigin(req);
       const rawParams = normaliseParams((await ctx?.params) ?? {});
       let user: Ctx<unknown, unknown, unknown>["user"] = null;
       let studio: Ctx<unknown, unknown, unknown>["studio"] = null;
       const studioId = spec.access.kind === "studio" && typeof rawParams.studioId === "string" && UUID_SHAPE.test(rawParams.studioId) ? rawParams.studioId : null;
       let role: string | null = null;
-      if (spec.access.kind !== "public") {
+      if (bearer) {
+        caller = await tokenCaller(bearer);
+        if (spec.access.kind === "user" && !spec.tokens) throw new AppError("forbidden", "A personal API token works only on its own studio's addresses; sign in to use this one.");
+        user = caller.user;
+        // a token acts only in its own studio: any other is one its holder is not a member of
+        role = studioId === caller.token.studioId ? caller.role : null;
+      } else if (spec.access.kind !== "public") {
         const who = await sessionUserWithRole(req, studioId);
         if (!who) throw new AppError("unauthenticated", "Sign in first.");
         user = who.user;
@@ -179,20 +216,26 @@ export function route<A extends Access, PS extends AnySchema | undefined = undef
       const params = parseWith(spec.params, rawParams, "params");
       const query = parseWith(spec.query, Object.fromEntries(req.nextUrl.searchParams), "query");
       const body = spec.body ? parseWith(spec.body, await readJson(req), "body") : (undefined as Out<BS>);
-      const out = await (handler as (c: Ctx<unknown, unknown, unknown>) => Promise<Response | object | null>)({ req, params, query, body, user, studio });
+      const out = await (handler as (c: Ctx<unknown, unknown, unknown>) => Promise<Response | object | null>)({ req, params, query, body, user, studio, token: caller ? { ...caller.token, role: caller.role } : null });
       // a signed-in person's answers are theirs alone: no shared cache keeps them, no cache at all by default
       const signedIn = spec.access.kind !== "public";
       if (out instanceof Response) {
         if (signedIn && !out.headers.has("cache-control")) out.headers.set("cache-control", "private, no-store");
-        return out;
+        answer = out;
+      } else {
+        const headers = signedIn ? { "cache-control": "private, no-store" } : undefined;
+        answer = out === null ? new NextResponse(null, { status: 204, headers }) : NextResponse.json(out, { status: req.method === "POST" ? 201 : 200, headers });
       }
-      const headers = signedIn ? { "cache-control": "private, no-store" } : undefined;
-      if (out === null) return new NextResponse(null, { status: 204, headers });
-      return NextResponse.json(out, { status: req.method === "POST" ? 201 : 200, headers });
     } catch (e) {
       const { status, body } = toErrorBody(e);
-      return NextResponse.json(body, { status, headers: { "cache-control": "no-store" } });
+      answer = NextResponse.json(body, { status, headers: { "cache-control": "no-store" } });
     }
+    if (caller) {
+      // the answer stands whatever happens here: a failed record is logged, never turned into an error
+      await recordTokenUse(caller, { method: req.method, path: req.nextUrl.pathname, status: answer.status }).catch((e) => console.error("[route] recording a token's use failed:", e));
+    }
+    return answer;
   };
-  return Object.assign(wrapped, { meta: { access: spec.access } });
+  const meta: RouteMeta = { access: spec.access, ...(spec.tokens ? { tokens: true } : {}), schemas: { params: spec.params, query: spec.query, body: spec.body } };
+  return Object.assign(wrapped, { meta });
 }

@@ -1,4 +1,5 @@
-// The role matrix: every API route x {anonymous, viewer, editor, owner, member of another studio}.
+// The role matrix: every API route x {anonymous, viewer, editor, owner, member of another studio}, and the same
+// again with a personal API token of each role (no cookie) and a token of another studio.
 // Routes are found on disk (app/api/**/route.ts) and each exported handler must carry the access rule
 // that route() attaches; a route without one fails this suite. Expected statuses come from the rule and
 // the permissions table (lib/permissions.ts), not from a hand-written list.
@@ -9,6 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/lib/server/db";
 import { can, ROLES, type Role } from "@/lib/permissions";
 import type { RouteMeta } from "@/lib/server/route";
+import { createApiToken } from "@/lib/server/auth/api-tokens";
 import { call, makeStudioWithRoles, type TestUser } from "../helpers";
 
 const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
@@ -27,6 +29,8 @@ interface Entry { file: string; url: string; method: (typeof METHODS)[number]; h
 const files = routeFiles(API);
 let entries: Entry[] = [];
 let world: Awaited<ReturnType<typeof makeStudioWithRoles>>;
+/** A token of each role in the studio (made by the member of that role), and the outsider's in their own studio. */
+let tokens: Record<Role | "outsider", string>;
 
 beforeAll(async () => {
   for (const file of files) {
@@ -38,6 +42,9 @@ beforeAll(async () => {
     }
   }
   world = await makeStudioWithRoles();
+  const made = await Promise.all(ROLES.map((r) => createApiToken({ userId: world.users[r].id, input: { name: `matrix ${r}`, studioId: world.studio.id, role: r, expiresInDays: 1 } })));
+  const outsider = await createApiToken({ userId: world.users.outsider.id, input: { name: "matrix outsider", studioId: world.otherStudio.id, role: "owner", expiresInDays: 1 } });
+  tokens = { ...Object.fromEntries(ROLES.map((r, i) => [r, made[i]!.secret])), outsider: outsider.secret } as Record<Role | "outsider", string>;
 }, 120_000);
 afterAll(() => closeDb());
 
@@ -99,6 +106,43 @@ describe("role matrix", () => {
           want = "allowed (not 401/403/5xx)";
         }
         if (!ok) failures.push(`${e.method} ${e.url} as ${c.who}: got ${s}, want ${want} (${JSON.stringify(r.json).slice(0, 160)})`);
+      }
+    }
+    expect(failures).toEqual([]);
+  }, 300_000);
+
+  it("every handler answers a personal API token (no cookie) as its rule says for the token's role", async () => {
+    const failures: string[] = [];
+    const callers: { who: string; secret: string; role: Role | null; outsider?: boolean }[] = [
+      ...ROLES.map((r) => ({ who: `${r}'s token`, secret: tokens[r], role: r })),
+      { who: "another studio's token", secret: tokens.outsider, role: null, outsider: true },
+    ];
+    for (const e of entries) {
+      const meta = e.handler.meta!;
+      // public routes ignore a token; next-auth's own endpoints are not ours
+      if (meta.external || meta.access.kind === "public") continue;
+      const access = meta.access;
+      for (const c of callers) {
+        const body = e.method === "GET" || e.method === "DELETE" ? undefined : {};
+        const r = await call(e.handler as never, { method: e.method, path: e.url, params: paramsFor(e, world.studio.id), body, user: null, headers: { authorization: `Bearer ${c.secret}` } });
+        const s = r.status;
+        let ok: boolean;
+        let want: string;
+        if (access.kind === "user") {
+          // the account's own routes are for sessions; only a route that says so takes a token
+          ok = meta.tokens ? ![401, 403].includes(s) && s < 500 : s === 403;
+          want = meta.tokens ? "allowed (not 401/403/5xx)" : "403";
+        } else if (c.outsider) {
+          ok = s === 404;
+          want = "404";
+        } else if (!can(c.role, access.permission)) {
+          ok = s === 403;
+          want = "403";
+        } else {
+          ok = ![401, 403].includes(s) && s < 500;
+          want = "allowed (not 401/403/5xx)";
+        }
+        if (!ok) failures.push(`${e.method} ${e.url} with ${c.who}: got ${s}, want ${want} (${JSON.stringify(r.json).slice(0, 160)})`);
       }
     }
     expect(failures).toEqual([]);

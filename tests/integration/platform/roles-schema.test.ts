@@ -11,13 +11,14 @@ import { makeStudioWithRoles, makeUser } from "../helpers";
 afterAll(() => closeDb());
 
 describe("role columns", () => {
-  it("memberships.role and invitations.role are ENUMs of ROLES, in ROLES' order", async () => {
+  it("memberships.role, invitations.role and api_tokens.role are ENUMs of ROLES, in ROLES' order", async () => {
     const [rows] = await db().raw(
       "SELECT TABLE_NAME AS t, COLUMN_TYPE AS type, IS_NULLABLE AS nullable FROM information_schema.COLUMNS WHERE TABLE_SCHEMA = DATABASE() AND COLUMN_NAME = 'role' ORDER BY TABLE_NAME",
     );
     const want = `enum(${ROLES.map((r) => `'${r}'`).join(",")})`;
     expect(want).toBe("enum('owner','editor','viewer')");
     expect(rows).toEqual([
+      { t: "api_tokens", type: want, nullable: "NO" },
       { t: "invitations", type: want, nullable: "NO" },
       { t: "memberships", type: want, nullable: "NO" },
     ]);

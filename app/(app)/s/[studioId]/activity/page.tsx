@@ -37,6 +37,9 @@ function describe(action: string, d: Record<string, unknown> | null): string {
     case "samples.confirmed": return `confirmed the labels of ${s("count")} samples`;
     case "instrument.renamed": return `renamed the instrument "${s("from")}" to "${s("to")}"`;
     case "instruments.merged": return `merged ${((d?.from as string[]) ?? []).join(", ")} into "${s("into")}" (${s("samples")} samples)`;
+    case "token.created": return `made the API token "${s("name")}" (${s("role")})`;
+    case "token.revoked": return `revoked the API token "${s("name")}"`;
+    case "token.used": return `used the API token "${s("name")}": ${s("method")} ${s("path")} answered ${s("status")}`;
     default: return `${action}${d ? ` ${JSON.stringify(d)}` : ""}`;
   }
 }
