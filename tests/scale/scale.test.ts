@@ -209,6 +209,9 @@ describe(`two apps and two workers, one killed each mid-way (${TOTAL} files)`, (
     expect(figures.workerKilledBeforeAllCatalogued).toBe("yes");
     figures.requestsSentAgain = sent.reduce((n, s) => n + s.attempts - 1, 0);
     expect(figures.requestsSentAgain).toBeGreaterThan(0);
+    // the killed worker's jobs came back to the queue (BullMQ's stalled-job check, workers/main.ts) and were measured
+    figures.measureJobsStalled = cluster.workers.reduce((n, w) => n + (w.log.join("").match(/measure job \S+ stalled/g) ?? []).length, 0);
+    expect(figures.measureJobsStalled).toBeGreaterThan(0);
   });
 
   it("every file got its answer: good files queued (or, sent again after a kill, a duplicate of their own first copy), copies duplicates of their original, broken files refused with their code and a reason", async () => {
