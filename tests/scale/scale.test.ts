@@ -270,7 +270,7 @@ describe(`two apps and two workers, one killed each mid-way (${TOTAL} files)`, (
         expect({ code: x.reject_code, reason: x.reject_reason }).toEqual({ code: c.code, reason: c.reason });
       }
     }
-  }, 600_000);
+  }, 1_800_000);
 
   it("every row's file is in the bucket; after the sweep of files without a row, every file in the bucket has its row", async () => {
     const listed = async () => {
@@ -301,7 +301,7 @@ describe(`two apps and two workers, one killed each mid-way (${TOTAL} files)`, (
       expect(Math.max(...app.samples.map((s) => Number(s.layerCount ?? 0)))).toBeGreaterThanOrEqual(2);
       expect(Math.max(...app.samples.map((s) => Number(s.roundRobin ?? 0)))).toBeGreaterThanOrEqual(2);
     }
-  }, 600_000);
+  }, 1_800_000);
 
   it("every studio's audit of the five-piece trigger layout equals `kitwright audit` over the same files", async () => {
     for (const lib of libs) {
@@ -322,7 +322,7 @@ describe(`two apps and two workers, one killed each mid-way (${TOTAL} files)`, (
       const slots = k.json.kit.kit.slots as { id: string; instrumentId: string | null }[];
       expect(slots.filter((s) => s.instrumentId).length).toBeGreaterThanOrEqual(5);
     }
-  }, 600_000);
+  }, 1_800_000);
 });
 
 /** `kitwright catalogue --json` over a library's reference folder (run once per library). */
