@@ -1,7 +1,7 @@
 // The files of the scale test: for each library, a generated drum kit (our own synthesizer, lib/synth) of named
 // instruments in velocity layers and round robins, plus deliberate copies (the same bytes under another name)
-// and broken files (tests/integration/catalogue/fixtures.ts: an RF64 header, a text file, an empty file, and a
-// RIFF/WAVE header that says 0 channels, which passes the upload's check and is refused by the decoder). The
+// and broken files (damaged by tests/hostile/mutate.ts: an RF64 header, bytes that are not a WAV, and a RIFF/WAVE
+// header that says 0 channels, which passes the upload's check and is refused by the decoder; and an empty file). The
 // files are cut into batches the way an uploader would send them; a copy always travels in its original's batch,
 // after it, so which of two equal files the library keeps (the first, see the upload's recorder) does not hang
 // on which of two concurrent requests is recorded first.
