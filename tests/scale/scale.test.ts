@@ -16,6 +16,9 @@
 // by the worker's maintenance (requeueStranded, every 10 minutes for samples queued 5 minutes); the test calls it
 // at once instead of waiting, and reports how many there were.
 // Size: KW_SCALE_FILES (200 in CI; `bash scripts/scale.sh` runs 2,000 and prints the figures). Never timed.
+// Larger runs on a busy machine can meet a known bug: a request slower than the client's 120 s limit is sent again,
+// and the first one, breaking off, takes back rows the second answered "duplicate" for (tests/integration/catalogue/
+// upload-race.test.ts, docs/deploy.md); the library then misses those files and the wait for it to settle fails.
 import crypto from "node:crypto";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
