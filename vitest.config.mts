@@ -24,6 +24,18 @@ export default defineConfig({
         },
       },
       {
+        // several app and worker processes on loopback (tests/scale): needs a production build, run after it
+        resolve: { alias },
+        test: {
+          name: "scale",
+          include: ["tests/scale/**/*.test.ts"],
+          environment: "node",
+          testTimeout: 600_000,
+          hookTimeout: 3_600_000,
+          fileParallelism: false,
+        },
+      },
+      {
         resolve: { alias },
         test: {
           name: "e2e",

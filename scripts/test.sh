@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # Runs every Kitwright test on this machine, as on a new one: installs what is missing, starts its own
 # MariaDB, Redis and SMTP fake under .data/test (other ports than the demo), creates a fresh test database,
-# then: type check, unit tests, integration tests, a production build and the browser tests.
+# then: type check, unit tests, integration tests, a production build, the scale test (tests/scale: two app and two
+# worker processes on that build) and the browser tests.
 source "$(dirname "$0")/lib.sh"
 source "$(dirname "$0")/env.sh"
 export KW_NEED_BROWSER=1 KW_NEED_SOX=1
@@ -22,6 +23,7 @@ step "type check"; npx tsc --noEmit -p .
 step "unit tests"; npx vitest run --project unit
 step "integration tests"; npx vitest run --project integration
 step "build"; npx next build >"$KW_RUN/build.log" 2>&1 || { tail -40 "$KW_RUN/build.log"; exit 1; }
+step "scale test (two apps, two workers, the S3 fake; KW_SCALE_FILES=${KW_SCALE_FILES:-200})"; npx vitest run --project scale
 step "start app and worker"
 nohup bash scripts/serve-app.sh -p "$KW_APP_PORT" -H 127.0.0.1 >"$KW_RUN/app.log" 2>&1 & echo $! >"$KW_RUN/app.pid"
 nohup node --conditions=react-server --import tsx workers/main.ts >"$KW_RUN/worker.log" 2>&1 & echo $! >"$KW_RUN/worker.pid"

@@ -41,8 +41,11 @@ async function main() {
     }
   });
 
+  // a job whose worker died (its lock ran out) is back in the queue: said once per job, for the operator
+  measure.on("stalled", (jobId) => console.warn(`[worker] measure job ${jobId} stalled (its worker stopped); queued again`));
   const regroup = new Worker<RegroupJobData>(REGROUP_QUEUE, (job: Job<RegroupJobData>) => runRegroupJob(job.data), { connection, concurrency: 1, ...lockOpts, lockDuration: 60_000 });
   regroup.on("failed", (job, err) => console.error(`[worker] regroup ${job?.data.libraryId} failed: ${err.message}`));
+  regroup.on("stalled", (jobId) => console.warn(`[worker] regroup job ${jobId} stalled (its worker stopped); queued again`));
 
   const maintenance = await startMaintenance(connection);
   console.log(`[worker] ready on ${env().KW_REDIS_URL}: measuring ${cores} at a time on ${pool.size} thread(s)`);

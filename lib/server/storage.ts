@@ -18,6 +18,9 @@ const WRITE_BUFFER = 1024 * 1024;
 /** Byte range, both ends inclusive (as in HTTP Range). */
 export interface ByteRange { start: number; end: number }
 
+/** A stored object as listed: its key and when it was last written (ms since the epoch). */
+export interface StoredObject { key: string; modifiedMs: number }
+
 export interface Storage {
   kind: string;
   check(): Promise<void>;
@@ -33,6 +36,8 @@ export interface Storage {
   delete(key: string): Promise<void>;
   /** Deletes every object whose key starts with prefix (a "folder" ending in "/"). */
   deletePrefix(prefix: string): Promise<number>;
+  /** Every whole object whose key starts with prefix (a "folder" ending in "/"), in pages; writes in progress are not listed. */
+  list(prefix: string): AsyncGenerator<StoredObject[]>;
 }
 
 function safeKey(key: string): string {
@@ -106,6 +111,20 @@ export class LocalStorage implements Storage {
     await fsp.rm(dir, { recursive: true, force: true });
     return n;
   }
+  async *list(prefix: string): AsyncGenerator<StoredObject[]> {
+    let page: StoredObject[] = [];
+    for await (const f of walkFiles(this.file(prefix.replace(/\/+$/, "")))) {
+      if (PART_FILE.test(f)) continue;
+      const st = await fsp.stat(f).catch(() => null);
+      if (!st) continue;
+      page.push({ key: path.relative(this.root, f).split(path.sep).join("/"), modifiedMs: st.mtimeMs });
+      if (page.length === 1000) {
+        yield page;
+        page = [];
+      }
+    }
+    if (page.length) yield page;
+  }
 }
 
 export interface S3Options {
@@ -140,7 +159,7 @@ export class S3Storage implements Storage {
       return { bytes: body.byteLength };
     }
     // A plain PUT needs the length first: spool the stream to a temporary file (never to memory).
-    const tmp = path.join(os.tmpdir(), `kw-s3-${crypto.randomBytes(8).toString("hex")}`);
+    const tmp = path.join(os.tmpdir(), `kw-s3-${crypto.randomBytes(8).toString("hex")}`); // S3_SPOOL below
     try {
       await pipeline(body, fs.createWriteStream(tmp));
       const bytes = (await fsp.stat(tmp)).size;
@@ -188,12 +207,23 @@ export class S3Storage implements Storage {
     } while (token);
     return n;
   }
+  async *list(prefix: string): AsyncGenerator<StoredObject[]> {
+    let token: string | undefined;
+    do {
+      const page = await this.client.send(new ListObjectsV2Command({ Bucket: this.bucket, Prefix: prefix, ContinuationToken: token }));
+      const objects = (page.Contents ?? []).map((c) => ({ key: c.Key!, modifiedMs: c.LastModified ? c.LastModified.getTime() : 0 }));
+      if (objects.length) yield objects;
+      token = page.IsTruncated ? page.NextContinuationToken : undefined;
+    } while (token);
+  }
 }
 
 /** Partial files of local writes in progress (`put` above): `<key>.part-<12 hex>`. */
 const PART_FILE = /\.part-[0-9a-f]{12}$/;
 /** Where an uploaded .zip pack is spooled while it is read (lib/server/catalogue/upload/zip.ts). */
 const ZIP_SPOOL = /^kw-zip-[0-9a-f]{16}\.zip$/;
+/** Where S3Storage.put spools a stream before its PUT (left behind when the process is killed meanwhile). */
+const S3_SPOOL = /^kw-s3-[0-9a-f]{16}$/;
 export function zipSpoolPath(tmpDir = os.tmpdir()): string {
   return path.join(tmpDir, `kw-zip-${crypto.randomBytes(8).toString("hex")}.zip`);
 }
@@ -215,7 +245,7 @@ async function* walkFiles(dir: string): AsyncGenerator<string> {
 /**
  * Deletes upload leftovers older than `olderThanMs` (default an hour; a live upload writes to its file
  * continuously): partial files under the local storage root (`storageRoot`, by default the configured local
- * storage's, none with S3) and .zip spools in the temp folder. Returns how many. Run by the worker's
+ * storage's, none with S3) and .zip and S3 spools in the temp folder (this machine's). Returns how many. Run by the worker's
  * maintenance schedule (workers/maintenance.ts).
  */
 export async function sweepPartials({ storageRoot, tmpDir = os.tmpdir(), olderThanMs = 3600_000, now = Date.now() }: { storageRoot?: string | null; tmpDir?: string; olderThanMs?: number; now?: number } = {}): Promise<number> {
@@ -226,7 +256,7 @@ export async function sweepPartials({ storageRoot, tmpDir = os.tmpdir(), olderTh
     if (st && now - st.mtimeMs > olderThanMs && (await fsp.rm(file, { force: true }).then(() => true, () => false))) n++;
   };
   if (root) for await (const f of walkFiles(root)) if (PART_FILE.test(f)) await sweep(f);
-  for (const name of await fsp.readdir(tmpDir).catch(() => [] as string[])) if (ZIP_SPOOL.test(name)) await sweep(path.join(tmpDir, name));
+  for (const name of await fsp.readdir(tmpDir).catch(() => [] as string[])) if (ZIP_SPOOL.test(name) || S3_SPOOL.test(name)) await sweep(path.join(tmpDir, name));
   return n;
 }
 

@@ -13,13 +13,13 @@ import { kitwright } from "@/cli/run-kitwright";
 import { call, makeStudioWithRoles, uniq } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
 import { closeQueues } from "@/lib/server/jobs";
-import { auditToJson } from "@/lib/audit/export";
 import { kitToFile } from "@/lib/audit/schema";
 import type { AuditResult, Kit } from "@/lib/audit/types";
 import { renderSound, type SoundSpec } from "@/lib/synth/drums";
 import { layerVelocity } from "@/lib/synth/scenario";
 import { encodeWav } from "@/lib/synth/wav";
 import { multipart, startWorker, waitFor, waitForReady } from "./fixtures";
+import { auditDifferences, catalogueDifferences, differences, type CliCatalogue } from "./compare";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
 import * as progressRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/progress/route";
@@ -83,23 +83,6 @@ function folderSpec(): FileSpec[] {
   add("Misc/bell hard 01.wav", { family: "cowbell", instrument: { lowHz: 560, highHz: 845 }, articulation: "hit" }, 120, 0.8);
   return out;
 }
-
-// ------------------------------------------------------------------ comparing
-
-/** Every leaf where a and b differ, as "path: CLI x, app y". */
-function differences(a: unknown, b: unknown, at: string, out: string[]): void {
-  if (Object.is(a, b)) return;
-  if (a && b && typeof a === "object" && typeof b === "object") {
-    if (Array.isArray(a) !== Array.isArray(b)) return void out.push(`${at}: CLI ${JSON.stringify(a)}, app ${JSON.stringify(b)}`);
-    const keys = new Set([...Object.keys(a), ...Object.keys(b)]);
-    for (const k of keys) differences((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k], Array.isArray(a) ? `${at}[${k}]` : `${at}.${k}`, out);
-    return;
-  }
-  out.push(`${at}: CLI ${JSON.stringify(a)}, app ${JSON.stringify(b)}`);
-}
-
-/** The fields both paths must agree on, per file. */
-const SAMPLE_FIELDS = ["family", "articulation", "instrumentKey", "instrumentName", "mic", "layerIndex", "layerCount", "roundRobin", "velocityLow", "velocityHigh"] as const;
 
 // ------------------------------------------------------------------ the run
 
@@ -179,32 +162,11 @@ describe("the command line and the app give the same answers for the same files"
   it("kitwright catalogue and the library page sort every file into the same family, articulation, instrument, layer and round robin; the instruments agree, pitch included", async () => {
     const r = await kitwright("catalogue", dir, "--json");
     expect(r.code, r.stderr).toBe(0);
-    const cli = JSON.parse(r.stdout) as { samples: Record<string, unknown>[]; instruments: { key: string; family: string; displayName: string; sampleIds: string[]; pitchHz?: number | null }[]; refused: unknown[] };
+    const cli = JSON.parse(r.stdout) as CliCatalogue;
     expect(cli.refused).toEqual([]);
     const app = await appCatalogue();
     expect(cli.samples.map((s) => s.path)).toEqual(files.map((f) => f.path).sort((a, b) => a.localeCompare(b)));
-    const appByPath = new Map(app.samples.map((s) => [s.path as string, s]));
-    const diffs: string[] = [];
-    for (const c of cli.samples) {
-      const a = appByPath.get(c.path as string);
-      if (!a) {
-        diffs.push(`${c.path}: missing from the library page`);
-        continue;
-      }
-      for (const f of SAMPLE_FIELDS) if (!Object.is(c[f], a[f])) diffs.push(`${c.path}: ${f}: CLI ${JSON.stringify(c[f])}, app ${JSON.stringify(a[f])}`);
-    }
-    const appInst = new Map(app.instruments.map((i) => [i.key, i]));
-    const cliKeys = cli.instruments.map((i) => i.key).sort();
-    const appKeys = [...appInst.keys()].sort();
-    if (JSON.stringify(cliKeys) !== JSON.stringify(appKeys)) diffs.push(`instruments: CLI ${cliKeys.join(", ")}, app ${appKeys.join(", ")}`);
-    for (const c of cli.instruments) {
-      const a = appInst.get(c.key);
-      if (!a) continue;
-      if (c.family !== a.family) diffs.push(`instrument ${c.key}: family: CLI ${c.family}, app ${a.family}`);
-      if (c.displayName !== a.name) diffs.push(`instrument ${c.key}: name: CLI ${c.displayName}, app ${a.name}`);
-      if (c.sampleIds.length !== a.sampleCount) diffs.push(`instrument ${c.key}: samples: CLI ${c.sampleIds.length}, app ${a.sampleCount}`);
-      if (!Object.is(c.pitchHz, a.pitchHz)) diffs.push(`instrument ${c.key}: pitchHz: CLI ${JSON.stringify(c.pitchHz)}, app ${JSON.stringify(a.pitchHz)}`);
-    }
+    const diffs = catalogueDifferences(cli, app);
     expect(diffs).toEqual([]);
     // the comparison had something to compare: several toms with a measured pitch, a snare with layers and round robins
     const toms = app.instruments.filter((i) => i.family === "tom" && i.pitchHz !== null);
@@ -234,25 +196,7 @@ describe("the command line and the app give the same answers for the same files"
       keyOf = new Map(rows.map((x) => [x.id as string, x.key as string]));
     });
 
-    /** The app's audit with instrument ids as the catalogue's keys (the command line's ids). */
-    function comparable(r: AuditResult): Record<string, unknown> {
-      const { layoutId: _l, layoutName: _ln, kitId: _k, kitName: _kn, ...rest } = auditToJson(r) as unknown as AuditResult & { schema: string };
-      let text = JSON.stringify(rest);
-      for (const [id, key] of keyOf) text = text.split(id).join(key);
-      return JSON.parse(text);
-    }
-    function compareAudits(cliOut: string): string[] {
-      const cli = comparable(JSON.parse(cliOut));
-      const app = comparable(serverAudit);
-      const diffs: string[] = [];
-      const byPad = (x: Record<string, unknown>) => new Map((x.pads as { padId: string }[]).map((p) => [p.padId, p]));
-      const cp = byPad(cli);
-      const ap = byPad(app);
-      for (const [id, p] of ap) differences(cp.get(id), p, `pad ${id}`, diffs);
-      for (const id of cp.keys()) if (!ap.has(id)) diffs.push(`pad ${id}: only in the CLI's audit`);
-      for (const f of ["pedal", "conflicts", "summary", "score"]) differences(cli[f], app[f], f, diffs);
-      return diffs;
-    }
+    const compareAudits = (cliOut: string) => auditDifferences(cliOut, serverAudit, keyOf);
 
     it("with the kit each builds from its catalogue (toms by pitch): same kit, same findings", async () => {
       const r = await kitwright("audit", "--layout", "trigger-five", "--catalogue", dir, "--json");

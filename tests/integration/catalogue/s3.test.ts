@@ -1,5 +1,5 @@
 // The S3-compatible storage adapter (AWS SDK v3) against a local S3 fake started here on a free 43xx port:
-// put (bytes and streams), get, byte ranges, size, exists, delete, delete by prefix.
+// put (bytes and streams), get, byte ranges, size, exists, delete, delete by prefix, list.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import fs from "node:fs";
 import net from "node:net";
@@ -70,6 +70,18 @@ describe("S3 storage adapter", () => {
     expect(await store.deletePrefix("studios/a/libraries/c/")).toBe(1);
     expect(await store.exists("studios/a/libraries/c/y.wav")).toBe(false);
     expect(await store.exists("studios/a/libraries/d/z.wav")).toBe(true);
+  });
+
+  it("lists the objects under a prefix with the time each was written", async () => {
+    const before = Date.now() - 2000; // the store's clock keeps whole seconds
+    await store.put("studios/l/libraries/m/one.wav", new Uint8Array([1]));
+    await store.put("studios/l/libraries/m/two.wav", new Uint8Array([2, 2]));
+    await store.put("studios/l/libraries/n/three.wav", new Uint8Array([3]));
+    const listed: { key: string; modifiedMs: number }[] = [];
+    for await (const page of store.list("studios/l/libraries/m/")) listed.push(...page);
+    expect(listed.map((o) => o.key).sort()).toEqual(["studios/l/libraries/m/one.wav", "studios/l/libraries/m/two.wav"]);
+    for (const o of listed) expect(o.modifiedMs).toBeGreaterThanOrEqual(before);
+    for (const o of listed) expect(o.modifiedMs).toBeLessThanOrEqual(Date.now() + 2000);
   });
 
   it("a stream that fails leaves no object", async () => {

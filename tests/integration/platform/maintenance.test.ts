@@ -1,4 +1,5 @@
-// The worker's maintenance: old auth rows purged, upload leftovers swept after an hour, stranded queued
+// The worker's maintenance: old auth rows purged, upload leftovers and stored files without a sample swept after
+// an hour, stranded queued
 // samples queued again (deterministic job ids, so nothing is doubled); at start, samples measured by an older
 // MEASURE_VERSION queued to be measured again, and measured again in place.
 import fs from "node:fs";
@@ -9,7 +10,9 @@ import { afterAll, describe, expect, it } from "vitest";
 import { db, closeDb } from "@/lib/server/db";
 import { purgeAuthRows } from "@/lib/server/auth/maintenance";
 import { requeueOutdated, requeueStranded } from "@/lib/server/catalogue/maintenance";
-import { storage, sweepPartials } from "@/lib/server/storage";
+import { LocalStorage, storage, sweepPartials } from "@/lib/server/storage";
+import { sweepOrphanFiles } from "@/lib/server/catalogue/orphans";
+import { sampleKey } from "@/lib/server/catalogue/libraries";
 import { closeQueues, measureJobId, measureQueue } from "@/lib/server/jobs";
 import { MEASURE_VERSION } from "@/lib/audio/version";
 import { measureWav } from "@/lib/audio";
@@ -32,13 +35,49 @@ describe("maintenance", () => {
     const fresh = path.join(dir, "b.wav.part-ba9876543210");
     const kept = path.join(dir, "c.wav");
     const oldZip = path.join(tmp, "kw-zip-0123456789abcdef.zip");
-    for (const f of [old, fresh, kept, oldZip]) fs.writeFileSync(f, "x");
+    const oldS3Spool = path.join(tmp, "kw-s3-0123456789abcdef"); // S3Storage.put's spool, left by a killed app
+    const freshS3Spool = path.join(tmp, "kw-s3-fedcba9876543210");
+    for (const f of [old, fresh, kept, oldZip, oldS3Spool, freshS3Spool]) fs.writeFileSync(f, "x");
     const twoHoursAgo = new Date(Date.now() - 2 * 3600_000);
-    for (const f of [old, kept, oldZip]) fs.utimesSync(f, twoHoursAgo, twoHoursAgo);
-    expect(await sweepPartials({ storageRoot: root, tmpDir: tmp })).toBe(2);
-    expect([fs.existsSync(old), fs.existsSync(fresh), fs.existsSync(kept), fs.existsSync(oldZip)]).toEqual([false, true, true, false]);
+    for (const f of [old, kept, oldZip, oldS3Spool]) fs.utimesSync(f, twoHoursAgo, twoHoursAgo);
+    expect(await sweepPartials({ storageRoot: root, tmpDir: tmp })).toBe(3);
+    expect([fs.existsSync(old), fs.existsSync(fresh), fs.existsSync(kept), fs.existsSync(oldZip), fs.existsSync(oldS3Spool), fs.existsSync(freshS3Spool)]).toEqual([false, true, true, false, false, true]);
     fs.rmSync(root, { recursive: true, force: true });
     fs.rmSync(tmp, { recursive: true, force: true });
+  });
+
+  it("deletes stored sample files that no sample names once they are an hour old (an app killed between storing and recording), and nothing else", async () => {
+    const { studio, users } = await makeStudioWithRoles();
+    const libraryId = crypto.randomUUID();
+    await db()("libraries").insert({ id: libraryId, studio_id: studio.id, name: "Orphans" });
+    const key = (id: string, lib = libraryId) => sampleKey(studio.id, lib, id);
+    const recorded = crypto.randomUUID();
+    const orphan = crypto.randomUUID();
+    const freshOrphan = crypto.randomUUID(); // an upload in progress: stored, not yet recorded
+    const ofGoneLibrary = crypto.randomUUID();
+    const goneLibraryKey = key(ofGoneLibrary, crypto.randomUUID());
+    const notASample = `studios/${studio.id}/libraries/${libraryId}/notes.txt`;
+    for (const k of [key(recorded), key(orphan), key(freshOrphan), goneLibraryKey, notASample]) await storage().put(k, hitWav(9));
+    await db()("samples").insert({ id: recorded, studio_id: studio.id, library_id: libraryId, rel_path: "a.wav", file_name: "a.wav", sha256: crypto.randomBytes(32).toString("hex"), size_bytes: 1, storage_key: key(recorded), state: "catalogued", uploaded_by: users.owner.id });
+    const root = (storage() as LocalStorage).root;
+    const twoHoursAgo = new Date(Date.now() - 2 * 3600_000);
+    for (const k of [key(recorded), key(orphan), goneLibraryKey, notASample]) fs.utimesSync(path.join(root, k), twoHoursAgo, twoHoursAgo);
+    try {
+      expect(await sweepOrphanFiles()).toBeGreaterThanOrEqual(2);
+      expect(await storage().exists(key(recorded))).toBe(true);
+      expect(await storage().exists(key(orphan))).toBe(false);
+      expect(await storage().exists(goneLibraryKey)).toBe(false);
+      expect(await storage().exists(key(freshOrphan))).toBe(true);
+      expect(await storage().exists(notASample)).toBe(true);
+      // nothing left to sweep here; the fresh one goes once it is old
+      const later = Date.now() + 2 * 3600_000;
+      expect(await sweepOrphanFiles({ now: later })).toBeGreaterThanOrEqual(1);
+      expect(await storage().exists(key(freshOrphan))).toBe(false);
+      expect(await storage().exists(key(recorded))).toBe(true);
+    } finally {
+      await db()("samples").where({ id: recorded }).delete();
+      await storage().deletePrefix(`studios/${studio.id}/`);
+    }
   });
 
   it("queues stranded samples again, once, and leaves recent ones to their own job", async () => {
