@@ -1,9 +1,8 @@
-// A race the scale test (tests/scale) met with 1,000 files: an upload whose body breaks off is taken back whole
-// (upload/finish.ts refuseBrokenUpload deletes the rows it recorded), but a second upload of the same file,
-// received meanwhile (a client that gave up on the first request and sent the batch again), was answered
-// "duplicate" of the first one's row. The row is then deleted: the client was told the library holds the file,
-// and it does not. KNOWN BUG, not fixed yet: `it.fails` below passes while the bug is there; when it is fixed, it
-// turns red and `.fails` must go.
+// A race the scale test (tests/scale) met with 1,000 files: an upload whose body broke off used to be taken back
+// whole (its recorded rows deleted), while a second upload of the same file, received meanwhile (a client that
+// gave up on the first request and sent the batch again), had been answered "duplicate" of the first one's row:
+// the client was told the library holds the file, and it did not. A broken-off upload now keeps the files it
+// received whole (upload/finish.ts refuseBrokenUpload), so the promise holds.
 import { afterAll, beforeAll, expect, it } from "vitest";
 import { NextRequest } from "next/server";
 import { call, makeStudioWithRoles, sessionCookie, uniq } from "../helpers";
@@ -34,7 +33,7 @@ async function uploadStream(stream: ReadableStream<Uint8Array>, type: string) {
   return uploadRoute.POST(req, { params: Promise.resolve({ studioId: ctx.studio.id, libraryId }) });
 }
 
-it.fails("KNOWN BUG: a file answered 'duplicate' of a row that a broken-off upload then takes back is lost", async () => {
+it("a file answered 'duplicate' of a row recorded by an upload that then breaks off stays in the library", async () => {
   const first = { name: "race/first.wav", data: hitWav(70, { freq: 310 }) };
   const { body, type } = await multipart([first, { name: "race/second.wav", data: hitWav(71, { seconds: 1 }) }]);
   const cutAt = body.length - 30_000; // inside the second file
@@ -54,9 +53,11 @@ it.fails("KNOWN BUG: a file answered 'duplicate' of a row that a broken-off uplo
   const again = await multipart([first]);
   const b = await call(uploadRoute.POST, { method: "POST", params: { studioId: ctx.studio.id, libraryId }, rawBody: again.body, headers: { "content-type": again.type }, user: ctx.users.editor });
   expect(b.json.files[0]).toMatchObject({ status: "duplicate", reason: `same content as ${first.name}` });
-  // the first request breaks off and is taken back
+  // the first request breaks off: refused, the file it received whole kept
   breakOff(new Error("aborted"));
-  expect((await a).status).toBe(422);
+  const refused = await a;
+  expect(refused.status).toBe(422);
+  expect((await refused.json()).error.message).toMatch(/The 1 file received whole before the break was kept/);
   // what the second answer promised: the library holds the file
   expect(await row()).toBeTruthy();
 });

@@ -1,6 +1,5 @@
 import "server-only";
-// The end of an upload: a request that broke off is taken back whole (rows, path words and stored files) and
-// refused; otherwise the activity row is written and the answer shaped from every file's outcome (201 with the
+// The end of an upload: a request that broke off keeps the files received whole and is refused; otherwise the activity row is written and the answer shaped from every file's outcome (201 with the
 // files; 422, or 413 when a file was too large, when nothing was accepted).
 import { db } from "../../db";
 import { logActivity } from "../../activity";
@@ -13,26 +12,27 @@ import { mb, type UploadSummary } from "./outcome";
 
 /**
  * A body that could not be read to the end (a malformed part header, say a file name with control characters,
- * or a cut connection) may have lost files after the break without naming them. Rather than answer for only
- * part of the batch, this takes back what the request stored and refuses it whole. (Jobs already queued for
- * those files find no row and are skipped: measureSample, "deleted meanwhile".)
+ * or a cut connection): the files received whole before the break are kept (each was stored and recorded
+ * complete, and another request may already have answered "duplicate" of one of them: taking them back would
+ * lose a file the library was said to hold); the file cut by the break was never recorded. The answer refuses
+ * the request, names how many files were kept, and asks for the batch again (the kept ones then answer
+ * "duplicate").
  */
-export async function refuseBrokenUpload(ctx: UploadCtx, failed: Error): Promise<never> {
-  const { studioId, libraryId } = ctx;
-  if (ctx.recorder.queued.length) {
-    const ids = ctx.recorder.queued.map((q) => q.sampleId);
-    await db().transaction(async (trx) => {
-      await deleteWordsOfSamples(trx, libraryId, ids);
-      await trx("samples").where({ studio_id: studioId, library_id: libraryId }).whereIn("id", ids).delete();
-    });
-    await Promise.all(ids.map((id) => storage().delete(sampleKey(studioId, libraryId, id)).catch(() => undefined)));
+export async function refuseBrokenUpload(ctx: UploadCtx, failed: Error, libraryName: string): Promise<never> {
+  const { studioId, libraryId, userId } = ctx;
+  const kept = ctx.recorder.queued.length;
+  if (kept) {
+    await ctx.recorder.measuringQueued();
+    await logActivity(db(), { studioId, actorId: userId, action: "samples.uploaded", subjectType: "library", subjectId: libraryId, details: { library: libraryName, queued: kept, duplicate: 0, refused: 0, interrupted: true } });
   }
   const malformed = /malformed/i.test(failed.message);
+  const keptWords = kept ? `The ${kept} file${kept > 1 ? "s" : ""} received whole before the break ${kept > 1 ? "were" : "was"} kept; send the batch again for the rest (the kept ones will answer "duplicate").` : "Nothing was stored.";
   throw new AppError(
     "invalid-input",
     malformed
-      ? "The upload could not be read to the end: a part header is malformed (often a file name with control characters). Nothing was stored; rename the file and send the batch again."
-      : "The upload was interrupted or malformed; nothing was stored.",
+      ? `The upload could not be read to the end: a part header is malformed (often a file name with control characters; rename the file). ${keptWords}`
+      : `The upload was interrupted or malformed. ${keptWords}`,
+    { files: ctx.results.filter((r) => r.status === "queued"), kept },
   );
 }
 

@@ -38,6 +38,6 @@ export async function receiveUpload({ studioId, libraryId, userId, req }: { stud
 
   const ctx = createUploadCtx({ studioId, libraryId, userId, maxFile, maxBatch });
   const { failed } = await readParts(ctx, req.body, type, boundary);
-  if (failed) return refuseBrokenUpload(ctx, failed);
+  if (failed) return refuseBrokenUpload(ctx, failed, lib.name);
   return answerUpload(ctx, lib.name);
 }
