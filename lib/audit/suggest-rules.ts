@@ -70,7 +70,7 @@ export function padLabel(s: Stroke): string {
 }
 
 /** Why a stroke sits where it does, in a sentence (common practice, as the module comment says). */
-export function reasonFor(s: Stroke, rows: number): string {
+export function reasonFor(s: Stroke, rows: number, beside = true): string {
   const main = strokeWords(mainStrike(s.slot.family));
   let why: string;
   switch (s.role) {
@@ -78,7 +78,10 @@ export function reasonFor(s: Stroke, rows: number): string {
       why = "Snare in the middle of the lower rows: either hand reaches it.";
       break;
     case "kick":
-      why = "Kick central, beside the snare: one hand plays it while the other keeps time.";
+      why =
+        s.copy === 0
+          ? "Kick central, beside the snare: one hand plays it while the other keeps time."
+          : "A second kick pad (same note) on the snare's other side: fast doubles with both hands.";
       break;
     case "hat":
       why = `Hi-hat ${strokeWords(s.articulation)} on both sides of the snare (this is the ${s.copy === 0 ? "left" : "right"} one, same note): either hand keeps time without crossing.`;
@@ -95,11 +98,12 @@ export function reasonFor(s: Stroke, rows: number): string {
     case "percussion":
       why = "Percussion toward the outer columns, after the kit.";
       break;
-    default:
-      why =
-        s.slot.family === "hi-hat"
-          ? `Hi-hat ${strokeWords(s.articulation)} beside the right-hand closed hat: one step from the time-keeping pad.`
-          : `${s.slot.name} ${strokeWords(s.articulation)} next to its ${main}: a secondary stroke beside its main strike.`;
+    default: {
+      const home = s.slot.family === "hi-hat" ? "the right-hand closed hat" : `its ${main}`;
+      why = beside
+        ? `${s.slot.name} ${strokeWords(s.articulation)} next to ${home}: a secondary stroke beside its main strike.`
+        : `${s.slot.name} ${strokeWords(s.articulation)} as near ${home} as the free pads allowed.`;
+    }
   }
   return s.standInFor ? `${why} Not recorded: the ${strokeWords(s.standInFor)} plays instead (the nearest recorded stroke).` : why;
 }

@@ -121,6 +121,7 @@ interface Cell {
 }
 
 const dist = (a: Cell, b: Cell, rowWeight = 1) => Math.abs(a.row - b.row) * rowWeight + Math.abs(a.col - b.col);
+const chebyshev = (a: Cell, b: Cell) => Math.max(Math.abs(a.row - b.row), Math.abs(a.col - b.col));
 
 /** Solve one round: each stroke to one free cell, minimum total cost. Returns the cell index per stroke. */
 function assign(costs: number[][]): number[] {
@@ -188,17 +189,29 @@ function suggestForGrid(rows: number, cols: number, strokes: Stroke[], opts: Sug
   const used = new Set([...at.values()].map((c) => `${c.row}:${c.col}`));
   const free = cells.filter((c) => !used.has(`${c.row}:${c.col}`));
   const mainOf = (s: Stroke) => mains.find((m) => m.slot.id === s.slot.id && m.copy === 0);
-  const costs2 = seconds.map((s) => {
+  const anchors = seconds.map((s) => {
     const m = mainOf(s);
-    const home = m ? at.get(m)! : snare;
     // the open hat and the pedal sit beside the right-hand copy of the closed hat
     const hatRight = s.slot.family === "hi-hat" ? mains.find((x) => x.slot.id === s.slot.id && x.copy === 1) : undefined;
-    const anchor = hatRight ? at.get(hatRight)! : home;
-    return free.map((cell) => dist(cell, anchor, 1.5) * (10 - s.priority));
+    return hatRight ? at.get(hatRight)! : m ? at.get(m)! : snare;
   });
+  const costs2 = seconds.map((s, i) => free.map((cell) => dist(cell, anchors[i]!, 1.5) * (10 - s.priority)));
+  const far = new Set<Stroke>();
   assign(costs2).forEach((ci, i) => {
-    if (ci >= 0) at.set(seconds[i]!, free[ci]!);
+    if (ci < 0) return;
+    at.set(seconds[i]!, free[ci]!);
+    if (chebyshev(free[ci]!, anchors[i]!) > 1) far.add(seconds[i]!);
   });
+  // a second kick pad for the other hand, in the free cell nearest the snare's other side (same note)
+  const kick = mains.find((m) => m.role === "kick");
+  const left = cells.filter((c) => ![...at.values()].some((x) => x.row === c.row && x.col === c.col));
+  if (kick && left.length) {
+    const target = { row: rows, col: snare.col - 1 };
+    const cell = left.reduce((b, c) => (dist(c, target) < dist(b, target) ? c : b));
+    const copy: Stroke = { ...kick, copy: 1 };
+    fit.push(copy);
+    at.set(copy, cell);
+  }
 
   const notes = new Map<string, number>();
   const pads: Pad[] = [];
@@ -209,9 +222,9 @@ function suggestForGrid(rows: number, cols: number, strokes: Stroke[], opts: Sug
     const key = `${s.slot.id}|${s.articulation}`;
     if (!notes.has(key)) notes.set(key, noteFor(s, new Set(notes.values())));
     const id = `r${cell.row}c${cell.col}`;
-    const twin = s.role === "hat" ? (s.copy === 0 ? " (left)" : " (right)") : "";
+    const twin = s.role === "hat" ? (s.copy === 0 ? " (left)" : " (right)") : s.copy === 1 ? " (second)" : "";
     pads.push({ id, label: padLabel(s) + twin, row: cell.row, col: cell.col, note: notes.get(key)!, channel: opts.channel ?? 10, target: { slotId: s.slot.id, articulation: s.articulation } });
-    placements.push({ padId: id, slotId: s.slot.id, articulation: s.articulation, standIn: s.standInFor !== null, reason: reasonFor(s, rows) });
+    placements.push({ padId: id, slotId: s.slot.id, articulation: s.articulation, standIn: s.standInFor !== null, reason: reasonFor(s, rows, !far.has(s)) });
   }
   pads.sort((a, b) => a.row! - b.row! || a.col! - b.col!);
   return { pads, placements, leftOut };
