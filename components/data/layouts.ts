@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api } from "./api";
 import { paths } from "./paths";
-import type { CreateLayoutBody, LayoutAnswer, LayoutList, LayoutRecord, UpdateLayoutBody } from "@/lib/api-types/layouts";
+import type { CreateLayoutBody, LayoutAnswer, LayoutList, LayoutRecord, SuggestLayoutAnswer, SuggestLayoutBody, UpdateLayoutBody } from "@/lib/api-types/layouts";
 
 export const layoutKeys = {
   list: (studioId: string) => ["layouts", studioId] as const,
@@ -54,6 +54,11 @@ export function useCopyLayout(studioId: string, layoutId: string) {
 export function useImportLayout(studioId: string) {
   const changed = useLayoutChanged(studioId);
   return useMutation({ mutationFn: (file: unknown) => layoutOf(api<LayoutAnswer>(paths.layoutImport(studioId), { body: file })), onSuccess: changed });
+}
+
+/** A layout suggested for a kit and a surface (nothing saved: accept it with useImportLayout). */
+export function useSuggestLayout(studioId: string) {
+  return useMutation({ mutationFn: (body: SuggestLayoutBody) => api<SuggestLayoutAnswer>(paths.layoutSuggest(studioId), { body }) });
 }
 
 /** Deletes the layout and its saved audits. */

@@ -56,6 +56,7 @@ export const paths = {
   layoutCopy: (studioId: string, layoutId: string) => `${studio(studioId)}/layouts/${layoutId}/copy`,
   layoutExport: (studioId: string, layoutId: string) => `${studio(studioId)}/layouts/${layoutId}/export`,
   layoutImport: (studioId: string) => `${studio(studioId)}/layouts/import`,
+  layoutSuggest: (studioId: string) => `${studio(studioId)}/layouts/suggest`,
   // audits
   audits: (studioId: string, layoutId?: string) => `${studio(studioId)}/audits${query({ layoutId })}`,
   audit: (studioId: string, auditId: string) => `${studio(studioId)}/audits/${auditId}`,

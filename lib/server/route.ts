@@ -39,6 +39,8 @@ interface Spec<A extends Access, PS, QS, BS> {
   params?: PS;
   query?: QS;
   body?: BS;
+  /** A POST that computes and creates nothing (a preview) answers 200 instead of 201. */
+  creates?: false;
 }
 
 type Handler<A extends Access, P, Q, B> = (
@@ -188,7 +190,7 @@ export function route<A extends Access, PS extends AnySchema | undefined = undef
       }
       const headers = signedIn ? { "cache-control": "private, no-store" } : undefined;
       if (out === null) return new NextResponse(null, { status: 204, headers });
-      return NextResponse.json(out, { status: req.method === "POST" ? 201 : 200, headers });
+      return NextResponse.json(out, { status: req.method === "POST" && spec.creates !== false ? 201 : 200, headers });
     } catch (e) {
       const { status, body } = toErrorBody(e);
       return NextResponse.json(body, { status, headers: { "cache-control": "no-store" } });

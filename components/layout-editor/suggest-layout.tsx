@@ -1,0 +1,138 @@
+"use client";
+// Suggest a layout: choose a kit and a surface, see the suggested pads with the reason for each, keep it as a
+// new layout (editors and owners) and continue in the layout editor.
+import { useState } from "react";
+import { useRouter } from "next/navigation";
+import { FormError } from "@/components/form-bits";
+import { useImportLayout, useSuggestLayout } from "@/components/data/layouts";
+import type { SuggestLayoutAnswer } from "@/lib/api-types/layouts";
+import { LAYOUT_SCHEMA } from "@/lib/audit/schema";
+
+type KitChoice = { id: string; name: string; filled: number };
+
+function Preview({ s }: { s: SuggestLayoutAnswer }) {
+  const reason = new Map(s.placements.map((p) => [p.padId, p] as const));
+  const surface = s.layout.surface;
+  if (surface.kind === "grid") {
+    return (
+      <div className="overflow-x-auto">
+        <div className="grid min-w-[36rem] gap-2" style={{ gridTemplateColumns: `repeat(${surface.cols}, minmax(0, 1fr))` }} data-testid="suggested-grid">
+          {Array.from({ length: surface.rows * surface.cols }, (_, i) => {
+            const row = Math.floor(i / surface.cols) + 1;
+            const col = (i % surface.cols) + 1;
+            const pad = s.layout.pads.find((p) => p.row === row && p.col === col);
+            if (!pad) return <div key={i} className="min-h-20 rounded-md border border-dashed border-line p-2 text-xs text-muted">free</div>;
+            const r = reason.get(pad.id);
+            return (
+              <div key={i} className={`min-h-20 rounded-md border bg-card p-2 text-xs ${r?.standIn ? "border-dashed border-warn/60" : "border-line"}`} title={r?.reason} data-testid="suggested-pad" data-pad-id={pad.id}>
+                <div className="flex justify-between gap-1"><span className="font-medium">{pad.label}</span><span className="num text-muted">{pad.note}</span></div>
+                {r?.standIn && <div className="mt-1 text-warn">stand-in</div>}
+              </div>
+            );
+          })}
+        </div>
+      </div>
+    );
+  }
+  return (
+    <ul className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3" data-testid="suggested-zones">
+      {s.layout.pads.map((pad) => (
+        <li key={pad.id} className="rounded-md border border-line bg-card p-2 text-xs" data-testid="suggested-pad">
+          <div className="flex justify-between gap-1"><span className="font-medium">{pad.label}</span><span className="num text-muted">{pad.note}</span></div>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+export function SuggestLayout({ studioId, kits, canSave }: { studioId: string; kits: KitChoice[]; canSave: boolean }) {
+  const router = useRouter();
+  const [kitId, setKitId] = useState(kits[0]!.id);
+  const [kind, setKind] = useState<"grid" | "zones">("grid");
+  const [rows, setRows] = useState(4);
+  const [cols, setCols] = useState(4);
+  const [zones, setZones] = useState("kick head\nsnare head\nsnare rim\ntom 1 head\ntom 2 head\nfloor tom head\nhi-hat top\nhi-hat edge\ncrash edge\nride bow\nride bell");
+  const [standIns, setStandIns] = useState(false);
+  const suggest = useSuggestLayout(studioId);
+  const save = useImportLayout(studioId);
+  const s = suggest.data;
+  const tooMany = kind === "grid" && rows * cols > 64;
+  const num = (v: string) => Math.min(64, Math.max(1, Number(v) || 1));
+  return (
+    <div className="grid gap-6 lg:grid-cols-[320px_1fr]">
+      <form className="card space-y-3 self-start" onSubmit={(e) => {
+        e.preventDefault();
+        const surface = kind === "grid" ? { kind, rows, cols } : { kind, zones: zones.split("\n").map((z) => z.trim()).filter(Boolean) };
+        suggest.mutate({ kitId, surface, standIns });
+      }}>
+        <div>
+          <label className="label" htmlFor="suggest-kit">Kit</label>
+          <select id="suggest-kit" className="field" value={kitId} onChange={(e) => setKitId(e.target.value)}>
+            {kits.map((k) => <option key={k.id} value={k.id}>{k.name} ({k.filled} filled slots)</option>)}
+          </select>
+        </div>
+        <fieldset>
+          <legend className="label">Controller</legend>
+          <label className="mr-4 text-sm"><input type="radio" name="suggest-kind" checked={kind === "grid"} onChange={() => setKind("grid")} /> A grid of pads</label>
+          <label className="text-sm"><input type="radio" name="suggest-kind" checked={kind === "zones"} onChange={() => setKind("zones")} /> Named trigger zones</label>
+        </fieldset>
+        {kind === "grid" ? (
+          <div className="grid grid-cols-2 gap-3">
+            <div><label className="label" htmlFor="suggest-rows">Rows</label><input id="suggest-rows" type="number" min={1} max={64} className="field num" value={rows} onChange={(e) => setRows(num(e.target.value))} /></div>
+            <div><label className="label" htmlFor="suggest-cols">Columns</label><input id="suggest-cols" type="number" min={1} max={64} className="field num" value={cols} onChange={(e) => setCols(num(e.target.value))} /></div>
+            <p className={`col-span-2 text-xs ${tooMany ? "text-bad" : "text-muted"}`}>{rows * cols} pads{tooMany ? " — a grid holds at most 64 pads" : ""}</p>
+          </div>
+        ) : (
+          <div>
+            <label className="label" htmlFor="suggest-zones">Zone names, one per line</label>
+            <textarea id="suggest-zones" className="field min-h-40" value={zones} onChange={(e) => setZones(e.target.value)} />
+            <p className="mt-1 text-xs text-muted">Name them as you would a drum: &quot;snare rim&quot;, &quot;tom 2 head&quot;, &quot;ride bell&quot;.</p>
+          </div>
+        )}
+        <label className="flex items-start gap-2 text-sm">
+          <input type="checkbox" checked={standIns} onChange={(e) => setStandIns(e.target.checked)} className="mt-1" />
+          <span>Also place a main stroke the kit never recorded (it plays the nearest recorded one, marked as a stand-in)</span>
+        </label>
+        <button className="btn-primary" disabled={suggest.isPending || tooMany}>{suggest.isPending ? "Suggesting…" : "Suggest"}</button>
+        <FormError error={suggest.error} />
+      </form>
+
+      <section className="space-y-4" aria-live="polite">
+        {!s ? (
+          <p className="card text-sm text-muted">The suggestion appears here, with the reason for every pad.</p>
+        ) : (
+          <>
+            <div className="card space-y-3">
+              <div className="flex flex-wrap items-center justify-between gap-2">
+                <h2>{s.layout.pads.length} pads for {s.kitName}</h2>
+                {canSave ? (
+                  <button type="button" className="btn-primary" disabled={save.isPending || save.isSuccess}
+                    onClick={() => save.mutate({ schema: LAYOUT_SCHEMA, layout: s.layout }, { onSuccess: (l) => router.push(`/s/${studioId}/layouts/${l.id}`) })}>
+                    Keep it as a new layout
+                  </button>
+                ) : <p className="text-sm text-muted">View only: an editor or owner can keep it as a layout.</p>}
+              </div>
+              <Preview s={s} />
+              <FormError error={save.error} />
+            </div>
+            <div className="card">
+              <h3 className="font-semibold">Why each pad is where it is</h3>
+              <ol className="mt-2 space-y-1 text-sm" data-testid="suggest-reasons">
+                {s.placements.map((p) => {
+                  const pad = s.layout.pads.find((x) => x.id === p.padId)!;
+                  return <li key={p.padId}><span className="font-medium">{pad.label}</span>{pad.row ? <span className="num text-muted"> (row {pad.row}, column {pad.col})</span> : null}: {p.reason}</li>;
+                })}
+              </ol>
+              {s.leftOut.length > 0 && (
+                <>
+                  <h3 className="mt-4 font-semibold">Not placed</h3>
+                  <ul className="mt-1 space-y-1 text-sm" data-testid="suggest-left-out">{s.leftOut.map((l, i) => <li key={i}>{l.slotId ? `${l.slotId} ${l.articulation}: ` : ""}{l.reason}</li>)}</ul>
+                </>
+              )}
+            </div>
+          </>
+        )}
+      </section>
+    </div>
+  );
+}
