@@ -10,6 +10,13 @@ import { LAYOUT_SCHEMA } from "@/lib/audit/schema";
 
 type KitChoice = { id: string; name: string; filled: number };
 
+/** Reasons read in the order of the pads: row by row, left to right (zones in their listed order). */
+const padOrder = (s: SuggestLayoutAnswer, padId: string) => {
+  const i = s.layout.pads.findIndex((p) => p.id === padId);
+  const p = s.layout.pads[i]!;
+  return p.row ? p.row * 1000 + p.col! : i;
+};
+
 function Preview({ s }: { s: SuggestLayoutAnswer }) {
   const reason = new Map(s.placements.map((p) => [p.padId, p] as const));
   const surface = s.layout.surface;
@@ -73,8 +80,8 @@ export function SuggestLayout({ studioId, kits, canSave }: { studioId: string; k
         </div>
         <fieldset>
           <legend className="label">Controller</legend>
-          <label className="mr-4 text-sm"><input type="radio" name="suggest-kind" checked={kind === "grid"} onChange={() => setKind("grid")} /> A grid of pads</label>
-          <label className="text-sm"><input type="radio" name="suggest-kind" checked={kind === "zones"} onChange={() => setKind("zones")} /> Named trigger zones</label>
+          <label className="mr-4 inline-block text-sm"><input type="radio" name="suggest-kind" checked={kind === "grid"} onChange={() => setKind("grid")} /> A grid of pads</label>
+          <label className="inline-block text-sm"><input type="radio" name="suggest-kind" checked={kind === "zones"} onChange={() => setKind("zones")} /> Named trigger zones</label>
         </fieldset>
         {kind === "grid" ? (
           <div className="grid grid-cols-2 gap-3">
@@ -118,9 +125,9 @@ export function SuggestLayout({ studioId, kits, canSave }: { studioId: string; k
             <div className="card">
               <h3 className="font-semibold">Why each pad is where it is</h3>
               <ol className="mt-2 space-y-1 text-sm" data-testid="suggest-reasons">
-                {s.placements.map((p) => {
+                {[...s.placements].sort((a, b) => padOrder(s, a.padId) - padOrder(s, b.padId)).map((p) => {
                   const pad = s.layout.pads.find((x) => x.id === p.padId)!;
-                  return <li key={p.padId}><span className="font-medium">{pad.label}</span>{pad.row ? <span className="num text-muted"> (row {pad.row}, column {pad.col})</span> : null}: {p.reason}</li>;
+                  return <li key={p.padId}><span className="font-medium">{pad.label}</span>{pad.row ? <span className="text-muted"> (row {pad.row}, column {pad.col})</span> : null}: {p.reason}</li>;
                 })}
               </ol>
               {s.leftOut.length > 0 && (

@@ -90,7 +90,12 @@ export function reasonFor(s: Stroke, rows: number, beside = true): string {
       why = `Tom ${s.ordinal + 1} of ${s.ofFamily}: toms run high to low from left to right, as they sit around a kit, ${rows >= 3 ? "in the row above the snare" : "in the top row"}.`;
       break;
     case "cymbal":
-      why = "Cymbal in the top row toward the outside: cymbals sit above and outside the drums.";
+      why =
+        s.slot.family === "ride"
+          ? "Ride in the top row on the right: where it sits on most kits, above and outside the drums."
+          : s.slot.family === "crash" && s.ordinal === 0
+            ? "Crash in the top row on the left: where it sits on most kits, above and outside the drums."
+            : "Cymbal in the top row toward the outside: cymbals sit above and outside the drums.";
       break;
     case "second-snare":
       why = "Second snare next to the first: switching between them is one step.";

@@ -152,8 +152,10 @@ function mainTargetCost(s: Stroke, cell: Cell, g: { rows: number; cols: number; 
       return dist(cell, target, 2) * 5;
     }
     case "cymbal": {
+      // the ride on the right, the first crash on the left (as on most kits for a right-handed player), others outside
       const outer = Math.min(cell.col - 1, cols - cell.col);
-      return ((cell.row - 1) * 3 + outer) * 4;
+      const side = s.slot.family === "ride" ? cols - cell.col : s.slot.family === "crash" && s.ordinal === 0 ? cell.col - 1 : outer;
+      return ((cell.row - 1) * 3 + side) * 4;
     }
     case "second-snare":
       return dist(cell, { row: Math.max(1, snare.row - 1), col: snare.col + 1 }) * 3;
