@@ -33,6 +33,7 @@ export const paths = {
   libraryProgress: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/progress`,
   libraryHealth: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/health`,
   libraryPlots: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/plots`,
+  velocityResponse: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/velocity-response`,
   uploads: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/uploads`,
   instruments: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/instruments`,
   instrument: (studioId: string, libraryId: string, instrumentId: string) => `${library(studioId, libraryId)}/instruments/${instrumentId}`,

@@ -2,6 +2,7 @@
 // health, plots). Types only, shared by lib/server and components/data.
 import type { z } from "zod";
 import type { HealthFinding } from "@/lib/catalogue";
+import type { GroupResponse } from "@/lib/catalogue/velocity-response";
 import type { createLibrarySchema, deleteLibrarySchema, updateLibrarySchema, VelocityCurveName } from "@/lib/validation/library";
 
 export type StateCounts = { queued: number; measuring: number; catalogued: number; rejected: number; total: number };
@@ -65,4 +66,19 @@ export interface FeaturePoint { id: string; path: string; family: string | null;
 export interface LibraryPlots {
   groups: LadderGroup[];
   points: FeaturePoint[];
+}
+
+/** GET .../libraries/:libraryId/velocity-response: every group of two or more layers against the curve. */
+export interface VelocityResponseView {
+  library: string;
+  curve: { kind: "dls" } | { kind: "dannenberg"; rangeDb?: number };
+  groups: {
+    key: string;
+    instrument: string;
+    articulation: string;
+    mic: string | null;
+    response: GroupResponse;
+    /** The first take of each layer (by layer index), for listening before and after the trims. */
+    takes: { index: number; sampleId: string | null }[];
+  }[];
 }

@@ -90,3 +90,48 @@ export function curveLine(curve: VelocityCurve, rangeDb: number, refVelocity = 1
   const ref = curveAttenuationDb(curve, refVelocity, rangeDb);
   return Array.from({ length: 127 }, (_, i) => ({ velocity: i + 1, db: r2(-(curveAttenuationDb(curve, i + 1, rangeDb) - ref)) }));
 }
+
+// ---------------------------------------------------------------- export (CSV, JSON)
+
+export const TRIMS_SCHEMA = "kitwright.velocity-trims/v1";
+
+/** One group of a library's response: which instrument, stroke and microphone, and its response. */
+export interface ResponseGroup {
+  key: string;
+  instrument: string;
+  articulation: string;
+  mic: string | null;
+  response: GroupResponse;
+}
+
+/** RFC 4180 field (quoted when needed; text starting like a formula is prefixed with '). */
+function csvField(v: string | number | null): string {
+  if (v === null) return "";
+  let s = String(v);
+  if (typeof v !== "number" && /^[=+\-@\t\r]/.test(s)) s = `'${s}`;
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+function layerFlags(r: GroupResponse, index: number): string {
+  const f: string[] = [];
+  if (r.outOfOrder.some((p) => p.upper === index)) f.push("quieter than the layer below");
+  if (r.tooClose.some((p) => p.upper === index)) f.push("within 1 dB of the layer below");
+  if (r.bigBoosts.includes(index)) f.push("boost over 6 dB");
+  return f.join("; ");
+}
+
+/** The trims as CSV: one row per layer (CRLF line ends, RFC 4180). */
+export function trimsToCsv(groups: readonly ResponseGroup[]): string {
+  const rows = [["instrument", "articulation", "mic", "layer", "velocity_low", "velocity_high", "measured_db", "target_db", "trim_db", "flags"].join(",")];
+  for (const g of groups) {
+    g.response.layers.forEach((l, i) => {
+      rows.push([g.instrument, g.articulation, g.mic, i + 1, l.velocityLow, l.velocityHigh, l.measuredDb, l.targetDb, l.trimDb, layerFlags(g.response, l.index)].map(csvField).join(","));
+    });
+  }
+  return rows.join("\r\n") + "\r\n";
+}
+
+/** The trims as a kitwright.velocity-trims/v1 JSON document. */
+export function trimsToJson(library: string, curve: VelocityCurve, groups: readonly ResponseGroup[]): string {
+  return JSON.stringify({ schema: TRIMS_SCHEMA, library, curve, groups: groups.map((g) => ({ instrument: g.instrument, articulation: g.articulation, mic: g.mic, ...g.response, curve: undefined })) }, null, 2) + "\n";
+}
