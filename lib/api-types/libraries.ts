@@ -3,6 +3,7 @@
 import type { z } from "zod";
 import type { HealthFinding } from "@/lib/catalogue";
 import type { GroupResponse } from "@/lib/catalogue/velocity-response";
+import type { MicSeries } from "@/lib/catalogue/mic-consistency";
 import type { createLibrarySchema, deleteLibrarySchema, updateLibrarySchema, VelocityCurveName } from "@/lib/validation/library";
 
 export type StateCounts = { queued: number; measuring: number; catalogued: number; rejected: number; total: number };
@@ -46,6 +47,8 @@ export interface HealthView {
   computedAt: string | null;
   sampleCount: number;
   findings: (HealthFinding & { samples: { id: string; path: string }[] })[];
+  /** Multi-mic takes: each mic's arrival offset against the close mic, take by take (for the plot). */
+  micSeries: MicSeries[];
 }
 
 /** One instrument + articulation (+ mic) group of the loudness ladder. */

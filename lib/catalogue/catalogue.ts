@@ -8,7 +8,7 @@ import { articulationFromSound, nameSoundConflict, suggestFromSound, type LabelM
 import { conflictHealth, fileHealth, layerHealth, sortFindings, type HealthFinding, type HealthOptions } from "./health";
 import { namesMarkSeries, splitBySound, type IdentityMember, type SoundInstrument } from "./identity";
 import { instrumentPitchHz } from "./instrument-pitch";
-import { micConsistency, type MicSample } from "./mic-consistency";
+import { micConsistency, takeName, type MicSample } from "./mic-consistency";
 import type { SoundModel } from "./sound-model";
 import { groupInstruments, instrumentDisplayName, splitByPitch, type Instrument } from "./instruments";
 import { sortLayers, type Layer, type LayerOptions } from "./layers";
@@ -18,16 +18,14 @@ import { DLS, type VelocityCurve } from "./velocity";
 
 export type LabelSource = "name" | "sound" | "person";
 
-/** The samples of multi-mic takes as mic-consistency.ts reads them; a take is named by its velocity and round-robin
- * words (so every mic of one take matches whatever layer its own loudness gave it), else by its layer and round robin. */
+/** The samples of multi-mic takes as mic-consistency.ts reads them (takes named by takeName). */
 export function micSamples(work: readonly { s: CatalogueSampleInput; n: NameInfo; mic: MicPosition | null }[], entries: readonly CatalogueEntry[]): MicSample[] {
   const entryOf = new Map(entries.map((e) => [e.id, e]));
   return work.flatMap((w) => {
     const e = entryOf.get(w.s.id);
     if (!w.mic || !e) return [];
-    const v = w.n.velocity ? w.n.velocity.raw : e.layerIndex !== null ? `layer ${e.layerIndex + 1}` : "?";
-    const rr = w.n.roundRobin !== null ? `rr${w.n.roundRobin}` : e.roundRobin !== null ? `rr${e.roundRobin}` : "";
-    return [{ id: w.s.id, path: w.s.path, group: `${e.instrumentName} / ${e.articulation}`, take: `${v} ${rr}`.trim(), mic: w.mic, measurement: w.s.measurement }];
+    const take = takeName(w.n.velocity?.raw ?? null, w.n.roundRobin, e.layerIndex, e.roundRobin);
+    return [{ id: w.s.id, path: w.s.path, group: `${e.instrumentName} / ${e.articulation}`, take, mic: w.mic, measurement: w.s.measurement }];
   });
 }
 

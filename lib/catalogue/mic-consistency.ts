@@ -47,6 +47,14 @@ export interface MicSeries {
   takes: MicOffset[];
 }
 
+/** A take's name within its group: its velocity and round-robin words when the names have them (so every mic of a
+ * take matches, whatever layer its own loudness gave it), else its layer and round robin. */
+export function takeName(velocityWord: string | null, nameRoundRobin: number | null, layerIndex: number | null, roundRobin: number | null): string {
+  const v = velocityWord ?? (layerIndex !== null ? `layer ${layerIndex + 1}` : "?");
+  const rr = nameRoundRobin !== null ? `rr${nameRoundRobin}` : roundRobin !== null ? `rr${roundRobin}` : "";
+  return `${v} ${rr}`.trim();
+}
+
 /** Best lag (in window samples) of `x` against `ref` within +-maxLag, and the normalised correlation there. */
 export function crossCorrelate(ref: Float64Array, x: Float64Array, maxLag: number): { lag: number; r: number } {
   let best = { lag: 0, r: 0 };
