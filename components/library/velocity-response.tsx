@@ -20,17 +20,19 @@ function Ladder({ g, rangeDb, curve }: { g: Group; rangeDb: number; curve: Veloc
   const line = useMemo(() => curveLine(curve, rangeDb, top.velocityHigh).filter((p) => p.velocity % 2 === 1 || p.velocity === 127), [curve, rangeDb, top.velocityHigh]);
   const before = g.response.layers.map((l) => ({ v: l.velocityHigh, db: l.measuredDb }));
   const after = g.response.layers.map((l) => ({ v: l.velocityHigh, db: l.targetDb }));
-  const low = Math.min(...before.map((p) => p.db), ...after.map((p) => p.db));
+  // the view spans the layers (in 6 dB steps), not the curve down to velocity 1
+  const low = Math.floor((Math.min(...before.map((p) => p.db), ...after.map((p) => p.db)) - 3) / 6) * 6;
+  const ticks = Array.from({ length: Math.round(-low / 6) + 1 }, (_, i) => low + i * 6);
   return (
     <div className="h-72" role="img" aria-label={`Levels of ${g.instrument} ${g.articulation} against the curve: ${g.response.layers.map((l, i) => `layer ${i + 1} (velocity ${l.velocityLow}-${l.velocityHigh}) measured ${dB(l.measuredDb)}, curve ${dB(l.targetDb)}, trim ${dB(l.trimDb)}`).join("; ")}`}>
       <ResponsiveContainer width="100%" height="100%">
         <ComposedChart margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
           <CartesianGrid strokeDasharray="3 3" stroke="var(--color-line, #dcd8cf)" />
           <XAxis type="number" dataKey="v" domain={[1, 127]} ticks={[1, 16, 32, 48, 64, 80, 96, 112, 127]} label={{ value: "MIDI velocity (top of each layer)", position: "insideBottom", offset: -10 }} />
-          <YAxis type="number" dataKey="db" domain={[Math.floor(low - 3), 3]} width={60} label={{ value: "level (dB, top layer = 0)", angle: -90, position: "insideLeft", dy: 70 }} />
+          <YAxis type="number" dataKey="db" domain={[low, 3]} ticks={ticks} allowDataOverflow width={60} label={{ value: "level (dB, top layer = 0)", angle: -90, position: "insideLeft", dy: 70 }} />
           <Tooltip formatter={(v) => (typeof v === "number" ? v.toFixed(1) : String(v))} />
           <Legend verticalAlign="top" />
-          <Line data={line.map((p) => ({ v: p.velocity, db: p.db }))} dataKey="db" name="velocity curve" stroke="#3b4a9c" strokeWidth={2} dot={false} isAnimationActive={false} />
+          <Line data={line.filter((p) => p.db >= low).map((p) => ({ v: p.velocity, db: p.db }))} dataKey="db" name="velocity curve" stroke="#3b4a9c" strokeWidth={2} dot={false} isAnimationActive={false} />
           <Scatter data={before} dataKey="db" name="before: measured" fill="#a2271d" shape="triangle" isAnimationActive={false} />
           <Scatter data={after} dataKey="db" name="after: trimmed onto the curve" fill="#1f5f5b" shape="circle" isAnimationActive={false} />
         </ComposedChart>

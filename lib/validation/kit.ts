@@ -104,6 +104,15 @@ export const suggestLayoutSchema = z.strictObject({
   name: name.optional(),
 });
 
+/** PUT .../layouts/:layoutId/share: publish with a short description; `newLink` replaces the link. */
+export const publishLayoutSchema = z.strictObject({
+  description: z.string().trim().max(2000, "At most 2,000 characters."),
+  newLink: z.boolean().optional(),
+});
+/** POST .../shared-layouts/import: the token of the link (its last part). */
+export const importSharedSchema = z.strictObject({ token: z.string().regex(/^[A-Za-z0-9_-]{43}$/, "That is not a Kitwright share link.") });
+export const sharedParams = z.strictObject({ token: z.string().max(200) });
+
 export const runAuditSchema = z.strictObject({ layoutId: idParam, kitId: idParam });
 export const auditListQuery = z.strictObject({ layoutId: idParam.optional() });
 export const compareQuery = z.strictObject({ before: idParam, after: idParam });
