@@ -58,6 +58,8 @@ export const paths = {
   layoutExport: (studioId: string, layoutId: string) => `${studio(studioId)}/layouts/${layoutId}/export`,
   layoutImport: (studioId: string) => `${studio(studioId)}/layouts/import`,
   layoutSuggest: (studioId: string) => `${studio(studioId)}/layouts/suggest`,
+  layoutShare: (studioId: string, layoutId: string) => `${studio(studioId)}/layouts/${layoutId}/share`,
+  sharedImport: (studioId: string) => `${studio(studioId)}/shared-layouts/import`,
   // audits
   audits: (studioId: string, layoutId?: string) => `${studio(studioId)}/audits${query({ layoutId })}`,
   audit: (studioId: string, auditId: string) => `${studio(studioId)}/audits/${auditId}`,

@@ -7,6 +7,7 @@ import { FormError } from "@/components/form-bits";
 import { useImportLayout, useSuggestLayout } from "@/components/data/layouts";
 import type { SuggestLayoutAnswer } from "@/lib/api-types/layouts";
 import { LAYOUT_SCHEMA } from "@/lib/audit/schema";
+import { LayoutPreview } from "./layout-preview";
 
 type KitChoice = { id: string; name: string; filled: number };
 
@@ -19,37 +20,7 @@ const padOrder = (s: SuggestLayoutAnswer, padId: string) => {
 
 function Preview({ s }: { s: SuggestLayoutAnswer }) {
   const reason = new Map(s.placements.map((p) => [p.padId, p] as const));
-  const surface = s.layout.surface;
-  if (surface.kind === "grid") {
-    return (
-      <div className="overflow-x-auto">
-        <div className="grid min-w-[36rem] gap-2" style={{ gridTemplateColumns: `repeat(${surface.cols}, minmax(0, 1fr))` }} data-testid="suggested-grid">
-          {Array.from({ length: surface.rows * surface.cols }, (_, i) => {
-            const row = Math.floor(i / surface.cols) + 1;
-            const col = (i % surface.cols) + 1;
-            const pad = s.layout.pads.find((p) => p.row === row && p.col === col);
-            if (!pad) return <div key={i} className="min-h-20 rounded-md border border-dashed border-line p-2 text-xs text-muted">free</div>;
-            const r = reason.get(pad.id);
-            return (
-              <div key={i} className={`min-h-20 rounded-md border bg-card p-2 text-xs ${r?.standIn ? "border-dashed border-warn/60" : "border-line"}`} title={r?.reason} data-testid="suggested-pad" data-pad-id={pad.id}>
-                <div className="flex justify-between gap-1"><span className="font-medium">{pad.label}</span><span className="num text-muted">{pad.note}</span></div>
-                {r?.standIn && <div className="mt-1 text-warn">stand-in</div>}
-              </div>
-            );
-          })}
-        </div>
-      </div>
-    );
-  }
-  return (
-    <ul className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3" data-testid="suggested-zones">
-      {s.layout.pads.map((pad) => (
-        <li key={pad.id} className="rounded-md border border-line bg-card p-2 text-xs" data-testid="suggested-pad">
-          <div className="flex justify-between gap-1"><span className="font-medium">{pad.label}</span><span className="num text-muted">{pad.note}</span></div>
-        </li>
-      ))}
-    </ul>
-  );
+  return <LayoutPreview layout={s.layout} note={(id) => reason.get(id)?.reason} standIn={(id) => !!reason.get(id)?.standIn} />;
 }
 
 export function SuggestLayout({ studioId, kits, canSave }: { studioId: string; kits: KitChoice[]; canSave: boolean }) {
