@@ -92,7 +92,7 @@ describe("velocity response", () => {
     const download = page.waitForEvent("download");
     await page.getByRole("link", { name: "Trims as CSV" }).click();
     const file = await download;
-    expect(file.suggestedFilename()).toBe(`velocity-trims-Kick-layers-${tag}.csv`);
+    expect(file.suggestedFilename()).toBe(`velocity-trims-Kick layers ${tag}.csv`); // the UTF-8 filename* keeps the library name as it is
 
     await page.emulateMedia({ colorScheme: "dark" });
     await screenshot(page, "velocity-1440-dark");
