@@ -16,7 +16,7 @@
 // Node built-ins and lib/synth, but nothing of the server, the workers, the app or the CLI.
 
 /** Packages the pure core may use (package.json dependencies). */
-const PURE_PACKAGES = ["wavefile", "music-metadata", "meyda", "fft.js", "simple-statistics", "ml-random-forest", "zod"];
+const PURE_PACKAGES = ["wavefile", "music-metadata", "meyda", "fft.js", "simple-statistics", "ml-random-forest", "munkres-js", "zod"];
 const pkg = (names) => `^node_modules/(${names.map((n) => n.replace(/[.]/g, "\\.")).join("|")})/`;
 const TEST_FILE = "(\\.test\\.ts|/test-[a-z-]+\\.ts)$";
 const PURE = "^lib/(audio|catalogue|audit)/";

@@ -30,7 +30,7 @@ templates: ${TEMPLATE_NAMES.join(", ")}
 exit status: 0 every pad plays, 1 some pad is silent, 2 bad input
 `;
 
-class UsageError extends Error {}
+export class UsageError extends Error {}
 
 interface Options {
   layout: string;
@@ -67,7 +67,7 @@ function parseArgs(args: string[]): Options | "help" {
   return o as Options;
 }
 
-async function readJson(file: string, what: string): Promise<unknown> {
+export async function readJson(file: string, what: string): Promise<unknown> {
   let text: string;
   try {
     text = await readFile(file, "utf8");
@@ -103,7 +103,7 @@ async function catalogueFolder(dir: string, warn: (s: string) => void): Promise<
   return reading.instruments;
 }
 
-async function loadCatalogue(arg: string, warn: (s: string) => void): Promise<CatalogueInstrument[]> {
+export async function loadCatalogue(arg: string, warn: (s: string) => void): Promise<CatalogueInstrument[]> {
   const s = await stat(arg).catch(() => null);
   if (!s) throw new UsageError(`--catalogue ${arg}: no such file or folder`);
   if (s.isDirectory()) return catalogueFolder(arg, warn);

@@ -6,6 +6,7 @@ import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { kitwright } from "./run-kitwright";
+import { parseLayoutFile } from "../lib/audit/schema";
 import { encodeWav } from "../lib/audio/encode";
 import { demoScenario } from "../lib/synth/scenario";
 import { renderScenarioFile } from "../lib/synth/render";
@@ -84,4 +85,45 @@ describe("kitwright catalogue and audit on a generated folder", () => {
     expect(outcomes.has("silent")).toBe(true);
     expect(outcomes.has("direct")).toBe(true);
   }, 120_000);
+});
+
+describe("kitwright suggest on a generated five-piece folder", () => {
+  let kitDir: string;
+  beforeAll(() => {
+    kitDir = fs.mkdtempSync(path.join(os.tmpdir(), "kw-sug-"));
+    // one take per layer and one microphone keep the folder small; every instrument and stroke stays
+    const files = demoScenario().filter(
+      (f) => /^(Kick_22x18|Snare_Brass14|Toms|HiHat|Cymbals)\//.test(f.path) && !f.duplicateOf && f.sampleRate === 48000 && !/([ _]0[2-9]|RR[2-9]|_OH|_Room)/i.test(f.path),
+    );
+    for (const f of files) {
+      fs.mkdirSync(path.join(kitDir, path.dirname(f.path)), { recursive: true });
+      fs.writeFileSync(path.join(kitDir, f.path), renderScenarioFile(f));
+    }
+  }, 120_000);
+  afterAll(() => fs.rmSync(kitDir, { recursive: true, force: true }));
+
+  it("prints a kitwright.layout/v1 file for a 4x6 grid, hats on both sides of the snare, every pad aimed, reasons on stderr", async () => {
+    const r = await kitwright("suggest", "--surface", "4x6", "--catalogue", kitDir);
+    expect([0, 1]).toContain(r.code);
+    const file = parseLayoutFile(JSON.parse(r.stdout));
+    expect(file.surface).toEqual({ kind: "grid", rows: 4, cols: 6 });
+    expect(file.pads.length).toBeGreaterThan(12);
+    expect(file.pads.every((p) => p.target !== null && p.row! >= 1 && p.row! <= 4 && p.col! >= 1 && p.col! <= 6)).toBe(true);
+    const snare = file.pads.find((p) => p.note === 38)!;
+    const hats = file.pads.filter((p) => p.note === 42);
+    expect(hats.map((h) => [h.row, h.col! - snare.col!])).toEqual([[snare.row, -1], [snare.row, 1]]);
+    expect(r.stderr).toMatch(/both sides of the snare/);
+    // the layout it printed audits with no silent pad against the same folder
+    const out = path.join(kitDir, "..", `${path.basename(kitDir)}-layout.json`);
+    fs.writeFileSync(out, r.stdout);
+    const audit = await kitwright("audit", "--layout", out, "--catalogue", kitDir, "--json");
+    fs.rmSync(out);
+    expect(audit.code).toBe(0);
+  }, 240_000);
+
+  it("refuses a surface it cannot read, with the usage", async () => {
+    const r = await kitwright("suggest", "--surface", "four by six", "--catalogue", kitDir);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/rows x columns/);
+  });
 });

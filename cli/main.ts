@@ -4,8 +4,9 @@ import * as measure from "./measure";
 import * as catalogue from "./catalogue";
 import * as audit from "./audit";
 import * as upload from "./upload";
+import * as suggest from "./suggest";
 
-const COMMANDS: Record<string, { run(args: string[]): Promise<number> }> = { measure, catalogue, audit, upload };
+const COMMANDS: Record<string, { run(args: string[]): Promise<number> }> = { measure, catalogue, audit, suggest, upload };
 
 const USAGE = `usage: kitwright <command> [options]
 
@@ -14,6 +15,8 @@ commands:
   catalogue <folder> [--json | --csv]             sort a folder into instruments, articulations, layers
   audit --layout <file|template> --catalogue <folder> [--kit <kit.json>] ${audit.OUTPUT_USAGE}
                                                   audit a pad layout against a catalogued folder
+  suggest --surface <rows>x<cols> --catalogue <folder> [--kit <kit.json>]
+                                                  suggest a layout for a pad grid (or --zones a,b,c) and a kit
   upload <folder or .zip> --library <id> --server <url> [--jobs N]
                                                   send WAV files to a library (token in $KITWRIGHT_TOKEN)
 `;

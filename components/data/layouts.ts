@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api } from "./api";
 import { paths } from "./paths";
-import type { CreateLayoutBody, LayoutAnswer, LayoutList, LayoutRecord, UpdateLayoutBody } from "@/lib/api-types/layouts";
+import type { CreateLayoutBody, LayoutAnswer, LayoutList, LayoutRecord, LayoutShareAnswer, PublishLayoutBody, SuggestLayoutAnswer, SuggestLayoutBody, UpdateLayoutBody } from "@/lib/api-types/layouts";
 
 export const layoutKeys = {
   list: (studioId: string) => ["layouts", studioId] as const,
@@ -56,6 +56,11 @@ export function useImportLayout(studioId: string) {
   return useMutation({ mutationFn: (file: unknown) => layoutOf(api<LayoutAnswer>(paths.layoutImport(studioId), { body: file })), onSuccess: changed });
 }
 
+/** A layout suggested for a kit and a surface (nothing saved: accept it with useImportLayout). */
+export function useSuggestLayout(studioId: string) {
+  return useMutation({ mutationFn: (body: SuggestLayoutBody) => api<SuggestLayoutAnswer>(paths.layoutSuggest(studioId), { body }) });
+}
+
 /** Deletes the layout and its saved audits. */
 export function useDeleteLayout(studioId: string, layoutId: string) {
   const qc = useQueryClient();
@@ -66,4 +71,30 @@ export function useDeleteLayout(studioId: string, layoutId: string) {
       void qc.invalidateQueries({ queryKey: layoutKeys.list(studioId) });
     },
   });
+}
+
+/** The layout's share link (null when not published); publishing, a new link and revoking update it. */
+export function useLayoutShare(studioId: string, layoutId: string) {
+  return useQuery({ queryKey: ["layout-share", layoutId], queryFn: async () => (await api<LayoutShareAnswer>(paths.layoutShare(studioId, layoutId))).share });
+}
+
+export function usePublishLayout(studioId: string, layoutId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: async (body: PublishLayoutBody) => (await api<LayoutShareAnswer>(paths.layoutShare(studioId, layoutId), { method: "PUT", body })).share,
+    onSuccess: (share) => qc.setQueryData(["layout-share", layoutId], share),
+  });
+}
+
+export function useRevokeShare(studioId: string, layoutId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: () => api(paths.layoutShare(studioId, layoutId), { method: "DELETE" }),
+    onSuccess: () => qc.setQueryData(["layout-share", layoutId], null),
+  });
+}
+
+/** Copies a shared layout (by its link's token) into one of the person's studios. */
+export function useImportShared() {
+  return useMutation({ mutationFn: ({ studioId, token }: { studioId: string; token: string }) => layoutOf(api<LayoutAnswer>(paths.sharedImport(studioId), { body: { token } })) });
 }

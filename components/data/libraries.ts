@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api } from "./api";
 import { paths } from "./paths";
-import type { CreatedLibrary, CreateLibraryBody, HealthView, LibraryList, LibraryPlots, LibrarySummary, UpdateLibraryBody } from "@/lib/api-types/libraries";
+import type { CreatedLibrary, CreateLibraryBody, HealthView, LibraryList, LibraryPlots, LibrarySummary, UpdateLibraryBody, VelocityResponseView } from "@/lib/api-types/libraries";
 
 export const libraryKeys = {
   list: (studioId: string) => ["libraries", studioId] as const,
@@ -26,6 +26,17 @@ export function useLibraryHealth(studioId: string, libraryId: string) {
 
 export function useLibraryPlots(studioId: string, libraryId: string) {
   return useQuery({ queryKey: libraryKeys.plots(libraryId), queryFn: () => api<LibraryPlots>(paths.libraryPlots(studioId, libraryId)) });
+}
+
+/** The velocity response against a curve (the library's own until the page picks another); `initial` from the server render. */
+export function useVelocityResponse(studioId: string, libraryId: string, curve: "dls" | "dannenberg", rangeDb: number | null, initial?: VelocityResponseView) {
+  const q = new URLSearchParams({ curve, ...(curve === "dannenberg" && rangeDb !== null ? { rangeDb: String(rangeDb) } : {}) });
+  return useQuery({
+    queryKey: ["velocity-response", libraryId, curve, curve === "dannenberg" ? rangeDb : null],
+    queryFn: () => api<VelocityResponseView>(`${paths.velocityResponse(studioId, libraryId)}?${q}`),
+    initialData: initial && initial.curve.kind === curve && (curve === "dls" || rangeDb === null) ? initial : undefined,
+    placeholderData: (prev) => prev,
+  });
 }
 
 export function useCreateLibrary(studioId: string) {

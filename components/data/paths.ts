@@ -36,6 +36,7 @@ export const paths = {
   libraryProgress: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/progress`,
   libraryHealth: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/health`,
   libraryPlots: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/plots`,
+  velocityResponse: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/velocity-response`,
   uploads: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/uploads`,
   instruments: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/instruments`,
   instrument: (studioId: string, libraryId: string, instrumentId: string) => `${library(studioId, libraryId)}/instruments/${instrumentId}`,
@@ -59,6 +60,9 @@ export const paths = {
   layoutCopy: (studioId: string, layoutId: string) => `${studio(studioId)}/layouts/${layoutId}/copy`,
   layoutExport: (studioId: string, layoutId: string) => `${studio(studioId)}/layouts/${layoutId}/export`,
   layoutImport: (studioId: string) => `${studio(studioId)}/layouts/import`,
+  layoutSuggest: (studioId: string) => `${studio(studioId)}/layouts/suggest`,
+  layoutShare: (studioId: string, layoutId: string) => `${studio(studioId)}/layouts/${layoutId}/share`,
+  sharedImport: (studioId: string) => `${studio(studioId)}/shared-layouts/import`,
   // audits
   audits: (studioId: string, layoutId?: string) => `${studio(studioId)}/audits${query({ layoutId })}`,
   audit: (studioId: string, auditId: string) => `${studio(studioId)}/audits/${auditId}`,

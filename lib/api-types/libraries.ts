@@ -2,6 +2,8 @@
 // health, plots). Types only, shared by lib/server and components/data.
 import type { z } from "zod";
 import type { HealthFinding } from "@/lib/catalogue";
+import type { GroupResponse } from "@/lib/catalogue/velocity-response";
+import type { MicSeries } from "@/lib/catalogue/mic-consistency";
 import type { createLibrarySchema, deleteLibrarySchema, updateLibrarySchema, VelocityCurveName } from "@/lib/validation/library";
 
 export type StateCounts = { queued: number; measuring: number; catalogued: number; rejected: number; total: number };
@@ -45,6 +47,8 @@ export interface HealthView {
   computedAt: string | null;
   sampleCount: number;
   findings: (HealthFinding & { samples: { id: string; path: string }[] })[];
+  /** Multi-mic takes: each mic's arrival offset against the close mic, take by take (for the plot). */
+  micSeries: MicSeries[];
 }
 
 /** One instrument + articulation (+ mic) group of the loudness ladder. */
@@ -65,4 +69,19 @@ export interface FeaturePoint { id: string; path: string; family: string | null;
 export interface LibraryPlots {
   groups: LadderGroup[];
   points: FeaturePoint[];
+}
+
+/** GET .../libraries/:libraryId/velocity-response: every group of two or more layers against the curve. */
+export interface VelocityResponseView {
+  library: string;
+  curve: { kind: "dls" } | { kind: "dannenberg"; rangeDb?: number };
+  groups: {
+    key: string;
+    instrument: string;
+    articulation: string;
+    mic: string | null;
+    response: GroupResponse;
+    /** The first take of each layer (by layer index), for listening before and after the trims. */
+    takes: { index: number; sampleId: string | null }[];
+  }[];
 }

@@ -11,6 +11,7 @@ import { levels, correlationAndMono, toDb, SILENCE_DB } from "./levels";
 import { truePeaks } from "./true-peak";
 import { loudness } from "./loudness";
 import { onsetIndex, attackMs } from "./onset";
+import { onsetWave } from "./onset-wave";
 import { analyseDecay } from "./decay";
 import { analyzerFor, frameSizeFor, lowPeakHz, summarize, MFCC_COUNT, BARK_BANDS, type FrameFeatures } from "./spectral";
 
@@ -103,6 +104,7 @@ export function measure(decoded: DecodedWav): Measurement {
     integratedLufs: ld.integratedLufs,
     crestDb: peakDb - rmsDb,
     onsetMs: (onset / fs) * 1000,
+    onsetWave: onsetWave(channels, fs, onset),
     attackMs: attack,
     edtSec: dec.edtSec,
     t20Sec: dec.t20Sec,

@@ -2,6 +2,8 @@
 // lib/catalogue (which sorts by it), the workers (which store it) and the UI (which shows it).
 // Fields may be added; do not rename or remove fields without bumping MEASURE_VERSION and updating users.
 
+import type { OnsetWave } from "./onset-wave";
+
 export interface WavFormat {
   formatTag: number; // 1 PCM, 3 IEEE float, 0xFFFE extensible (the tag in the fmt chunk)
   encoding: "pcm" | "float";
@@ -57,6 +59,8 @@ export interface Measurement {
   // any trailing digital silence
   tailEndDb?: number; // dB re the loudest 10 ms (e.g. -31: stops 31 dB under its peak level)
   tailEndAboveFloorDb?: number | null; // dB above the measured noise floor; null when no floor could be measured
+  // added in MEASURE_VERSION 3 (onset-wave.ts): the strike's first milliseconds, to compare microphones of one take
+  onsetWave?: OnsetWave;
 }
 
 export interface ChannelLevels {

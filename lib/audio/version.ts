@@ -1,4 +1,5 @@
 // Version of the measurement algorithms in lib/audio. Bump it whenever a change alters any number in a
 // Measurement (filters, thresholds, frame sizes, summaries) so stored samples are re-measured.
 // 2: the tail test reads the level at the stop and tells fades from cuts; tailEndDb and tailEndAboveFloorDb.
-export const MEASURE_VERSION = 2;
+// 3: onsetWave, the first milliseconds of the strike (microphone offsets and polarity).
+export const MEASURE_VERSION = 3;

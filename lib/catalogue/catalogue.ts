@@ -8,6 +8,7 @@ import { articulationFromSound, nameSoundConflict, suggestFromSound, type LabelM
 import { conflictHealth, fileHealth, layerHealth, sortFindings, type HealthFinding, type HealthOptions } from "./health";
 import { namesMarkSeries, splitBySound, type IdentityMember, type SoundInstrument } from "./identity";
 import { instrumentPitchHz } from "./instrument-pitch";
+import { micConsistency, takeName, type MicSample } from "./mic-consistency";
 import type { SoundModel } from "./sound-model";
 import { groupInstruments, instrumentDisplayName, splitByPitch, type Instrument } from "./instruments";
 import { sortLayers, type Layer, type LayerOptions } from "./layers";
@@ -16,6 +17,17 @@ import type { Articulation, Family } from "./taxonomy";
 import { DLS, type VelocityCurve } from "./velocity";
 
 export type LabelSource = "name" | "sound" | "person";
+
+/** The samples of multi-mic takes as mic-consistency.ts reads them (takes named by takeName). */
+export function micSamples(work: readonly { s: CatalogueSampleInput; n: NameInfo; mic: MicPosition | null }[], entries: readonly CatalogueEntry[]): MicSample[] {
+  const entryOf = new Map(entries.map((e) => [e.id, e]));
+  return work.flatMap((w) => {
+    const e = entryOf.get(w.s.id);
+    if (!w.mic || !e) return [];
+    const take = takeName(w.n.velocity?.raw ?? null, w.n.roundRobin, e.layerIndex, e.roundRobin);
+    return [{ id: w.s.id, path: w.s.path, group: `${e.instrumentName} / ${e.articulation}`, take, mic: w.mic, measurement: w.s.measurement }];
+  });
+}
 
 /** Families whose drums are told apart by pitch when only the sound names them. */
 const PITCHED = new Set<Family>(["tom", "snare", "kick", "hand-drum", "cowbell"]);
@@ -270,6 +282,9 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
       strikeLufs: w.s.measurement.strikeLufs,
     };
   });
+
+  // 4b. multi-mic takes: offsets and polarity against the close mic, missing mics (mic-consistency.ts)
+  findings.push(...micConsistency(micSamples(work, entries)).findings);
 
   // 5. instrument pitch, from the hits as labelled above
   const entryById = new Map(entries.map((e) => [e.id, e]));

@@ -22,7 +22,10 @@ export type HealthCode =
   | "uneven-layers"
   | "thin-round-robins"
   | "missing-layer"
-  | "name-sound-conflict";
+  | "name-sound-conflict"
+  | "mic-offset"
+  | "mic-polarity"
+  | "mic-missing";
 
 export type Severity = "error" | "warning" | "info";
 
@@ -72,6 +75,9 @@ const SEVERITY: Record<HealthCode, Severity> = {
   "thin-round-robins": "info",
   "missing-layer": "warning",
   "name-sound-conflict": "warning",
+  "mic-offset": "warning",
+  "mic-polarity": "warning",
+  "mic-missing": "warning",
 };
 
 export function severityOf(code: HealthCode): Severity {

@@ -54,6 +54,8 @@ interface Spec<A extends Access, PS, QS, BS> {
   params?: PS;
   query?: QS;
   body?: BS;
+  /** A POST that computes and creates nothing (a preview) answers 200 instead of 201. */
+  creates?: false;
 }
 
 type Handler<A extends Access, P, Q, B> = (
@@ -224,7 +226,7 @@ export function route<A extends Access, PS extends AnySchema | undefined = undef
         answer = out;
       } else {
         const headers = signedIn ? { "cache-control": "private, no-store" } : undefined;
-        answer = out === null ? new NextResponse(null, { status: 204, headers }) : NextResponse.json(out, { status: req.method === "POST" ? 201 : 200, headers });
+        answer = out === null ? new NextResponse(null, { status: 204, headers }) : NextResponse.json(out, { status: req.method === "POST" && spec.creates !== false ? 201 : 200, headers });
       }
     } catch (e) {
       const { status, body } = toErrorBody(e);

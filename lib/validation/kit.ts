@@ -3,7 +3,7 @@
 // (kitwright.kit/v1, kitwright.layout/v1), whose own refinements (grid cells, duplicate ids) run on top.
 import { z } from "zod";
 import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
-import { KIT_SCHEMA, LAYOUT_SCHEMA, kitBodySchema, layoutBodySchema, MAX_GRID_PADS, padSchema as auditPadSchema } from "@/lib/audit/schema";
+import { KIT_SCHEMA, LAYOUT_SCHEMA, kitBodySchema, layoutBodySchema, MAX_GRID_PADS, MAX_ZONE_PADS, padSchema as auditPadSchema } from "@/lib/audit/schema";
 import { TEMPLATE_NAMES } from "@/lib/audit/templates";
 import { EXPORT_FORMAT_IDS } from "@/lib/audit/export-formats";
 import { idParam } from "./studio";
@@ -94,6 +94,31 @@ export const createLayoutSchema = z
 export const updateLayoutSchema = z
   .strictObject({ name: name.optional(), layout: layoutContentSchema.optional() })
   .refine((b) => b.name !== undefined || b.layout !== undefined, { message: "Send a name or a layout." });
+
+/** POST .../layouts/suggest: a surface (a grid, or named trigger zones) and the kit to suggest a layout for. */
+export const suggestLayoutSchema = z.strictObject({
+  kitId: idParam,
+  surface: z.discriminatedUnion("kind", [
+    z
+      .strictObject({ kind: z.literal("grid"), rows: z.number().int().min(1).max(64), cols: z.number().int().min(1).max(64) })
+      .refine((g) => g.rows * g.cols <= MAX_GRID_PADS, { message: `A grid holds 1 to ${MAX_GRID_PADS} pads.` }),
+    z.strictObject({
+      kind: z.literal("zones"),
+      zones: z.array(z.string().trim().min(1, "A zone needs a name.").max(80)).min(1, "Name at least one trigger zone.").max(MAX_ZONE_PADS),
+    }),
+  ]),
+  standIns: z.boolean().optional(),
+  name: name.optional(),
+});
+
+/** PUT .../layouts/:layoutId/share: publish with a short description; `newLink` replaces the link. */
+export const publishLayoutSchema = z.strictObject({
+  description: z.string().trim().max(2000, "At most 2,000 characters."),
+  newLink: z.boolean().optional(),
+});
+/** POST .../shared-layouts/import: the token of the link (its last part). */
+export const importSharedSchema = z.strictObject({ token: z.string().regex(/^[A-Za-z0-9_-]{43}$/, "That is not a Kitwright share link.") });
+export const sharedParams = z.strictObject({ token: z.string().max(200) });
 
 export const runAuditSchema = z.strictObject({ layoutId: idParam, kitId: idParam });
 export const auditListQuery = z.strictObject({ layoutId: idParam.optional() });

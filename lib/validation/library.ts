@@ -54,3 +54,10 @@ export const confirmSchema = z.strictObject({ sampleIds: z.array(idParam).min(1,
 
 export const renameInstrumentSchema = z.strictObject({ name: z.string().trim().min(1, "Name the instrument.").max(160) });
 export const mergeInstrumentsSchema = z.strictObject({ sourceIds: z.array(idParam).min(1).max(100), targetId: idParam });
+
+/** GET .../velocity-response: the curve to measure against (default: the library's), Dannenberg's range, a download format. */
+export const velocityResponseQuery = z.strictObject({
+  curve: z.enum(VELOCITY_CURVES).optional(),
+  rangeDb: z.coerce.number().min(6, "A range of 6 to 120 dB.").max(120, "A range of 6 to 120 dB.").optional(),
+  format: z.enum(["csv", "json"]).optional(),
+});

@@ -5,12 +5,15 @@ import { db } from "../db";
 import { jsonColumn } from "../json-column";
 import { assertLibrary } from "./libraries";
 import type { HealthFinding, Layer } from "@/lib/catalogue";
+import { micConsistency, takeName, type MicSample, type MicSeries } from "@/lib/catalogue/mic-consistency";
+import { parseName } from "@/lib/catalogue/names";
+import type { Measurement } from "@/lib/audio/types";
 import type { FeaturePoint, HealthView, LadderGroup, LibraryPlots } from "@/lib/api-types/libraries";
 
 export async function libraryHealth({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<HealthView> {
   await assertLibrary({ studioId, libraryId });
   const h = await db()("library_health").where({ studio_id: studioId, library_id: libraryId }).first();
-  if (!h) return { computedAt: null, sampleCount: 0, findings: [] };
+  if (!h) return { computedAt: null, sampleCount: 0, findings: [], micSeries: [] };
   const findings = jsonColumn<HealthFinding[]>(h.findings);
   const ids = [...new Set(findings.flatMap((f) => f.sampleIds.slice(0, 50)))];
   const paths = new Map<string, string>();
@@ -22,7 +25,30 @@ export async function libraryHealth({ studioId, libraryId }: { studioId: string;
     computedAt: new Date(h.computed_at).toISOString(),
     sampleCount: Number(h.sample_count),
     findings: findings.map((f) => ({ ...f, samples: f.sampleIds.slice(0, 50).filter((id) => paths.has(id)).map((id) => ({ id, path: paths.get(id)! })) })),
+    micSeries: await micSeriesOf({ studioId, libraryId }),
   };
+}
+
+/** Offsets of every multi-mic take against its close mic (lib/catalogue/mic-consistency.ts), from the stored measurements. */
+async function micSeriesOf({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<MicSeries[]> {
+  const rows = await db()("samples")
+    .where({ studio_id: studioId, library_id: libraryId, state: "catalogued" })
+    .whereNotNull("mic")
+    .limit(20_000)
+    // only the two fields the comparison reads, not the whole measurement (a few KB a sample)
+    .select("id", "rel_path", "mic", "instrument_key", "articulation", "layer_index", "round_robin", db().raw("JSON_VALUE(measurement, '$.onsetMs') AS onset_ms"), db().raw("JSON_EXTRACT(measurement, '$.onsetWave') AS onset_wave"));
+  if (rows.length === 0) return [];
+  const names = new Map((await db()("instruments").where({ studio_id: studioId, library_id: libraryId }).select("key", "name")).map((i) => [i.key as string, i.name as string]));
+  const samples: MicSample[] = rows.map((r) => {
+    const n = parseName(r.rel_path);
+    return {
+      id: r.id, path: r.rel_path, mic: r.mic,
+      measurement: { onsetMs: Number(r.onset_ms), onsetWave: r.onset_wave ? jsonColumn<NonNullable<Measurement["onsetWave"]>>(r.onset_wave) : undefined },
+      group: `${names.get(r.instrument_key) ?? r.instrument_key} / ${r.articulation}`,
+      take: takeName(n.velocity?.raw ?? null, n.roundRobin, r.layer_index ?? null, r.round_robin ?? null),
+    };
+  });
+  return micConsistency(samples).series;
 }
 
 export async function libraryPlots({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<LibraryPlots> {

@@ -26,6 +26,9 @@ function describe(action: string, d: Record<string, unknown> | null): string {
     case "layout.renamed": return `renamed the layout "${s("from")}" to "${s("to")}"`;
     case "layout.updated": return `edited the pads of the layout "${s("name")}"`;
     case "layout.deleted": return `deleted the layout "${s("name")}"`;
+    case "layout.published": return `published the layout "${s("name")}" at a share link`;
+    case "layout.unpublished": return `revoked the share link of the layout "${s("name")}"`;
+    case "layout.imported-shared": return `imported the shared layout "${s("name")}"`;
     case "audit.run": return `audited "${s("layout")}" against "${s("kit")}" (score ${s("score")}, ${s("silent")} silent pads)`;
     case "library.created": return `created the library "${s("name")}"`;
     case "library.renamed": return `renamed the library "${s("from")}" to "${s("to")}"`;

@@ -9,9 +9,9 @@ import { RunAuditForm } from "@/components/audit/run-audit";
 
 export const metadata: Metadata = { title: "Audits" };
 
-export default async function AuditsPage({ params, searchParams }: { params: Promise<{ studioId: string }>; searchParams: Promise<{ layoutId?: string }> }) {
+export default async function AuditsPage({ params, searchParams }: { params: Promise<{ studioId: string }>; searchParams: Promise<{ layoutId?: string; kitId?: string }> }) {
   const { studioId } = await params;
-  const { layoutId: raw } = await searchParams;
+  const { layoutId: raw, kitId: rawKit } = await searchParams;
   const { studio } = await requireStudio(studioId);
   const [layouts, kits] = await Promise.all([listLayouts({ studioId: studio.id }), listKits({ studioId: studio.id })]);
   const layoutId = raw && layouts.some((l) => l.id === raw) ? raw : undefined;
@@ -46,7 +46,7 @@ export default async function AuditsPage({ params, searchParams }: { params: Pro
         <aside className="card space-y-3">
           <h2>Run an audit</h2>
           <p className="text-sm text-muted">Checks every pad and pedal zone of a layout against a kit and the studio’s catalogue as it is now.</p>
-          <RunAuditForm studioId={studio.id} layouts={layouts} kits={kits} layoutId={layoutId} />
+          <RunAuditForm studioId={studio.id} layouts={layouts} kits={kits} layoutId={layoutId} kitId={rawKit && kits.some((k) => k.id === rawKit) ? rawKit : undefined} />
         </aside>
       )}
     </div>

@@ -38,6 +38,11 @@ export default async function LayoutsPage({ params }: { params: Promise<{ studio
       </section>
       {write && (
         <aside className="space-y-6">
+          <section className="card space-y-2">
+            <h2>Suggest one for a kit</h2>
+            <p className="text-sm text-muted">Give your controller&apos;s pads or trigger zones and a kit: Kitwright lays the kit out and says why.</p>
+            <Link className="btn-quiet" href={`/s/${studio.id}/layouts/suggest`} data-testid="suggest-link">Suggest a layout</Link>
+          </section>
           <section className="card space-y-3" id="new-layout"><h2>New layout</h2><CreateLayoutForm studioId={studio.id} /></section>
           <section className="card"><ImportLayoutFile studioId={studio.id} label="Import a layout file (kitwright.layout/v1)" /></section>
         </aside>

@@ -9,6 +9,7 @@ import { can } from "@/lib/permissions";
 import { LayoutEditor } from "@/components/layout-editor/layout-editor";
 import { LayoutActions } from "@/components/item-actions";
 import { NextStepSlot } from "@/app/(app)/s/[studioId]/next-step-slot";
+import { SharePanel } from "@/components/layout-editor/share-panel";
 
 export const metadata: Metadata = { title: "Layout" };
 
@@ -26,12 +27,13 @@ export default async function LayoutPage({ params }: { params: Promise<{ studioI
     <>
     <NextStepSlot studio={studio} />
     <div className="space-y-4">
-      <p className="no-print text-sm"><Link href={`/s/${studio.id}/layouts`}>← All layouts</Link> · <Link href={`/s/${studio.id}/audits?layoutId=${rec.id}`}>Audits of this layout</Link></p>
+      <p className="no-print text-sm"><Link href={`/s/${studio.id}/layouts`}>← All layouts</Link> · <Link href={`/s/${studio.id}/audits?layoutId=${rec.id}`}>Audits of this layout</Link> · <Link href={`/s/${studio.id}/layouts/${rec.id}/kits`} data-testid="kit-matrix-link">How it plays on every kit</Link></p>
       <div className="flex flex-wrap items-start justify-between gap-4">
         <h2 className="text-xl" data-testid="layout-name">{rec.name}</h2>
         <LayoutActions studioId={studio.id} layoutId={rec.id} name={rec.name} canWrite={write} />
       </div>
       <LayoutEditor key={`${rec.id}:${rec.name}`} studioId={studio.id} layout={rec.layout} kits={kits} canWrite={write} />
+      <SharePanel studioId={studio.id} layoutId={rec.id} canWrite={write} />
     </div>
     </>
   );

@@ -23,6 +23,7 @@ export default async function LibraryLayout({ children, params }: { children: Re
     { href: base, label: "Samples" },
     { href: `${base}/instruments`, label: "Instruments" },
     { href: `${base}/plots`, label: "Plots" },
+    { href: `${base}/velocity`, label: "Velocity response" },
     { href: `${base}/health`, label: "Health" },
   ];
   return (

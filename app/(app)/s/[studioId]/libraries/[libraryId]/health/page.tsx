@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { requireStudio } from "@/lib/server/session";
 import { libraryHealth } from "@/lib/server/catalogue/reports";
+import { MicOffsets } from "@/components/library/mic-offsets";
 
 export const metadata: Metadata = { title: "Library health" };
 
@@ -41,6 +42,7 @@ export default async function HealthPage({ params }: { params: Promise<{ studioI
           </ul>
         </section>
       ))}
+      {h.micSeries.length > 0 && <MicOffsets series={h.micSeries} />}
     </div>
   );
 }
