@@ -8,6 +8,7 @@ import type { CreateLayoutBody, LayoutAnswer, LayoutList, LayoutRecord, LayoutSh
 export const layoutKeys = {
   list: (studioId: string) => ["layouts", studioId] as const,
   detail: (layoutId: string) => ["layout", layoutId] as const,
+  share: (layoutId: string) => ["layout-share", layoutId] as const,
 };
 
 export function useLayouts(studioId: string) {
@@ -75,14 +76,14 @@ export function useDeleteLayout(studioId: string, layoutId: string) {
 
 /** The layout's share link (null when not published); publishing, a new link and revoking update it. */
 export function useLayoutShare(studioId: string, layoutId: string) {
-  return useQuery({ queryKey: ["layout-share", layoutId], queryFn: async () => (await api<LayoutShareAnswer>(paths.layoutShare(studioId, layoutId))).share });
+  return useQuery({ queryKey: layoutKeys.share(layoutId), queryFn: async () => (await api<LayoutShareAnswer>(paths.layoutShare(studioId, layoutId))).share });
 }
 
 export function usePublishLayout(studioId: string, layoutId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: async (body: PublishLayoutBody) => (await api<LayoutShareAnswer>(paths.layoutShare(studioId, layoutId), { method: "PUT", body })).share,
-    onSuccess: (share) => qc.setQueryData(["layout-share", layoutId], share),
+    onSuccess: (share) => qc.setQueryData(layoutKeys.share(layoutId), share),
   });
 }
 
@@ -90,7 +91,7 @@ export function useRevokeShare(studioId: string, layoutId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: () => api(paths.layoutShare(studioId, layoutId), { method: "DELETE" }),
-    onSuccess: () => qc.setQueryData(["layout-share", layoutId], null),
+    onSuccess: () => qc.setQueryData(layoutKeys.share(layoutId), null),
   });
 }
 

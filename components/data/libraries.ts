@@ -6,6 +6,7 @@ import { paths } from "./paths";
 import type { CreatedLibrary, CreateLibraryBody, HealthView, LibraryList, LibraryPlots, LibrarySummary, UpdateLibraryBody, VelocityResponseView } from "@/lib/api-types/libraries";
 
 export const libraryKeys = {
+  velocity: (libraryId: string, curve: string, rangeDb: number | null) => ["velocity-response", libraryId, curve, rangeDb] as const,
   list: (studioId: string) => ["libraries", studioId] as const,
   detail: (libraryId: string) => ["library", libraryId] as const,
   health: (libraryId: string) => ["library", libraryId, "health"] as const,
@@ -32,7 +33,7 @@ export function useLibraryPlots(studioId: string, libraryId: string) {
 export function useVelocityResponse(studioId: string, libraryId: string, curve: "dls" | "dannenberg", rangeDb: number | null, initial?: VelocityResponseView) {
   const q = new URLSearchParams({ curve, ...(curve === "dannenberg" && rangeDb !== null ? { rangeDb: String(rangeDb) } : {}) });
   return useQuery({
-    queryKey: ["velocity-response", libraryId, curve, curve === "dannenberg" ? rangeDb : null],
+    queryKey: libraryKeys.velocity(libraryId, curve, curve === "dannenberg" ? rangeDb : null),
     queryFn: () => api<VelocityResponseView>(`${paths.velocityResponse(studioId, libraryId)}?${q}`),
     initialData: initial && initial.curve.kind === curve && (curve === "dls" || rangeDb === null) ? initial : undefined,
     placeholderData: (prev) => prev,

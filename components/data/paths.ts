@@ -63,6 +63,8 @@ export const paths = {
   layoutSuggest: (studioId: string) => `${studio(studioId)}/layouts/suggest`,
   layoutShare: (studioId: string, layoutId: string) => `${studio(studioId)}/layouts/${layoutId}/share`,
   sharedImport: (studioId: string) => `${studio(studioId)}/shared-layouts/import`,
+  /** A shared layout for anyone with the link (no account); add ?download=1 for the layout file. */
+  sharedLayout: (token: string) => `/api/shared/${token}`,
   // audits
   audits: (studioId: string, layoutId?: string) => `${studio(studioId)}/audits${query({ layoutId })}`,
   audit: (studioId: string, auditId: string) => `${studio(studioId)}/audits/${auditId}`,

@@ -10,6 +10,7 @@ import { AppError } from "@/lib/server/errors";
 import { can } from "@/lib/permissions";
 import { LayoutPreview } from "@/components/layout-editor/layout-preview";
 import { ImportShared } from "@/components/layout-editor/import-shared";
+import { paths } from "@/components/data/paths";
 
 export const metadata: Metadata = { title: "Shared layout", robots: { index: false } };
 export const dynamic = "force-dynamic";
@@ -43,7 +44,7 @@ export default async function SharedLayoutPage({ params }: { params: Promise<{ t
       <section className="card flex flex-wrap items-start justify-between gap-4">
         <div className="space-y-1">
           <h2>Use it</h2>
-          <p className="text-sm"><a href={`/api/shared/${token}?download=1`} download data-testid="shared-download">Download the layout file</a> (kitwright.layout/v1), or copy it into one of your studios.</p>
+          <p className="text-sm"><a href={`${paths.sharedLayout(token)}?download=1`} download data-testid="shared-download">Download the layout file</a> (kitwright.layout/v1), or copy it into one of your studios.</p>
         </div>
         {user ? <ImportShared token={token} studios={studios} /> : <p className="text-sm"><Link href={`/sign-in?callbackUrl=${encodeURIComponent(`/shared/${token}`)}`}>Sign in</Link> to copy it into your studio.</p>}
       </section>
