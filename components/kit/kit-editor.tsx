@@ -67,7 +67,7 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
   return (
     <div className="space-y-4">
       {instruments.length === 0 && (
-        <Message kind="info">This studio has no catalogued instruments yet. Upload samples to a library; once they are measured and sorted, their instruments appear here.</Message>
+        <Message kind="info">This studio has no catalogued instruments yet. Upload samples to a library; once they are measured and catalogued, their instruments appear here.</Message>
       )}
       <div className="hidden grid-cols-[2rem_1fr_9rem_2fr_auto] gap-2 px-3 text-xs font-medium text-muted md:grid" aria-hidden><span>#</span><span>Slot</span><span>Expects</span><span>Instrument (family · library · samples)</span><span /></div>
       <ol className="card p-0" data-testid="kit-slots">

@@ -12,6 +12,7 @@ import { SampleDetail } from "./sample-detail";
 import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
 import { MIC_POSITIONS } from "@/lib/catalogue/names";
 import type { RelabelBody, SampleRow } from "@/lib/api-types/samples";
+import { SAMPLE_STATES } from "@/lib/validation/library";
 
 type Inst = { key: string; name: string; family: string };
 
@@ -119,7 +120,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
         </div>
         <Select id="f-family" label="Family" value={sp.get("family")} options={FAMILIES} onChange={(v) => setParams({ family: v })} />
         <Select id="f-art" label="Articulation" value={sp.get("articulation")} options={ARTICULATIONS} onChange={(v) => setParams({ articulation: v })} />
-        <Select id="f-state" label="State" value={sp.get("state")} options={["queued", "measuring", "catalogued", "rejected"]} onChange={(v) => setParams({ state: v })} />
+        <Select id="f-state" label="State" value={sp.get("state")} options={SAMPLE_STATES} onChange={(v) => setParams({ state: v })} />
         <Select id="f-inst" label="Instrument" value={sp.get("instrument")} options={instruments.map((i) => i.key)} labels={Object.fromEntries(instruments.map((i) => [i.key, i.name]))} onChange={(v) => setParams({ instrument: v })} />
         <label className="flex items-center gap-2 pb-2"><input type="checkbox" checked={sp.get("flag") === "conflict"} onChange={(e) => setParams({ flag: e.target.checked ? "conflict" : null })} /> Only flagged for review</label>
       </div>

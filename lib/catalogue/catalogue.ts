@@ -1,6 +1,6 @@
 // The whole sorted catalogue of a set of measured samples: per sample its family, articulation (with label
 // sources), instrument, mic, velocity layer and round robin; the instruments; the layer groups; the health
-// findings. Called by the CLI (`kitwright catalogue`, `kitwright audit`) and by the server's regroup worker, so
+// findings. Called by the CLI (`kitwright catalogue`, `kitwright audit`) and by the server's cataloguing job, so
 // both give the same answers for the same files. Pure.
 
 import type { Measurement } from "../audio/types";

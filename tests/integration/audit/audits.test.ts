@@ -1,4 +1,4 @@
-// Audits over the API: run on catalogue rows written like the regroup job writes them, exact outcomes,
+// Audits over the API: run on catalogue rows written like the cataloguing job writes them, exact outcomes,
 // the saved audit re-read, comparison after new samples arrive, exports, roles and studio isolation.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { parseMidi } from "midi-file";

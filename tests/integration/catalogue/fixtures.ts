@@ -72,7 +72,7 @@ export async function waitForReady(log: string[], timeoutMs = 30_000): Promise<v
 
 export async function stateCounts(libraryId: string): Promise<Record<string, number>> {
   const rows = await db()("samples").where({ library_id: libraryId }).groupBy("state").select("state").count({ n: "*" });
-  const out: Record<string, number> = { queued: 0, measuring: 0, catalogued: 0, rejected: 0 };
+  const out: Record<string, number> = { queued: 0, measuring: 0, measured: 0, catalogued: 0, rejected: 0 };
   for (const r of rows as { state: string; n: number }[]) out[r.state] = Number(r.n);
   return out;
 }
