@@ -376,6 +376,34 @@ describe("measuring, browsing, listening, labelling", () => {
   });
 });
 
+describe("sample states", () => {
+  it("a measured sample is `measured` until the cataloguing places it; only then `catalogued`, and the progress says so", async () => {
+    const lib = await call(libsRoute.POST, { params: { studioId: ctx.studio.id }, body: { name: uniq("States") }, user: ctx.users.editor });
+    const libId = lib.json.id as string;
+    const up = await upload([{ name: "Tom/tom_hi_v1.wav", data: hitWav(71, { freq: 180 }) }, { name: "Tom/tom_hi_v2.wav", data: hitWav(72, { freq: 180, gain: 0.5 }) }], ctx.users.editor, libId);
+    expect(up.status).toBe(201);
+    const rows = await db()("samples").where({ library_id: libId }).select("id", "studio_id");
+    const outs = [];
+    for (const r of rows) outs.push(await measureSample({ sampleId: r.id, studioId: r.studio_id }, async (b) => measureWav(b)));
+    expect(outs).toEqual(["measured", "measured"]);
+    const measured = await db()("samples").where({ library_id: libId }).select("state", "instrument_key", "measurement");
+    for (const m of measured) {
+      expect(m).toMatchObject({ state: "measured", instrument_key: null });
+      expect(m.measurement).toBeTruthy();
+    }
+    const before = await call(progressRoute.GET, { params: { studioId: ctx.studio.id, libraryId: libId }, user: ctx.users.viewer });
+    expect(before.json).toMatchObject({ queued: 0, measuring: 0, measured: 2, catalogued: 0, pending: 0, cataloguing: true, total: 2 });
+    const filtered = await call(samplesRoute.GET, { params: { studioId: ctx.studio.id, libraryId: libId }, path: "/x?state=measured", user: ctx.users.viewer });
+    expect(filtered.json.total).toBe(2);
+
+    expect(await catalogueLibrary({ studioId: ctx.studio.id, libraryId: libId })).toMatchObject({ samples: 2, instruments: 1 });
+    const placed = await db()("samples").where({ library_id: libId }).select("state", "instrument_key", "family");
+    for (const p of placed) expect(p).toMatchObject({ state: "catalogued", instrument_key: expect.any(String), family: "tom" });
+    const after = await call(progressRoute.GET, { params: { studioId: ctx.studio.id, libraryId: libId }, user: ctx.users.viewer });
+    expect(after.json).toMatchObject({ measured: 0, catalogued: 2, pending: 0, cataloguing: false, total: 2 });
+  });
+});
+
 describe("permissions", () => {
   it("viewers get 403 on every write; editors cannot delete libraries", async () => {
     const s = ctx.studio.id;
