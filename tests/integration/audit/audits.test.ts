@@ -6,7 +6,7 @@ import { db } from "@/lib/server/db";
 import { NextRequest } from "next/server";
 import { env } from "@/lib/server/env";
 import { call, makeStudioWithRoles, sessionCookie } from "../helpers";
-import { addLayerGroup, evenLayers, smallCatalogue } from "./factories";
+import { addLayerGroup, evenLayers, smallCatalogue } from "./helpers";
 import * as kitsRoute from "@/app/api/studios/[studioId]/kits/route";
 import * as layoutsRoute from "@/app/api/studios/[studioId]/layouts/route";
 import * as layoutRoute from "@/app/api/studios/[studioId]/layouts/[layoutId]/route";

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/lib/server/db";
 import { readStudioCatalogue } from "@/lib/server/kits/catalogue-for-audit";
 import { makeStudioWithRoles } from "../helpers";
-import { addInstrument, addLayerGroup, makeLibrary } from "./factories";
+import { addInstrument, addLayerGroup, makeLibrary } from "./helpers";
 
 let s: Awaited<ReturnType<typeof makeStudioWithRoles>>;
 

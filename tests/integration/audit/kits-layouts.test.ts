@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/lib/server/db";
 import { call, makeStudioWithRoles } from "../helpers";
-import { smallCatalogue } from "./factories";
+import { smallCatalogue } from "./helpers";
 import * as kitsRoute from "@/app/api/studios/[studioId]/kits/route";
 import * as kitRoute from "@/app/api/studios/[studioId]/kits/[kitId]/route";
 import * as kitCopy from "@/app/api/studios/[studioId]/kits/[kitId]/copy/route";

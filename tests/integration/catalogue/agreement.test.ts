@@ -19,7 +19,7 @@ import type { AuditResult, Kit } from "@/lib/audit/types";
 import { renderSound, type SoundSpec } from "@/lib/synth/drums";
 import { layerVelocity } from "@/lib/synth/scenario";
 import { encodeWav } from "@/lib/synth/wav";
-import { multipart, startWorker, waitFor, waitForReady } from "./fixtures";
+import { multipart, startWorker, waitFor, waitForReady } from "./helpers";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
 import * as progressRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/progress/route";

@@ -6,7 +6,7 @@ import { call, makeStudioWithRoles, uniq } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
 import { closeQueues } from "@/lib/server/jobs";
 import { storage } from "@/lib/server/storage";
-import { badHeaderWav, hitWav, multipart, notWav, rf64, startWorker, stateCounts, waitFor, waitForReady } from "./fixtures";
+import { badHeaderWav, hitWav, multipart, notWav, rf64, startWorker, stateCounts, waitFor, waitForReady } from "./helpers";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
 

@@ -8,7 +8,7 @@ import { db, closeDb } from "@/lib/server/db";
 import { countsFor } from "@/lib/server/catalogue/libraries";
 import { closeQueues } from "@/lib/server/jobs";
 import { up as lowerCaseIds } from "@/db/migrations/20261201_0011_ids_lower_case";
-import { hitWav, multipart } from "./fixtures";
+import { hitWav, multipart } from "./helpers";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";
 import * as libRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/route";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";

@@ -18,7 +18,7 @@ import { closeQueues, measureJobId, measureQueue } from "@/lib/server/jobs";
 import { measureSample } from "@/lib/server/catalogue/measure";
 import { catalogueLibrary } from "@/lib/server/catalogue/catalogue-library";
 import { measureWav } from "@/lib/audio";
-import { badHeaderWav, hitWav, multipart, notWav, rf64, zipOf } from "./fixtures";
+import { badHeaderWav, hitWav, multipart, notWav, rf64, zipOf } from "./helpers";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";
 import * as libRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/route";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";

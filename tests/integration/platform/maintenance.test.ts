@@ -17,7 +17,7 @@ import { redis } from "@/lib/server/redis";
 import { MEASURE_VERSION } from "@/lib/audio/version";
 import { measureWav } from "@/lib/audio";
 import { measureSample } from "@/lib/server/catalogue/measure";
-import { hitWav } from "../catalogue/fixtures";
+import { hitWav } from "../catalogue/helpers";
 import { makeStudioWithRoles, makeUser } from "../helpers";
 
 afterAll(async () => {

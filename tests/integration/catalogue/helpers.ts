@@ -1,4 +1,4 @@
-// Fixtures of the catalogue tests: small generated WAVs (RIFF/WAVE written by lib/audio's encoder), broken
+// Test helpers of the catalogue tests: small generated WAVs (RIFF/WAVE written by lib/audio's encoder), broken
 // files, multipart bodies, zip packs (stored or deflated, written by hand per the PKZIP APPNOTE 4.3 layout),
 // and a real worker process.
 import { spawn, type ChildProcess } from "node:child_process";
