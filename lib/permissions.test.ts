@@ -1,4 +1,4 @@
-// Roles as data: the table of DESIGN.md "Roles" (our own rule, no published source) and the words derived
+// Roles as data: the roles table of DEVELOPERS.md "Words" (our own rule, no published source) and the words derived
 // from it. Every expected sentence below is written out by hand from that table.
 import { describe, expect, it } from "vitest";
 import { can, isRole, KEPT_PERMISSION, listInWords, PERMISSIONS, ROLES, ROLE_PERMISSIONS, roleWithArticle, rolesByReach, rolesInWords, rolesWith, whoCan, CREATOR_ROLE } from "./permissions";

@@ -6,7 +6,7 @@ import { buildDefaultKit } from "./kits";
 import { getTemplate } from "./templates";
 import { testCatalogue } from "./test-catalogue";
 
-// Variable-length quantities: the table of the Standard MIDI File 1.0 specification (as in STANDARDS.md).
+// Variable-length quantities: the table of the Standard MIDI File 1.0 specification.
 const SMF_VLQ_TABLE: Array<[number, string]> = [
   [0x00, "00"],
   [0x40, "40"],

@@ -1,3 +1,4 @@
+// Over 300 lines: catalogueSamples, the one pipeline from measured samples to a catalogue, in order.
 // The whole sorted catalogue of a set of measured samples: per sample its family, articulation (with label
 // sources), instrument, mic, velocity layer and round robin; the instruments; the layer groups; the health
 // findings. Called by the CLI (`kitwright catalogue`, `kitwright audit`) and by the server's cataloguing job, so

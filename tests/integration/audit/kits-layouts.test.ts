@@ -36,7 +36,7 @@ describe("kits", () => {
     const slots = [
       { id: "snare", name: "Snare A", family: "snare", instrumentId: cat.snare },
       { id: "tom-1", name: "Tom 1", family: "tom", instrumentId: cat.tomHigh },
-      // a slot may hold an instrument of another family (DESIGN.md: the audit uses its own articulations)
+      // a slot may hold an instrument of another family (the audit uses its own articulations)
       { id: "perc", name: "Perc", family: "snare", instrumentId: cat.cowbell, standIns: { "half-edge": "hit" } },
     ];
     const c = await call(kitsRoute.POST, { params: P(), user: s.users.editor, body: { name: "Room kit", slots } });
