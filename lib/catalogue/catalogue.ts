@@ -113,16 +113,10 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
   const sorted = [...samples].sort((a, b) => a.path.localeCompare(b.path) || a.id.localeCompare(b.id));
 
   // 1. labels per sample
-  interface Work {
+  interface Work extends Pick<CatalogueEntry, "family" | "familySource" | "articulation" | "articulationSource" | "confidence" | "reasons"> {
     s: CatalogueSampleInput;
     n: NameInfo;
     snd: SoundSuggestion;
-    family: Family;
-    familySource: LabelSource;
-    articulation: Articulation;
-    articulationSource: LabelSource;
-    confidence: number;
-    reasons: string[];
     conflict: NameSoundConflict;
     mic: MicPosition | null;
   }

@@ -65,16 +65,21 @@ export const catalogueQueue = (): Queue => queue(CATALOGUE_QUEUE);
 /**
  * Names this code no longer uses, kept only to tidy Redis: the cataloguing queue was called "kw-regroup" (job
  * "regroup"), and the maintenance job "purge-expired". The worker calls retireRenamedJobs at start: it removes the
- * old maintenance schedule (a job of that name would fail every 10 minutes) and deletes the old queue with
- * whatever it still holds; what those jobs were to do is done anyway, since the maintenance queues the cataloguing
+ * old maintenance schedule and the job it has already queued (a job of that name would fail every 10 minutes)
+ * and deletes the old queue with whatever it still holds; what those jobs were to do is done anyway, since the maintenance queues the cataloguing
  * of every library changed since its catalogue (catalogue/maintenance.ts requeueStaleCatalogues).
  */
 const RETIRED = { queues: ["kw-regroup"], maintenanceSchedules: ["purge-expired"] } as const;
 
-/** Removes the queues and the schedule of the names above; returns how many jobs the old queues still held. */
+/** Removes the queues and the schedule of the names above; returns how many jobs of those names were waiting. */
 export async function retireRenamedJobs(): Promise<number> {
-  for (const id of RETIRED.maintenanceSchedules) await maintenanceQueue().removeJobScheduler(id);
   let dropped = 0;
+  for (const id of RETIRED.maintenanceSchedules) await maintenanceQueue().removeJobScheduler(id);
+  const waiting = await maintenanceQueue().getJobs(["waiting", "delayed", "prioritized", "wait"]);
+  for (const job of waiting.filter((j) => (RETIRED.maintenanceSchedules as readonly string[]).includes(j.name))) {
+    await job.remove();
+    dropped++;
+  }
   for (const name of RETIRED.queues) {
     const q = new Queue(name, { connection: redis() });
     try {

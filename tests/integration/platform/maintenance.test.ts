@@ -126,6 +126,8 @@ describe("maintenance", () => {
       expect(await retireRenamedJobs()).toBeGreaterThanOrEqual(1);
       expect(Object.values(await old.getJobCounts()).reduce((a, b) => a + b, 0)).toBe(0);
       expect(await maintenanceQueue().getJobScheduler("purge-expired")).toBeFalsy();
+      const left = await maintenanceQueue().getJobs(["waiting", "delayed", "prioritized", "wait", "active"]);
+      expect(left.filter((j) => j.name === "purge-expired")).toEqual([]);
       expect(await retireRenamedJobs()).toBe(0);
     } finally {
       await old.close();
