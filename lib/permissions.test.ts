@@ -4,7 +4,7 @@ import { describe, expect, it } from "vitest";
 import { can, isRole, KEPT_PERMISSION, listInWords, PERMISSIONS, ROLES, ROLE_PERMISSIONS, roleWithArticle, rolesByReach, rolesInWords, rolesWith, whoCan, CREATOR_ROLE } from "./permissions";
 
 describe("roles as data", () => {
-  it("holds DESIGN.md's table: viewers read, editors also write, owners also manage (deny by default)", () => {
+  it("holds the roles table: viewers read, editors also write, owners also manage (deny by default)", () => {
     expect(ROLES.filter((r) => can(r, "studio:read"))).toEqual(["owner", "editor", "viewer"]);
     expect(ROLES.filter((r) => can(r, "studio:write"))).toEqual(["owner", "editor"]);
     expect(ROLES.filter((r) => can(r, "studio:manage"))).toEqual(["owner"]);

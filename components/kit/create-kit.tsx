@@ -2,7 +2,7 @@
 // New kit: empty, or filled from the studio's catalogue for the slots a layout template expects.
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { FormError } from "@/components/form-bits";
+import { Field, FormError } from "@/components/form-bits";
 import { useCreateKit } from "@/components/data/kits";
 
 export const TEMPLATE_LABELS: Record<string, string> = {
@@ -24,10 +24,7 @@ export function CreateKitForm({ studioId }: { studioId: string }) {
       e.preventDefault();
       create.mutate({ name, ...(template ? { template } : {}) }, { onSuccess: (kit) => router.push(`/s/${studioId}/kits/${kit.id}`) });
     }}>
-      <div>
-        <label className="label" htmlFor="kit-name">Kit name</label>
-        <input id="kit-name" className="field" value={name} onChange={(e) => setName(e.target.value)} required maxLength={160} />
-      </div>
+      <Field label="Kit name" id="kit-name" value={name} onChange={(e) => setName(e.target.value)} required maxLength={160} />
       <div>
         <label className="label" htmlFor="kit-template">Slots</label>
         <select id="kit-template" className="field" value={template} onChange={(e) => setTemplate(e.target.value)}>

@@ -2,13 +2,13 @@
 // Library forms: create, rename and describe, delete (owners; the name typed again to confirm).
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { Field, FormError, Message, fieldErrors } from "../form-bits";
+import { Field, FormError, Message, useFieldCheck } from "../form-bits";
 import { useCreateLibrary, useDeleteLibrary, useUpdateLibrary } from "../data/libraries";
 import { createLibrarySchema, updateLibrarySchema, type VelocityCurveName } from "@/lib/validation/library";
 
 export function CreateLibraryForm({ studioId }: { studioId: string }) {
   const router = useRouter();
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const { fields, check } = useFieldCheck();
   const m = useCreateLibrary(studioId);
   return (
     <form
@@ -18,10 +18,9 @@ export function CreateLibraryForm({ studioId }: { studioId: string }) {
       onSubmit={(e) => {
         e.preventDefault();
         const fd = new FormData(e.currentTarget);
-        const parsed = createLibrarySchema.safeParse({ name: fd.get("name"), description: String(fd.get("description") ?? "") || undefined });
-        if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
-        setFields({});
-        m.mutate(parsed.data, {
+        const parsed = check(createLibrarySchema, { name: fd.get("name"), description: String(fd.get("description") ?? "") || undefined });
+        if (!parsed) return;
+        m.mutate(parsed, {
           onSuccess: (out) => {
             router.push(`/s/${studioId}/libraries/${out.id}`);
             router.refresh();
@@ -43,7 +42,7 @@ export function CreateLibraryForm({ studioId }: { studioId: string }) {
 
 export function LibrarySettings({ studioId, libraryId, name, description, velocityCurve, canDelete }: { studioId: string; libraryId: string; name: string; description: string | null; velocityCurve: VelocityCurveName; canDelete: boolean }) {
   const router = useRouter();
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const { fields, check } = useFieldCheck();
   const [confirm, setConfirm] = useState("");
   const save = useUpdateLibrary(studioId, libraryId);
   const del = useDeleteLibrary(studioId, libraryId);
@@ -62,10 +61,9 @@ export function LibrarySettings({ studioId, libraryId, name, description, veloci
         onSubmit={(e) => {
           e.preventDefault();
           const fd = new FormData(e.currentTarget);
-          const parsed = updateLibrarySchema.safeParse({ name: fd.get("name"), description: String(fd.get("description") ?? ""), velocityCurve: fd.get("velocityCurve") });
-          if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
-          setFields({});
-          save.mutate(parsed.data, { onSuccess: () => router.refresh() });
+          const parsed = check(updateLibrarySchema, { name: fd.get("name"), description: String(fd.get("description") ?? ""), velocityCurve: fd.get("velocityCurve") });
+          if (!parsed) return;
+          save.mutate(parsed, { onSuccess: () => router.refresh() });
         }}
       >
         <Field label="Name" name="name" defaultValue={name} maxLength={160} error={fields.name} />

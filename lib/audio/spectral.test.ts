@@ -53,7 +53,7 @@ describe("spectral features against meyda 5.6.3 on the same frames (general-purp
   }
 });
 
-describe("spectral features against handbook values (STANDARDS.md)", () => {
+describe("spectral features against handbook values (pure tone and white noise, computed)", () => {
   const an = new SpectralAnalyzer(N, fs);
   it("zero-crossing rate of a sine is 2f/fs crossings per sample (2f per second)", () => {
     const f = 1234.5;

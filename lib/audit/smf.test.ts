@@ -36,7 +36,7 @@ describe("variable-length quantities (SMF 1.0 spec table, all 12 rows)", () => {
 });
 
 describe("tempo and header (SMF 1.0)", () => {
-  it("120 bpm is 500000 us per quarter: bytes 07 A1 20 (SMF 1.0, STANDARDS.md)", () => {
+  it("120 bpm is 500000 us per quarter: bytes 07 A1 20 (Standard MIDI File 1.0 specification)", () => {
     expect(hex(tempoBytes(120))).toBe("07 A1 20");
     expect(hex(tempoBytes(60))).toBe("0F 42 40"); // 1 000 000 us (computed)
   });

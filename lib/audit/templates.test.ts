@@ -18,7 +18,7 @@ const gmTable = GM_TABLE_FROM_STANDARDS.split(",").map((s) => {
   return { note: Number(m[1]), name: m[2]! };
 });
 
-describe("General MIDI Level 1 percussion template (GM Level 1 key map, STANDARDS.md)", () => {
+describe("General MIDI Level 1 percussion template (MMA General MIDI Level 1 key map)", () => {
   it("the table has 47 entries, notes 35-81", () => {
     expect(gmTable).toHaveLength(47);
     expect(gmTable.map((e) => e.note)).toEqual(Array.from({ length: 47 }, (_, i) => 35 + i));
