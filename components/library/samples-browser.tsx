@@ -223,7 +223,7 @@ function BulkBar({ studioId, libraryId, selected, instruments, onDone, onSelectP
         <button type="button" className="btn-primary" disabled={!selected.length || none || relabel.isPending} onClick={doRelabel}>Relabel {selected.length || ""}</button>
         <button type="button" className="btn-quiet" disabled={!selected.length || confirm.isPending} onClick={doConfirm} title="Keep the current labels and mark them as confirmed by you">Confirm suggestions</button>
       </div>
-      {relabel.isSuccess && <Message kind="ok">{`Relabelled ${relabel.data.updated} samples; the catalogue is being re-sorted.`}</Message>}
+      {relabel.isSuccess && <Message kind="ok">{`Relabelled ${relabel.data.updated} samples; the library is being catalogued again.`}</Message>}
       {confirm.isSuccess && <Message kind="ok">{`Confirmed ${confirm.data.confirmed} samples${confirm.data.skipped ? ` (${confirm.data.skipped} not catalogued yet, skipped)` : ""}.`}</Message>}
       <FormError error={relabel.error ?? confirm.error} fallback={relabel.isError ? "Could not relabel." : "Could not confirm."} />
     </div>

@@ -320,7 +320,7 @@ export interface SuggestOptions {
   soundModel?: SoundModel | null;
   /**
    * A key that names this measurement for good (sample id + content hash + measure version): the model's answer
-   * is then kept, so a library sorted again and again (every cataloguing) asks the forests once per sample.
+   * is then kept, so a library catalogued again and again asks the forests once per sample.
    */
   cacheKey?: string;
 }
