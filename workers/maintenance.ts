@@ -31,6 +31,9 @@ export async function runMaintenance(): Promise<{ tokens: number; attempts: numb
  * sweep now and queues samples of an older MEASURE_VERSION.
  */
 export async function startMaintenance(connection: IORedis): Promise<Worker> {
+  // first, so no consumer takes a job of a retired name meanwhile
+  const retired = await retireRenamedJobs();
+  if (retired) console.log(`[worker] ${retired} job(s) of a retired name removed (their libraries are catalogued again by the sweep)`);
   const worker = new Worker(
     MAINTENANCE_QUEUE,
     async (job) => {
@@ -40,8 +43,6 @@ export async function startMaintenance(connection: IORedis): Promise<Worker> {
     { connection, concurrency: 1 },
   );
   worker.on("failed", (job, err) => console.error(`[worker] ${job?.name} failed: ${err.message}`));
-  const retired = await retireRenamedJobs();
-  if (retired) console.log(`[worker] ${retired} job(s) of a retired queue removed (their libraries are catalogued again by the sweep)`);
   await maintenanceQueue().upsertJobScheduler(JOBS.maintenance.name, { every: EVERY_MS }, { name: JOBS.maintenance.name, data: {} });
   runMaintenance()
     .then((m) => (m.partials || m.requeued || m.staleCatalogues) && console.log(`[worker] start-up sweep: ${m.partials} partial file(s) removed, ${m.requeued} stranded sample(s) queued again, ${m.staleCatalogues} library catalogue(s) queued again`))
