@@ -31,7 +31,7 @@ export function LibraryProgress({ studioId, libraryId, initial }: { studioId: st
         <h3 className="font-semibold">Measuring and cataloguing</h3>
         <span className="text-sm" data-testid="progress-status">{p.total === 0 ? "no samples yet" : p.pending > 0 ? `working: ${p.pending} to go` : p.cataloguing ? "Cataloguing into instruments and layers…" : "all catalogued"}</span>
       </div>
-      <div className="h-2 w-full overflow-hidden rounded bg-paper" role="progressbar" aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct} aria-label="Samples measured">
+      <div className="h-2 w-full overflow-hidden rounded bg-paper" role="progressbar" aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct} aria-label="Samples catalogued">
         <div className="h-full bg-brand transition-all" style={{ width: `${pct}%` }} />
       </div>
       <dl className="grid grid-cols-5 gap-2 text-sm">
