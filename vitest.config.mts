@@ -9,7 +9,7 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: "unit", include: ["lib/**/*.test.ts", "components/**/*.test.ts", "workers/**/*.test.ts", "scripts/**/*.test.ts", "cli/**/*.test.ts", "tests/layering.test.ts"], environment: "node", testTimeout: 30_000 },
+        test: { name: "unit", include: ["lib/**/*.test.ts", "components/**/*.test.ts", "workers/**/*.test.ts", "scripts/**/*.test.ts", "cli/**/*.test.ts", "tests/layering.test.ts", "tests/file-length.test.ts"], environment: "node", testTimeout: 30_000 },
       },
       {
         resolve: { alias },

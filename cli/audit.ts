@@ -54,7 +54,7 @@ function parseArgs(args: string[]): Options | "help" {
     };
     if (a === "--help" || a === "-h") return "help";
     else if (a === "--layout") o.layout = value();
-    else if (a === "--catalogue" || a === "--catalog") o.catalogue = value();
+    else if (a === "--catalogue") o.catalogue = value();
     else if (a === "--kit") o.kit = value();
     else if (toFile) o.files.push({ format: toFile, path: value() });
     else if (toStdout) {

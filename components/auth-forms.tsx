@@ -4,13 +4,13 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import Link from "next/link";
-import { Field, FormError, Message, errorText, fieldErrors } from "./form-bits";
+import { Field, FormError, Message, errorText, useFieldCheck } from "./form-bits";
 import { useRequestPasswordReset, useResendVerification, useResetPassword, useSignIn, useSignUp } from "./data/account";
 import { emailOnlySchema, resetConfirmSchema, signInSchema, signUpSchema } from "@/lib/validation/auth";
 
 export function SignInForm({ next, notice }: { next?: string; notice?: string }) {
   const router = useRouter();
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const { fields, check } = useFieldCheck();
   const [email, setEmail] = useState("");
   const signIn = useSignIn();
   const resend = useResendVerification();
@@ -18,10 +18,9 @@ export function SignInForm({ next, notice }: { next?: string; notice?: string })
   function onSubmit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = new FormData(e.currentTarget);
-    const parsed = signInSchema.safeParse({ email: form.get("email"), password: form.get("password") });
-    if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
-    setFields({});
-    signIn.mutate(parsed.data, {
+    const parsed = check(signInSchema, { email: form.get("email"), password: form.get("password") });
+    if (!parsed) return;
+    signIn.mutate(parsed, {
       onSuccess: () => {
         router.push(next && next.startsWith("/") && !next.startsWith("//") ? next : "/studios");
         router.refresh();
@@ -48,21 +47,20 @@ export function SignInForm({ next, notice }: { next?: string; notice?: string })
 
 export function SignUpForm({ invite, invitedEmail }: { invite?: string; invitedEmail?: string }) {
   const router = useRouter();
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const { fields, check } = useFieldCheck();
   const signUp = useSignUp();
   function onSubmit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = new FormData(e.currentTarget);
     const input = { name: form.get("name"), email: form.get("email"), password: form.get("password") };
-    const parsed = signUpSchema.safeParse(input);
-    if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
-    setFields({});
-    signUp.mutate({ ...parsed.data, ...(invite ? { invite } : {}) }, {
+    const parsed = check(signUpSchema, input);
+    if (!parsed) return;
+    signUp.mutate({ ...parsed, ...(invite ? { invite } : {}) }, {
       onSuccess: ({ studioId }) => {
         if (studioId) {
           router.push(`/s/${studioId}`);
           router.refresh();
-        } else router.push(`/check-mail?email=${encodeURIComponent(parsed.data.email)}`);
+        } else router.push(`/check-mail?email=${encodeURIComponent(parsed.email)}`);
       },
     });
   }
@@ -80,14 +78,13 @@ export function SignUpForm({ invite, invitedEmail }: { invite?: string; invitedE
 }
 
 export function ForgotForm() {
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const { fields, check } = useFieldCheck();
   const request = useRequestPasswordReset();
   function onSubmit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
-    const parsed = emailOnlySchema.safeParse({ email: new FormData(e.currentTarget).get("email") });
-    if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
-    setFields({});
-    request.mutate(parsed.data);
+    const parsed = check(emailOnlySchema, { email: new FormData(e.currentTarget).get("email") });
+    if (!parsed) return;
+    request.mutate(parsed);
   }
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate>
@@ -104,14 +101,13 @@ export function ForgotForm() {
 
 export function ResetForm({ token }: { token: string }) {
   const router = useRouter();
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const { fields, check } = useFieldCheck();
   const reset = useResetPassword();
   function onSubmit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
-    const parsed = resetConfirmSchema.safeParse({ token, password: new FormData(e.currentTarget).get("password") });
-    if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
-    setFields({});
-    reset.mutate(parsed.data, { onSuccess: () => router.push("/sign-in?notice=password-reset") });
+    const parsed = check(resetConfirmSchema, { token, password: new FormData(e.currentTarget).get("password") });
+    if (!parsed) return;
+    reset.mutate(parsed, { onSuccess: () => router.push("/sign-in?notice=password-reset") });
   }
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate>

@@ -1,8 +1,10 @@
 "use client";
 // Small form building blocks shared by every form: a labelled field, a message line, and the one way a form
 // shows a write that failed. Every write is a mutation hook of components/data: the form disables its button
-// while `m.isPending` and shows `<FormError error={m.error} />` (nothing when there is no error).
-import type { InputHTMLAttributes } from "react";
+// while `m.isPending` and shows `<FormError error={m.error} />` (nothing when there is no error); its fields are
+// checked first with the shared zod schema through `useFieldCheck`.
+import { useCallback, useState, type InputHTMLAttributes } from "react";
+import type { z } from "zod";
 import { ApiError } from "./data/api";
 
 export function Field({ label, hint, error, ...input }: InputHTMLAttributes<HTMLInputElement> & { label: string; hint?: string; error?: string }) {
@@ -34,6 +36,20 @@ export function fieldErrors(issues: { path: PropertyKey[]; message: string }[]):
     if (!(k in out)) out[k] = i.message;
   }
   return out;
+}
+
+/**
+ * A form's check with its shared zod schema: `check(schema, values)` returns the parsed values, or null after
+ * setting `fields` to each field's first message (cleared on the next good check).
+ */
+export function useFieldCheck() {
+  const [fields, setFields] = useState<Record<string, string>>({});
+  const check = useCallback(<S extends z.ZodType>(schema: S, values: unknown): z.output<S> | null => {
+    const parsed = schema.safeParse(values);
+    setFields(parsed.success ? {} : fieldErrors(parsed.error.issues));
+    return parsed.success ? parsed.data : null;
+  }, []);
+  return { fields, check };
 }
 
 /** The words for a failed write: the server's message, or `fallback` when no answer came (network, crash). */

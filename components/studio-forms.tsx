@@ -3,33 +3,39 @@
 // accept invitations. Each validates with the shared zod schema, calls the API, then refreshes the page.
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { Field, FormError, Message, errorText, fieldErrors } from "./form-bits";
+import { Field, FormError, Message, errorText, useFieldCheck } from "./form-bits";
 import { useCreateStudio, useRenameStudio } from "./data/studios";
 import { useAcceptInvitation, useInvite, useRevokeInvitation } from "./data/invitations";
 import { useChangeRole, useRemoveMember } from "./data/members";
 import { inviteSchema, studioNameSchema } from "@/lib/validation/studio";
 import { DEFAULT_INVITE_ROLE, ROLES, rolesInWords, type Role } from "@/lib/permissions";
+import type { StudioNameBody } from "@/lib/api-types/studios";
+
+/** A studio name form's submit: the name, once the shared schema accepts it, goes to `send`. */
+function onStudioName(check: ReturnType<typeof useFieldCheck>["check"], send: (body: StudioNameBody) => void) {
+  return (e: React.FormEvent<HTMLFormElement>) => {
+    e.preventDefault();
+    const body = check(studioNameSchema, { name: new FormData(e.currentTarget).get("name") });
+    if (body) send(body);
+  };
+}
 
 export function CreateStudioForm() {
   const router = useRouter();
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const { fields, check } = useFieldCheck();
   const m = useCreateStudio();
   return (
     <form
       className="space-y-3"
       noValidate
-      onSubmit={(e) => {
-        e.preventDefault();
-        const parsed = studioNameSchema.safeParse({ name: new FormData(e.currentTarget).get("name") });
-        if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
-        setFields({});
-        m.mutate(parsed.data, {
+      onSubmit={onStudioName(check, (body) =>
+        m.mutate(body, {
           onSuccess: (out) => {
             router.push(`/s/${out.id}`);
             router.refresh();
           },
-        });
-      }}
+        }),
+      )}
     >
       <h2>New studio</h2>
       <Field label="Studio name" name="name" required maxLength={120} error={fields.name} />
@@ -41,19 +47,13 @@ export function CreateStudioForm() {
 
 export function RenameStudioForm({ studioId, name }: { studioId: string; name: string }) {
   const router = useRouter();
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const { fields, check } = useFieldCheck();
   const m = useRenameStudio(studioId);
   return (
     <form
       className="flex items-end gap-2"
       noValidate
-      onSubmit={(e) => {
-        e.preventDefault();
-        const parsed = studioNameSchema.safeParse({ name: new FormData(e.currentTarget).get("name") });
-        if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
-        setFields({});
-        m.mutate(parsed.data, { onSuccess: () => router.refresh() });
-      }}
+      onSubmit={onStudioName(check, (body) => m.mutate(body, { onSuccess: () => router.refresh() }))}
     >
       <div className="flex-1"><Field label="Studio name" name="name" defaultValue={name} error={fields.name ?? (m.isError ? errorText(m.error) : undefined)} /></div>
       <button className="btn-quiet" disabled={m.isPending}>{m.isSuccess ? "Saved" : "Rename"}</button>
@@ -63,7 +63,7 @@ export function RenameStudioForm({ studioId, name }: { studioId: string; name: s
 
 export function InviteForm({ studioId }: { studioId: string }) {
   const router = useRouter();
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const { fields, check } = useFieldCheck();
   const [sentTo, setSentTo] = useState<string | null>(null);
   const m = useInvite(studioId);
   return (
@@ -73,11 +73,10 @@ export function InviteForm({ studioId }: { studioId: string }) {
       onSubmit={(e) => {
         e.preventDefault();
         const f = new FormData(e.currentTarget);
-        const parsed = inviteSchema.safeParse({ email: f.get("email"), role: f.get("role") });
-        if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
-        setFields({});
+        const parsed = check(inviteSchema, { email: f.get("email"), role: f.get("role") });
+        if (!parsed) return;
         setSentTo(null);
-        m.mutate(parsed.data, {
+        m.mutate(parsed, {
           onSuccess: (_d, v) => {
             setSentTo(v.email);
             router.refresh();

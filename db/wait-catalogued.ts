@@ -1,6 +1,6 @@
-// Waits until no sample of the demo studio is queued or being measured, printing progress; gives up after
-// --timeout seconds (default 600) without failing, so the demo still starts. Used by scripts/demo.sh
-// between the demo library seed and the demo kits seed.
+// Waits until no sample of the demo studio is queued, being measured or waiting for the cataloguing, printing
+// progress; gives up after --timeout seconds (default 600) without failing, so the demo still starts. Used by
+// scripts/demo.sh between the demo library seed and the demo kits seed.
 import knexFactory from "knex";
 import config from "../knexfile";
 import { DEMO_STUDIO } from "./demo-accounts";
@@ -18,13 +18,13 @@ async function main() {
       const rows = (await k("samples").where({ studio_id: studio.id }).groupBy("state").select("state").count({ n: "*" })) as { state: string; n: number | string }[];
       const c = Object.fromEntries(rows.map((r) => [r.state, Number(r.n)]));
       const total = rows.reduce((s, r) => s + Number(r.n), 0);
-      const waiting = (c.queued ?? 0) + (c.measuring ?? 0);
+      const waiting = (c.queued ?? 0) + (c.measuring ?? 0) + (c.measured ?? 0);
       const line = `demo library: ${c.catalogued ?? 0} catalogued, ${c.rejected ?? 0} refused, ${waiting} waiting of ${total}`;
       if (line !== last) process.stdout.write(`${line}\n`);
       last = line;
       if (waiting === 0) return;
       if (Date.now() > end) {
-        process.stdout.write(`still measuring after ${timeoutS} s; the worker goes on in the background\n`);
+        process.stdout.write(`still measuring or cataloguing after ${timeoutS} s; the worker goes on in the background\n`);
         return;
       }
       await new Promise((r) => setTimeout(r, 2000));

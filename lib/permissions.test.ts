@@ -1,10 +1,10 @@
-// Roles as data: the table of DESIGN.md "Roles" (our own rule, no published source) and the words derived
+// Roles as data: the roles table of DEVELOPERS.md "Words" (our own rule, no published source) and the words derived
 // from it. Every expected sentence below is written out by hand from that table.
 import { describe, expect, it } from "vitest";
 import { can, cappedRole, isRole, roleWithin, KEPT_PERMISSION, listInWords, PERMISSIONS, ROLES, ROLE_PERMISSIONS, roleWithArticle, rolesByReach, rolesInWords, rolesWith, whoCan, CREATOR_ROLE } from "./permissions";
 
 describe("roles as data", () => {
-  it("holds DESIGN.md's table: viewers read, editors also write, owners also manage (deny by default)", () => {
+  it("holds the roles table: viewers read, editors also write, owners also manage (deny by default)", () => {
     expect(ROLES.filter((r) => can(r, "studio:read"))).toEqual(["owner", "editor", "viewer"]);
     expect(ROLES.filter((r) => can(r, "studio:write"))).toEqual(["owner", "editor"]);
     expect(ROLES.filter((r) => can(r, "studio:manage"))).toEqual(["owner"]);

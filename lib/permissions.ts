@@ -1,4 +1,4 @@
-// Roles as data (DESIGN.md "Roles"): the permission list, which role holds which, the studio rules that follow
+// Roles as data (DEVELOPERS.md "Words"): the permission list, which role holds which, the studio rules that follow
 // from them, and the words people read about them. Deny by default. Pure and shared: the server checks these,
 // the UI reads them to hide what a role cannot do and to explain roles. The one source of roles: the database's
 // role columns are checked against ROLES (tests/integration/platform/roles-schema.test.ts), db/factories.ts

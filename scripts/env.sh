@@ -32,6 +32,16 @@ kw_start_services() {
   start_smtp_fake "$KW_STATE" "$KW_RUN" "$SMTP_PORT"
 }
 
+# The test profile with its services up and its database created and migrated, run from the repository root
+# (with-test-env.sh, load.sh).
+kw_test_env_up() {
+  kw_profile test
+  cd "$KW_ROOT"
+  kw_start_services
+  create_database "$KW_RUN" "$KW_DB_NAME"
+  node --import tsx db/migrate.ts >/dev/null
+}
+
 kw_stop_all() {
   stop_pidfile "$KW_RUN/app.pid"
   stop_pidfile "$KW_RUN/worker.pid"

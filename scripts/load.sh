@@ -7,11 +7,7 @@
 # Options are passed to the driver: bash scripts/load.sh --seconds 60 --rate 200 --uploaders 50
 source "$(dirname "$0")/lib.sh"
 source "$(dirname "$0")/env.sh"
-kw_profile test
-cd "$KW_ROOT"
-kw_start_services
-create_database "$KW_RUN" "$KW_DB_NAME"
-node --import tsx db/migrate.ts >/dev/null
+kw_test_env_up
 
 PORT="${KW_LOAD_PORT:-3500}"
 export KW_APP_URL="http://127.0.0.1:$PORT" NEXTAUTH_URL="http://127.0.0.1:$PORT"

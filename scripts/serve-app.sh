@@ -5,9 +5,8 @@
 #
 # --heap-growing-percent=100: V8 lets the old generation grow at most to twice what the last full collection
 # kept (its own rule allows up to four times while collections are cheap). A long upload turns thousands of
-# short-lived stream objects into old garbage; with V8's rule a 2 GB upload left 95-129 MB of it uncollected
-# in this server, with this one 62-73 MB, at the same speed and with a handful of extra full collections
-# (bench/RESULTS.md, finding 8).
+# short-lived stream objects into old garbage; this rule leaves much less of it uncollected, at the same speed
+# and with a handful of extra full collections (bench/RESULTS.md, finding 8).
 set -euo pipefail
 cd "$(dirname "$0")/.."
 # shellcheck disable=SC2086 # KW_APP_NODE_FLAGS is a list of flags

@@ -4,9 +4,5 @@
 # The database is migrated but not wiped; tests create their own data. Stop with `bash scripts/stop.sh test`.
 source "$(dirname "$0")/lib.sh"
 source "$(dirname "$0")/env.sh"
-kw_profile test
-cd "$KW_ROOT"
-kw_start_services
-create_database "$KW_RUN" "$KW_DB_NAME"
-node --import tsx db/migrate.ts >/dev/null
+kw_test_env_up
 "$@"

@@ -3,16 +3,16 @@
 // Only wiring: the queues, the Redis connection and the jobs' work live in lib/server, the measuring in
 // lib/audio (measureWav) on the thread pool of lib/audio-pool, the maintenance schedule in ./maintenance.ts.
 // Measure jobs run one per core (concurrency = os.availableParallelism()) on the pool's threads, so the event
-// loop stays free for lock renewals; regroups run one at a time per process (they lock their library).
+// loop stays free for lock renewals; cataloguings run one at a time per process (they lock their library).
 import os from "node:os";
 import { Worker, type Job } from "bullmq";
 import { MeasurePool } from "@/lib/audio-pool/pool";
 import { env } from "@/lib/server/env";
 import { closeDb } from "@/lib/server/db";
 import { redis } from "@/lib/server/redis";
-import { closeQueues, MEASURE_QUEUE, REGROUP_QUEUE, type MeasureJobData, type RegroupJobData } from "@/lib/server/jobs";
+import { closeQueues, MEASURE_QUEUE, CATALOGUE_QUEUE, type MeasureJobData, type CatalogueJobData } from "@/lib/server/jobs";
 import { measureSample, rejectSample, RetryableMeasureError } from "@/lib/server/catalogue/measure";
-import { runRegroupJob } from "@/lib/server/catalogue/regroup";
+import { runCataloguingJob } from "@/lib/server/catalogue/catalogue-library";
 import { startMaintenance } from "./maintenance";
 
 async function main() {
@@ -43,15 +43,15 @@ async function main() {
 
   // a job whose worker died (its lock ran out) is back in the queue: said once per job, for the operator
   measure.on("stalled", (jobId) => console.warn(`[worker] measure job ${jobId} stalled (its worker stopped); queued again`));
-  const regroup = new Worker<RegroupJobData>(REGROUP_QUEUE, (job: Job<RegroupJobData>) => runRegroupJob(job.data), { connection, concurrency: 1, ...lockOpts, lockDuration: 60_000 });
-  regroup.on("failed", (job, err) => console.error(`[worker] regroup ${job?.data.libraryId} failed: ${err.message}`));
-  regroup.on("stalled", (jobId) => console.warn(`[worker] regroup job ${jobId} stalled (its worker stopped); queued again`));
+  const cataloguing = new Worker<CatalogueJobData>(CATALOGUE_QUEUE, (job: Job<CatalogueJobData>) => runCataloguingJob(job.data), { connection, concurrency: 1, ...lockOpts, lockDuration: 60_000 });
+  cataloguing.on("failed", (job, err) => console.error(`[worker] cataloguing ${job?.data.libraryId} failed: ${err.message}`));
+  cataloguing.on("stalled", (jobId) => console.warn(`[worker] cataloguing job ${jobId} stalled (its worker stopped); queued again`));
 
   const maintenance = await startMaintenance(connection);
   console.log(`[worker] ready on ${env().KW_REDIS_URL}: measuring ${cores} at a time on ${pool.size} thread(s)`);
 
   const stop = async () => {
-    await Promise.all([maintenance.close(), measure.close(), regroup.close()]);
+    await Promise.all([maintenance.close(), measure.close(), cataloguing.close()]);
     await closeQueues();
     await pool.close();
     await closeDb();

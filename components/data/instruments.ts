@@ -1,4 +1,4 @@
-// Instruments of a library: the list, renaming one (kept across sorting), merging several into one. Query keys,
+// Instruments of a library: the list, renaming one (kept across cataloguings), merging several into one. Query keys,
 // queries and mutations; components call these hooks.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { api } from "./api";

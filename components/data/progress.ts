@@ -1,5 +1,5 @@
 // Progress of a library: counts per sample state, polled every 1.5 s while samples are queued or measuring, or
-// while the catalogue is being sorted again after a change. Query keys and the query; components call it.
+// while the library is being catalogued after a change. Query keys and the query; components call it.
 import { useCallback } from "react";
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { api } from "./api";
@@ -15,7 +15,7 @@ export function useProgress(studioId: string, libraryId: string, initial?: Libra
     queryKey: progressKeys.library(libraryId),
     queryFn: () => api<LibraryProgress>(paths.libraryProgress(studioId, libraryId)),
     initialData: initial,
-    refetchInterval: (q) => ((q.state.data?.pending ?? 1) > 0 || (q.state.data?.sorting ?? true) ? 1500 : false),
+    refetchInterval: (q) => ((q.state.data?.pending ?? 1) > 0 || (q.state.data?.cataloguing ?? true) ? 1500 : false),
   });
 }
 

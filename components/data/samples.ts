@@ -38,7 +38,7 @@ export function useRefreshSamples(libraryId: string) {
   return useCallback(() => void qc.invalidateQueries({ queryKey: sampleKeys.library(libraryId) }), [qc, libraryId]);
 }
 
-/** After labels change the library is sorted again: pages are read now and once more 3 s later. */
+/** After labels change the library is catalogued again: pages are read now and once more 3 s later. */
 function useRefreshAfterLabels(libraryId: string) {
   const refresh = useRefreshSamples(libraryId);
   return useCallback(() => {

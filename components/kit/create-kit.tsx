@@ -2,7 +2,7 @@
 // New kit: empty, or filled for a kit template's slots from one library's instruments (or every library's).
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { FormError } from "@/components/form-bits";
+import { Field, FormError } from "@/components/form-bits";
 import { useCreateKit } from "@/components/data/kits";
 import { expectedSlots } from "@/lib/audit/kits";
 import { getTemplate } from "@/lib/audit/templates";
@@ -37,10 +37,7 @@ export function CreateKitForm({ studioId, libraries, library }: { studioId: stri
       e.preventDefault();
       create.mutate({ name, ...(template ? { template, ...(libraryId ? { libraryId } : {}) } : {}) }, { onSuccess: (kit) => router.push(`/s/${studioId}/kits/${kit.id}`) });
     }}>
-      <div>
-        <label className="label" htmlFor="kit-name">Kit name</label>
-        <input id="kit-name" className="field" value={name} onChange={(e) => setName(e.target.value)} required maxLength={160} placeholder="Studio A kit" />
-      </div>
+      <Field label="Kit name" id="kit-name" value={name} onChange={(e) => setName(e.target.value)} required maxLength={160} placeholder="Studio A kit" />
       <div>
         <label className="label" htmlFor="kit-template">Kit template</label>
         <select id="kit-template" className="field" value={template} onChange={(e) => setTemplate(e.target.value)} aria-describedby="kit-template-hint">

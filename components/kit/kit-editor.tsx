@@ -92,7 +92,7 @@ function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; i
   return (
     <div className="space-y-4">
       {instruments.length === 0 && (
-        <Message kind="info">This studio has no catalogued instruments yet. Upload samples to a library; once they are measured and sorted, their instruments appear here.</Message>
+        <Message kind="info">This studio has no catalogued instruments yet. Upload samples to a library; once they are measured and catalogued, their instruments appear here.</Message>
       )}
       {libraries.length > 1 && (
         <div className="flex flex-wrap items-center gap-2 text-sm">

@@ -2,7 +2,7 @@
 // New layout: a blank grid (rows × columns, up to 64 pads), a blank trigger-zone list, or a template.
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { FormError } from "@/components/form-bits";
+import { Field, FormError } from "@/components/form-bits";
 import { useCreateLayout } from "@/components/data/layouts";
 import { TEMPLATE_LABELS } from "@/components/kit/create-kit";
 
@@ -23,10 +23,7 @@ export function CreateLayoutForm({ studioId }: { studioId: string }) {
       const body = kind === "grid" ? { name, grid: { rows, cols } } : kind === "zones" ? { name, zones } : { name, template: kind };
       create.mutate(body, { onSuccess: (layout) => router.push(`/s/${studioId}/layouts/${layout.id}`) });
     }}>
-      <div>
-        <label className="label" htmlFor="layout-name">Layout name</label>
-        <input id="layout-name" className="field" value={name} onChange={(e) => setName(e.target.value)} required maxLength={160} />
-      </div>
+      <Field label="Layout name" id="layout-name" value={name} onChange={(e) => setName(e.target.value)} required maxLength={160} />
       <div>
         <label className="label" htmlFor="layout-kind">Start from</label>
         <select id="layout-kind" className="field" value={kind} onChange={(e) => setKind(e.target.value)}>

@@ -1,5 +1,5 @@
 "use client";
-// Instruments of a library: rename (kept across re-sorting) and merge several into one.
+// Instruments of a library: rename (kept when the library is catalogued again) and merge several into one.
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { FormError, Message } from "../form-bits";
@@ -35,7 +35,7 @@ export function InstrumentsList({ studioId, libraryId, instruments, canWrite }: 
             </select>
           </div>
           <button type="button" className="btn-primary" disabled={picked.size < 2 || !target || merge.isPending} onClick={mergePicked}>Merge</button>
-          {merge.isSuccess && <Message kind="ok">{`Moved ${merge.data.moved} samples; the catalogue is being re-sorted.`}</Message>}
+          {merge.isSuccess && <Message kind="ok">{`Moved ${merge.data.moved} samples; the library is being catalogued again.`}</Message>}
           <FormError error={merge.error} fallback="Could not merge." />
         </div>
       )}

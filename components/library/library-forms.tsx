@@ -2,14 +2,14 @@
 // Library forms: create, rename and describe, delete (owners; the name typed again to confirm).
 import { useState } from "react";
 import { useRouter } from "next/navigation";
-import { Field, FormError, Message, fieldErrors } from "../form-bits";
+import { Field, FormError, Message, useFieldCheck } from "../form-bits";
 import { useCreateLibrary, useDeleteLibrary, useUpdateLibrary } from "../data/libraries";
 import { createLibrarySchema, updateLibrarySchema, type VelocityCurveName } from "@/lib/validation/library";
 import { VELOCITY_CURVE_WORDS } from "./curve-words";
 
 export function CreateLibraryForm({ studioId }: { studioId: string }) {
   const router = useRouter();
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const { fields, check } = useFieldCheck();
   const m = useCreateLibrary(studioId);
   return (
     <form
@@ -19,10 +19,9 @@ export function CreateLibraryForm({ studioId }: { studioId: string }) {
       onSubmit={(e) => {
         e.preventDefault();
         const fd = new FormData(e.currentTarget);
-        const parsed = createLibrarySchema.safeParse({ name: fd.get("name"), description: String(fd.get("description") ?? "") || undefined });
-        if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
-        setFields({});
-        m.mutate(parsed.data, {
+        const parsed = check(createLibrarySchema, { name: fd.get("name"), description: String(fd.get("description") ?? "") || undefined });
+        if (!parsed) return;
+        m.mutate(parsed, {
           onSuccess: (out) => {
             router.push(`/s/${studioId}/libraries/${out.id}`);
             router.refresh();
@@ -44,7 +43,7 @@ export function CreateLibraryForm({ studioId }: { studioId: string }) {
 
 export function LibrarySettings({ studioId, libraryId, name, description, velocityCurve, canDelete }: { studioId: string; libraryId: string; name: string; description: string | null; velocityCurve: VelocityCurveName; canDelete: boolean }) {
   const router = useRouter();
-  const [fields, setFields] = useState<Record<string, string>>({});
+  const { fields, check } = useFieldCheck();
   const [confirm, setConfirm] = useState("");
   const save = useUpdateLibrary(studioId, libraryId);
   const del = useDeleteLibrary(studioId, libraryId);
@@ -63,10 +62,9 @@ export function LibrarySettings({ studioId, libraryId, name, description, veloci
         onSubmit={(e) => {
           e.preventDefault();
           const fd = new FormData(e.currentTarget);
-          const parsed = updateLibrarySchema.safeParse({ name: fd.get("name"), description: String(fd.get("description") ?? ""), velocityCurve: fd.get("velocityCurve") });
-          if (!parsed.success) return setFields(fieldErrors(parsed.error.issues));
-          setFields({});
-          save.mutate(parsed.data, { onSuccess: () => router.refresh() });
+          const parsed = check(updateLibrarySchema, { name: fd.get("name"), description: String(fd.get("description") ?? ""), velocityCurve: fd.get("velocityCurve") });
+          if (!parsed) return;
+          save.mutate(parsed, { onSuccess: () => router.refresh() });
         }}
       >
         <Field label="Name" name="name" defaultValue={name} maxLength={160} error={fields.name} />

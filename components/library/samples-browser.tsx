@@ -13,6 +13,7 @@ import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
 import { MIC_POSITIONS } from "@/lib/catalogue/names";
 import { formatConfidence } from "@/lib/catalogue/confidence";
 import type { RelabelBody, SampleRow } from "@/lib/api-types/samples";
+import { SAMPLE_STATES } from "@/lib/validation/library";
 
 type Inst = { key: string; name: string; family: string };
 
@@ -127,7 +128,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
         </div>
         <Select id="f-family" label="Family" value={sp.get("family")} options={FAMILIES} onChange={(v) => setParams({ family: v })} />
         <Select id="f-art" label="Articulation" value={sp.get("articulation")} options={ARTICULATIONS} onChange={(v) => setParams({ articulation: v })} />
-        <Select id="f-state" label="State" value={sp.get("state")} options={["queued", "measuring", "catalogued", "rejected"]} onChange={(v) => setParams({ state: v })} />
+        <Select id="f-state" label="State" value={sp.get("state")} options={SAMPLE_STATES} onChange={(v) => setParams({ state: v })} />
         <Select id="f-inst" label="Instrument" value={sp.get("instrument")} options={instruments.map((i) => i.key)} labels={Object.fromEntries(instruments.map((i) => [i.key, i.name]))} onChange={(v) => setParams({ instrument: v })} />
         <label className="flex items-center gap-2 pb-2"><input type="checkbox" checked={sp.get("flag") === "conflict"} onChange={(e) => setParams({ flag: e.target.checked ? "conflict" : null })} /> Only flagged for review</label>
       </div>
@@ -238,7 +239,7 @@ function BulkBar({ studioId, libraryId, selected, instruments, onDone, onSelectP
         <button type="button" className="btn-primary" disabled={!selected.length || none || relabel.isPending} onClick={doRelabel}>Relabel {selected.length || ""}</button>
         <button type="button" className="btn-quiet" disabled={!selected.length || confirm.isPending} onClick={doConfirm} title="Keep the current labels and mark them as confirmed by you">Confirm suggestions</button>
       </div>
-      {relabel.isSuccess && <Message kind="ok">{`Relabelled ${relabel.data.updated} samples; the catalogue is being re-sorted.`}</Message>}
+      {relabel.isSuccess && <Message kind="ok">{`Relabelled ${relabel.data.updated} samples; the library is being catalogued again.`}</Message>}
       {confirm.isSuccess && <Message kind="ok">{`Confirmed ${confirm.data.confirmed} samples${confirm.data.skipped ? ` (${confirm.data.skipped} not catalogued yet, skipped)` : ""}.`}</Message>}
       <FormError error={relabel.error ?? confirm.error} fallback={relabel.isError ? "Could not relabel." : "Could not confirm."} />
     </div>

@@ -114,7 +114,7 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
         className={`rounded-md border-2 border-dashed p-4 text-center text-sm ${over ? "border-brand bg-brand-soft" : "border-line"}`}
       >
         <p>Drop WAV files, whole folders or .zip packs here.</p>
-        <p className="mt-1 text-xs text-muted">Folder and file names are kept: they help sorting. At most 200 MB per file.</p>
+        <p className="mt-1 text-xs text-muted">Folder and file names are kept: they help the cataloguing. At most 200 MB per file.</p>
         <div className="mt-3 flex flex-wrap justify-center gap-2">
           <label className="btn-quiet cursor-pointer">
             Choose files

@@ -1,5 +1,5 @@
 // Catalogue tables: libraries, samples (with their measurement and sorted labels), instruments, layer
-// groups and library health. The regroup job rewrites instruments, layer groups and health of a library
+// groups and library health. The cataloguing job rewrites instruments, layer groups and health of a library
 // from lib/catalogue's catalogueSamples(); sample rows keep per-sample columns for fast browsing.
 import type { Knex } from "knex";
 
@@ -41,7 +41,7 @@ export async function up(knex: Knex): Promise<void> {
     t.float("true_peak_dbtp").nullable();
     t.float("centroid_hz").nullable();
     t.float("decay_sec").nullable();
-    // sorted labels (the regroup job writes these)
+    // sorted labels (the cataloguing job writes these)
     t.string("family", 20).nullable();
     t.enum("family_source", ["name", "sound", "person"]).nullable();
     t.string("articulation", 20).nullable();
@@ -80,7 +80,7 @@ export async function up(knex: Knex): Promise<void> {
     t.string("id", 36).primary();
     t.string("studio_id", 36).notNullable().references("studios.id").onDelete("CASCADE");
     t.string("library_id", 36).notNullable().references("libraries.id").onDelete("CASCADE");
-    t.string("key", 191).notNullable(); // deterministic key from lib/catalogue (stable across regroups)
+    t.string("key", 191).notNullable(); // deterministic key from lib/catalogue (stable across cataloguings)
     t.string("name", 160).notNullable();
     t.string("family", 20).notNullable();
     t.float("pitch_hz").nullable();

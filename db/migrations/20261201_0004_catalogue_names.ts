@@ -1,4 +1,4 @@
-// Instruments a member renamed keep their name across regroups (name_source = 'person').
+// Instruments a member renamed keep their name across cataloguings (name_source = 'person').
 import type { Knex } from "knex";
 
 export async function up(knex: Knex): Promise<void> {

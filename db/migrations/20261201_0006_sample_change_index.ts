@@ -1,5 +1,5 @@
-// Index for "when did a catalogued sample of this library last change" (the library progress asks it every
-// 1.5 s while a library is being sorted).
+// Index for "when did a measured sample of this library last change" (the library progress asks it every
+// 1.5 s while a library is being catalogued).
 import type { Knex } from "knex";
 
 export async function up(knex: Knex): Promise<void> {

@@ -4,8 +4,8 @@
 // with ..." in one dive.
 // Words are binary (utf8mb4_bin): they are folded in code, and a binary prefix comparison is what makes
 // LIKE 'rr2%' a range. The ids are ASCII and binary too: comparing 36-character ids under utf8mb4_unicode_ci on
-// every index entry made counting a range three times slower. A foreign key must have its parent's collation,
-// so this table has none: its rows are deleted with their sample or library by the code that deletes those
+// every index entry made counting a range much slower (bench/RESULTS.md, "Measurements behind design choices").
+// A foreign key must have its parent's collation, so this table has none: its rows are deleted with their sample or library by the code that deletes those
 // (lib/server/catalogue/words.ts deleteWords*), and the worker's maintenance removes any left without a sample.
 import type { Knex } from "knex";
 import { pathWords } from "../../lib/catalogue/path-words";

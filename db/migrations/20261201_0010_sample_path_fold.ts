@@ -1,7 +1,8 @@
 // The path folded (lib/catalogue/path-words.ts foldText: NFKD, accents dropped, lower case) in a binary column
 // with its own index, for the search's "path contains" fallback (a term no path word starts with). A LIKE
 // '%...%' cannot use an index range, so it reads every entry of the library; compared byte by byte that read
-// took 89 ms at 100,000 rows where the same read of path_key under utf8mb4_unicode_ci took 636 ms.
+// is several times faster than the same read of path_key under utf8mb4_unicode_ci (bench/RESULTS.md,
+// "Measurements behind design choices").
 import type { Knex } from "knex";
 import { foldText } from "../../lib/catalogue/path-words";
 

@@ -9,14 +9,14 @@ export interface InstrumentList {
   instruments: InstrumentRow[];
 }
 
-/** PATCH .../instruments/:instrumentId (the name is kept across regroups). */
+/** PATCH .../instruments/:instrumentId (the name is kept across cataloguings). */
 export type RenameInstrumentBody = z.input<typeof renameInstrumentSchema>;
 export interface RenamedInstrument {
   id: string;
   name: string;
 }
 
-/** POST .../instruments/merge: the sources' samples move into the target; the library is sorted again. */
+/** POST .../instruments/merge: the sources' samples move into the target; the library is catalogued again. */
 export type MergeInstrumentsBody = z.input<typeof mergeInstrumentsSchema>;
 export interface MergedInstruments {
   moved: number;

@@ -6,7 +6,7 @@ import type { GroupResponse } from "@/lib/catalogue/velocity-response";
 import type { MicSeries } from "@/lib/catalogue/mic-consistency";
 import type { createLibrarySchema, deleteLibrarySchema, updateLibrarySchema, VelocityCurveName } from "@/lib/validation/library";
 
-export type StateCounts = { queued: number; measuring: number; catalogued: number; rejected: number; total: number };
+export type StateCounts = { queued: number; measuring: number; measured: number; catalogued: number; rejected: number; total: number };
 
 export interface LibrarySummary {
   id: string;
@@ -37,10 +37,11 @@ export type UpdateLibraryBody = z.input<typeof updateLibrarySchema>;
 export type DeleteLibraryBody = z.input<typeof deleteLibrarySchema>;
 
 /**
- * GET .../libraries/:libraryId/progress: counts per state, plus `sorting`: catalogued samples changed after the
- * last regroup read them, so instruments, layers and health are about to change.
+ * GET .../libraries/:libraryId/progress: counts per state, `pending` (queued + measuring), and `cataloguing`:
+ * samples wait for the cataloguing (measured) or changed after the last cataloguing read them, so instruments,
+ * layers and health are about to change.
  */
-export type LibraryProgress = StateCounts & { pending: number; sorting: boolean; healthComputedAt: string | null };
+export type LibraryProgress = StateCounts & { pending: number; cataloguing: boolean; healthComputedAt: string | null };
 
 /** GET .../libraries/:libraryId/health */
 export interface HealthView {
@@ -62,7 +63,7 @@ export interface LadderGroup {
   criterion: string | null;
   layers: { index: number; velocityLow: number; velocityHigh: number; meanStrikeLufs: number; spreadDb: number; members: { id: string; strikeLufs: number | null; roundRobin: number }[] }[];
 }
-/** One catalogued sample on the feature map. */
+/** One measured sample on the feature map. */
 export interface FeaturePoint { id: string; path: string; family: string | null; articulation: string | null; centroidHz: number; decaySec: number; strikeLufs: number | null; conflict: string | null; instrumentKey: string | null }
 
 /** GET .../libraries/:libraryId/plots */

@@ -7,7 +7,7 @@ const wav = (chunksBefore: { id: string; data: Uint8Array }[], chunksAfter: { id
   encodeWav([sine(48000, 0.01, 440, 0.5)], { sampleRate: 48000, bits: 24, chunksBefore, chunksAfter });
 
 describe("metadata chunks built byte by byte per their published layouts", () => {
-  it("'smpl' (RIFF sampler chunk, STANDARDS.md offsets): unity note, pitch fraction, loops", () => {
+  it("'smpl' (RIFF sampler chunk offsets, Microsoft/IBM RIFF 1991): unity note, pitch fraction, loops", () => {
     const smpl = littleEndian([
       { u32: 0 }, { u32: 0 }, { u32: 20833 }, // manufacturer, product, sample period (ns)
       { u32: 38 }, { u32: 0x80000000 }, // unity note 38, half a semitone

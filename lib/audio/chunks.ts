@@ -1,3 +1,4 @@
+// Over 300 lines: the bounded chunk walk and one small reader per chunk, all sharing the walk's bounds.
 // RIFF chunk walking and the readers for the chunks a WAV one-shot carries beside its samples:
 // 'fmt ' (RIFF WAVE 1991 / WAVE_FORMAT_EXTENSIBLE), LIST/INFO tags (RIFF 1991), 'bext' (EBU Tech 3285,
 // including the v2 loudness fields), 'smpl' and 'inst' (RIFF sampler / instrument chunks) and 'cue '

@@ -18,7 +18,7 @@ const pcm16 = (frames = 100, ch = 2, fs = 48000) => encodeWav(Array.from({ lengt
 const setU16 = (b: Uint8Array, at: number, v: number) => new DataView(b.buffer, b.byteOffset).setUint16(at, v, true);
 const setU32 = (b: Uint8Array, at: number, v: number) => new DataView(b.buffer, b.byteOffset).setUint32(at, v, true);
 
-describe("the canonical 44-byte PCM header (RIFF WAVE layout, STANDARDS.md)", () => {
+describe("the canonical 44-byte PCM header (RIFF WAVE layout, Microsoft/IBM RIFF 1991)", () => {
   it("a hand-built 16-bit stereo 44.1 kHz file decodes field by field and sample by sample", () => {
     const samples = [[0, 16384, -32768, 32767], [-1, 1, 8192, -16384]];
     const frames = 4, ch = 2, fs = 44100, bits = 16;

@@ -4,7 +4,7 @@
 // Why our own header reader and sample conversion rather than running wavefile on every upload: wavefile's
 // chunk index recurses from every LIST chunk to the end of the file (time doubles with each extra LIST chunk,
 // so a crafted file can hang a worker), it throws generic errors we could not turn into specific refusals,
-// and its float conversion is about 20x slower than a typed loop (see STACK-NOTES.md). wavefile stays the
+// and its float conversion (toBitDepth) is much slower than a typed loop. wavefile stays the
 // reference: the tests decode every format with wavefile and with this reader and require identical samples
 // (decode.test.ts, the property test), and `crossCheckWithWavefile` (wavefile-check.ts) is used by the CLI.
 // Samples are read little-endian, as the RIFF spec stores them.

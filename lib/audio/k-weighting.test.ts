@@ -16,7 +16,7 @@ describe("K-weighting coefficients", () => {
     expect(h.a1).toBeCloseTo(-1.99004745483398, 13);
     expect(h.a2).toBeCloseTo(0.99007225036621, 13);
   });
-  it("44.1 kHz shelf as computed from the analog prototype (STANDARDS.md, computed)", () => {
+  it("44.1 kHz shelf as computed from the analog prototype (BS.1770-4 prototype via the bilinear transform, computed)", () => {
     const s = shelfCoefficients(44100);
     expect(s.b0).toBeCloseTo(1.53084123005035, 12);
     expect(s.b1).toBeCloseTo(-2.65097999515473, 12);

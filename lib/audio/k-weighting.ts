@@ -1,7 +1,8 @@
 // K-weighting pre-filter of ITU-R BS.1770-4 Annex 1 (high-shelf "stage 1" + RLB high-pass "stage 2"),
 // derived for any sample rate by the bilinear transform (K = tan(pi f0 / fs)) from the analog prototype
-// parameters in STANDARDS.md; at 48 kHz they reproduce BS.1770-4 Tables 1 and 2. The high-pass numerator
-// is kept at [1, -2, 1] as in the standard's table (normalising it reads about 0.043 dB low).
+// parameters below (SHELF_F0 ..., the prototype values libebur128 uses, from memory); at 48 kHz they reproduce
+// BS.1770-4 Tables 1 and 2. The high-pass numerator is kept at [1, -2, 1] as in the standard's table
+// (normalising it reads about 0.043 dB low).
 
 export interface Biquad {
   b0: number;

@@ -45,7 +45,7 @@ describe("spectral features against meyda 5.6.3 on the same frames (general-purp
       ours.mfcc.forEach((v, i) => expect(Math.abs(v - mm[i])).toBeLessThan(1e-3 * Math.max(1, Math.abs(mm[0]))));
       const spec = (m.loudness as { specific: Float32Array }).specific;
       ours.bark.forEach((v, i) => expect(rel(v, spec[i])).toBeLessThan(1e-4));
-      // rolloff: same 99 % bin; meyda multiplies it by fs / (2 (N/2 - 1)) instead of fs / N (STANDARDS.md)
+      // rolloff: same 99 % bin; meyda multiplies it by fs / (2 (N/2 - 1)) instead of fs / N (meyda 5.6.3's source)
       expect(rel(ours.rolloffHz, ((m.spectralRolloff as number) * (N / 2 - 1)) / (N / 2))).toBeLessThan(1e-6);
       // zcr is a time-domain feature: meyda with a rect window (its Hann default would alter the count)
       expect(ours.zcr).toBe(meydaFrame(frame, "rect").zcr);
@@ -53,7 +53,7 @@ describe("spectral features against meyda 5.6.3 on the same frames (general-purp
   }
 });
 
-describe("spectral features against handbook values (STANDARDS.md)", () => {
+describe("spectral features against handbook values (pure tone and white noise, computed)", () => {
   const an = new SpectralAnalyzer(N, fs);
   it("zero-crossing rate of a sine is 2f/fs crossings per sample (2f per second)", () => {
     const f = 1234.5;

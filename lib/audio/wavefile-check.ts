@@ -1,4 +1,4 @@
-// Cross-check of our WAV reader against wavefile (the reference reader named in the issue): the fmt fields
+// Cross-check of our WAV reader against wavefile (the general-purpose reference reader): the fmt fields
 // and every sample must agree. Used by the tests and by `kitwright measure --verify`; not in the hot path
 // (see decode.ts for why). Files with more than 4 LIST chunks are not handed to wavefile, whose chunk
 // index time doubles with each LIST chunk.

@@ -1,6 +1,6 @@
 // The one converter from a catalogue to the auditor's CatalogueInstrument list. The command line feeds it the
 // cataloguer's output (lib/catalogue catalogueSamples()) or a catalogue file; the server feeds it the rows the
-// regroup wrote (instruments + layer_groups, lib/server/kits/catalogue-for-audit.ts). Tolerant of field names
+// cataloguing wrote (instruments + layer_groups, lib/server/kits/catalogue-for-audit.ts). Tolerant of field names
 // (id/key, name/displayName, instrumentId/instrumentKey), strict on values: anything it cannot read, and every
 // value it changes, is reported in `problems`, one line each; nothing is silently invented.
 //

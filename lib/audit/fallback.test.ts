@@ -2,8 +2,7 @@ import { describe, expect, it } from "vitest";
 import { FAMILY_GRAPHS, FOREIGN_ENTRY_COST, graphNodes, resolveArticulation } from "./fallback";
 import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation } from "../catalogue/taxonomy";
 
-// All rules below are common practice of drum sample libraries, no published source
-// (STANDARDS.md "Common practice in drum sample libraries").
+// All rules below are common practice of drum sample libraries, no published source.
 
 describe("fallback rules (common practice, no published source)", () => {
   it("a missing half-edge plays the centre hit", () => {

@@ -1,3 +1,4 @@
+// Over 300 lines: the articulation graphs of every family (data) and the one search over them.
 // Articulation fallback: which recorded articulation plays when the one a pad asks for was never recorded.
 //
 // Per family, a weighted, undirected graph of how close articulations sound (common practice of drum

@@ -6,7 +6,7 @@ import { buildDefaultKit } from "./kits";
 import { getTemplate } from "./templates";
 import { testCatalogue } from "./test-catalogue";
 
-// Variable-length quantities: the table of the Standard MIDI File 1.0 specification (as in STANDARDS.md).
+// Variable-length quantities: the table of the Standard MIDI File 1.0 specification.
 const SMF_VLQ_TABLE: Array<[number, string]> = [
   [0x00, "00"],
   [0x40, "40"],
@@ -36,7 +36,7 @@ describe("variable-length quantities (SMF 1.0 spec table, all 12 rows)", () => {
 });
 
 describe("tempo and header (SMF 1.0)", () => {
-  it("120 bpm is 500000 us per quarter: bytes 07 A1 20 (SMF 1.0, STANDARDS.md)", () => {
+  it("120 bpm is 500000 us per quarter: bytes 07 A1 20 (Standard MIDI File 1.0 specification)", () => {
     expect(hex(tempoBytes(120))).toBe("07 A1 20");
     expect(hex(tempoBytes(60))).toBe("0F 42 40"); // 1 000 000 us (computed)
   });

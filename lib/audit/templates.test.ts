@@ -2,8 +2,8 @@ import { describe, expect, it } from "vitest";
 import { EXTRA_NOTES, GM_PERCUSSION, TEMPLATE_NAMES, getTemplate } from "./templates";
 import { layoutBodySchema, layoutToFile, parseLayoutFile } from "./schema";
 
-// General MIDI Level 1 percussion key map, channel 10, as listed in STANDARDS.md
-// ("MIDI 1.0, General MIDI Level 1, Standard MIDI File 1.0"), copied here as text and parsed.
+// General MIDI Level 1 percussion key map, channel 10 (MMA General MIDI System Level 1 specification), copied
+// here as text and parsed.
 const GM_TABLE_FROM_STANDARDS = `35 Acoustic Bass Drum, 36 Bass Drum 1, 37 Side Stick,
   38 Acoustic Snare, 39 Hand Clap, 40 Electric Snare, 41 Low Floor Tom, 42 Closed Hi-Hat, 43 High Floor Tom,
   44 Pedal Hi-Hat, 45 Low Tom, 46 Open Hi-Hat, 47 Low-Mid Tom, 48 Hi-Mid Tom, 49 Crash Cymbal 1, 50 High Tom,
@@ -18,7 +18,7 @@ const gmTable = GM_TABLE_FROM_STANDARDS.split(",").map((s) => {
   return { note: Number(m[1]), name: m[2]! };
 });
 
-describe("General MIDI Level 1 percussion template (GM Level 1 key map, STANDARDS.md)", () => {
+describe("General MIDI Level 1 percussion template (MMA General MIDI Level 1 key map)", () => {
   it("the table has 47 entries, notes 35-81", () => {
     expect(gmTable).toHaveLength(47);
     expect(gmTable.map((e) => e.note)).toEqual(Array.from({ length: 47 }, (_, i) => 35 + i));

@@ -1,6 +1,7 @@
+// Over 300 lines: catalogueSamples, the one pipeline from measured samples to a catalogue, in order.
 // The whole sorted catalogue of a set of measured samples: per sample its family, articulation (with label
 // sources), instrument, mic, velocity layer and round robin; the instruments; the layer groups; the health
-// findings. Called by the CLI (`kitwright catalogue`, `kitwright audit`) and by the server's regroup worker, so
+// findings. Called by the CLI (`kitwright catalogue`, `kitwright audit`) and by the server's cataloguing job, so
 // both give the same answers for the same files. Pure.
 
 import type { Measurement } from "../audio/types";
@@ -124,16 +125,10 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
   const sorted = [...samples].sort((a, b) => a.path.localeCompare(b.path) || a.id.localeCompare(b.id));
 
   // 1. labels per sample
-  interface Work {
+  interface Work extends Pick<CatalogueEntry, "family" | "familySource" | "articulation" | "articulationSource" | "confidence" | "reasons"> {
     s: CatalogueSampleInput;
     n: NameInfo;
     snd: SoundSuggestion;
-    family: Family;
-    familySource: LabelSource;
-    articulation: Articulation;
-    articulationSource: LabelSource;
-    confidence: number;
-    reasons: string[];
     conflict: NameSoundConflict;
     mic: MicPosition | null;
   }

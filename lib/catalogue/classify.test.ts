@@ -7,7 +7,7 @@ import { measurement, rng, type DrumShape } from "./test-helpers";
 // Fixtures built from typical acoustic ranges of drums and cymbals (common practice, no published source;
 // ranges from memory: kick fundamentals 40-90 Hz, snare 150-300 Hz with wire noise, toms 70-300 Hz tonal,
 // cymbals bright and noisy with crash/ride decays of seconds, closed hi-hat under 0.3 s, cowbell 500-900 Hz;
-// amplitude-spectrum flatness of coloured drum noise well below white noise's 0.85 (STANDARDS.md), tonal drums near 0.01-0.05).
+// amplitude-spectrum flatness of coloured drum noise well below white noise's 0.85 (computed), tonal drums near 0.01-0.05).
 const DRUMS: Record<string, [Partial<DrumShape>, Family, Articulation?]> = {
   "kick 55 Hz, dark body, 0.45 s": [{ pitchHz: 55, bodyCentroidHz: 120, strikeCentroidHz: 1500, strikeFlatness: 0.04, bodyFlatness: 0.01, decaySec: 0.45 }, "kick", "centre"],
   "snare 200 Hz with wires (flatness 0.25), 0.35 s": [{ pitchHz: 200, bodyCentroidHz: 1200, strikeCentroidHz: 3000, strikeFlatness: 0.25, bodyFlatness: 0.15, decaySec: 0.35 }, "snare", "centre"],

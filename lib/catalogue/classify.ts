@@ -1,3 +1,4 @@
+// Over 300 lines: the rules of thumb, their words and the model answer they explain, one concept together.
 // Sound classification: a family and articulation suggestion from the measured features, with a confidence
 // (0..1) and the reasons in plain words.
 //
@@ -78,7 +79,7 @@ const LOG_KEYS = new Set<Key>(["decay", "sc", "bc", "pitch", "attack", "rolloff"
 const CYMBAL_PITCH: Rule = ["pitch", 200, 20000, 0.7, 1, 1];
 
 // Flatness is judged on a log scale (octaves of the ratio): white noise reads about 0.85 on the amplitude spectrum
-// (STANDARDS.md), but drum and cymbal noise is coloured (it rolls off), which lowers the geometric mean a lot:
+// (computed: one frame of white noise), but drum and cymbal noise is coloured (it rolls off), which lowers the geometric mean a lot:
 // tonal drums sit near 0.01-0.05, a snare's wires lift it to roughly 0.08-0.5, cymbal wash roughly 0.2-0.9
 // (from memory; common practice, no published source).
 const RULES: Record<Exclude<Family, "other">, Rule[]> = {
@@ -319,7 +320,7 @@ export interface SuggestOptions {
   soundModel?: SoundModel | null;
   /**
    * A key that names this measurement for good (sample id + content hash + measure version): the model's answer
-   * is then kept, so a library sorted again and again (every regroup) asks the forests once per sample.
+   * is then kept, so a library catalogued again and again asks the forests once per sample.
    */
   cacheKey?: string;
 }

@@ -1,3 +1,4 @@
+// Over 300 lines: the hit distance, its parameters, the clustering and the split they drive: one argument.
 // Instrument identity: are two measured hits the same drum, or two drums? Round robins are takes of ONE drum
 // at one strength, so a folder of different drums (one hit each, names that say nothing) must not become one
 // instrument with many round robins. This file holds a documented distance between two hits and an

@@ -1,5 +1,5 @@
 // The pitch of an instrument: one number per drum, used to order toms from high to low (default kits, the kit
-// editor's picker) and shown on the library page. Computed here only, by catalogueSamples(); the regroup stores
+// editor's picker) and shown on the library page. Computed here only, by catalogueSamples(); the cataloguing stores
 // it (instruments.pitch_hz) and the command line prints it, so the app and `kitwright` order toms alike.
 //
 // Rule: the median of the measured pitch (Measurement.pitchHz) of the instrument's main-stroke hits (its family's

@@ -1,3 +1,4 @@
+// Over 300 lines: the trade vocabulary tables and the one parser that reads them, each rule beside its words.
 // Name tokens: what a file name and its folders say about a sample (family, instrument stem, articulation,
 // velocity hint, round-robin index, microphone position).
 //

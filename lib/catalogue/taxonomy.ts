@@ -1,4 +1,4 @@
-// The instrument families and articulation words Kitwright uses everywhere (DESIGN.md "Words").
+// The instrument families and articulation words Kitwright uses everywhere (DEVELOPERS.md "Words").
 // Trade vocabulary only; ids are Kitwright's own lower-case, hyphenated spellings.
 
 export const FAMILIES = [

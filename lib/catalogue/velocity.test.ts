@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { curveAttenuationDb, dannenbergCoefficients, dannenbergGainDb, dlsAttenuationDb, velocityForAttenuation, velocityRanges } from "./velocity";
 
-describe("DLS Level 1 default curve (MMA DLS Level 1: attenuation = 40 log10(127/v); values from STANDARDS.md)", () => {
+describe("DLS Level 1 default curve (MMA DLS Level 1: attenuation = 40 log10(127/v); values computed from that formula)", () => {
   it("v=100 -> 4.152 dB, v=64 -> 11.905 dB, v=32 -> 23.946 dB, v=127 -> 0 dB", () => {
     expect(dlsAttenuationDb(100)).toBeCloseTo(4.152, 3);
     expect(dlsAttenuationDb(64)).toBeCloseTo(11.905, 3);
@@ -16,7 +16,7 @@ describe("DLS Level 1 default curve (MMA DLS Level 1: attenuation = 40 log10(127
   });
 });
 
-describe("Dannenberg, The Interpretation of MIDI Velocity, ICMC 2006 (values from STANDARDS.md)", () => {
+describe("Dannenberg, The Interpretation of MIDI Velocity, ICMC 2006 (values computed from its formula)", () => {
   it("60 dB range: m = 0.00768553, b = 0.0239372; v=64 -> -11.5 dB", () => {
     const { m, b } = dannenbergCoefficients(60);
     expect(m).toBeCloseTo(0.00768553, 8);

@@ -1,6 +1,6 @@
 import "server-only";
-// Jobs: queue names, job names and versions, the measure jobs' retry policy and ids, the regroup timing, and
-// the BullMQ queues on the process's one Redis connection (redis.ts). Producers (the app, the seeds, the
+// Jobs: queue names, job names and versions, the measure jobs' retry policy and ids, the cataloguing timing,
+// and the BullMQ queues on the process's one Redis connection (redis.ts). Producers (the app, the seeds, the
 // worker's maintenance) add jobs here; the worker process (workers/main.ts) consumes the same queue names.
 import { Queue, type JobsOptions } from "bullmq";
 import { MEASURE_VERSION } from "@/lib/audio/version";
@@ -8,16 +8,16 @@ import { closeRedis, redis } from "./redis";
 
 export const MAINTENANCE_QUEUE = "kw-maintenance";
 export const MEASURE_QUEUE = "kw-measure";
-export const REGROUP_QUEUE = "kw-regroup";
+export const CATALOGUE_QUEUE = "kw-catalogue";
 
 export const JOBS = {
-  purgeExpired: { name: "purge-expired", version: 1 },
+  maintenance: { name: "maintenance", version: 1 },
   measure: { name: "measure", version: MEASURE_VERSION },
-  regroup: { name: "regroup", version: 1 },
+  catalogue: { name: "catalogue", version: 1 },
 } as const;
 
 export interface MeasureJobData { sampleId: string; studioId: string; libraryId: string }
-export interface RegroupJobData { studioId: string; libraryId: string }
+export interface CatalogueJobData { studioId: string; libraryId: string }
 
 /** Attempts and backoff of a measure job: 3 tries, 2 s then 4 s apart. */
 export const MEASURE_ATTEMPTS = 3;
@@ -31,22 +31,22 @@ export const MEASURE_JOB_OPTS: JobsOptions = {
 /** Idempotent key: one job per sample and measuring version. */
 export const measureJobId = (sampleId: string) => `measure:${sampleId}:${MEASURE_VERSION}`;
 
-/** Regroups are debounced per library: all requests inside one window share one job, run after it closes. */
-export const REGROUP_WINDOW_MS = 1500;
-export function regroupJob(libraryId: string, now = Date.now(), windowMs = REGROUP_WINDOW_MS): { jobId: string; delay: number } {
+/** Cataloguings are debounced per library: all requests inside one window share one job, run after it closes. */
+export const CATALOGUING_WINDOW_MS = 1500;
+export function cataloguingJob(libraryId: string, now = Date.now(), windowMs = CATALOGUING_WINDOW_MS): { jobId: string; delay: number } {
   const bucket = Math.floor(now / windowMs);
-  return { jobId: `regroup-${libraryId}-${windowMs}-${bucket}`, delay: (bucket + 1) * windowMs - now + 100 };
+  return { jobId: `catalogue-${libraryId}-${windowMs}-${bucket}`, delay: (bucket + 1) * windowMs - now + 100 };
 }
 
 /**
- * The window regroup requests of a library share, from how long its last regroup took (in this process): at
- * least REGROUP_WINDOW_MS, and four times the last regroup's duration (rounded up to whole base windows, at most
- * a minute), so regroups of a large library being measured take at most about a quarter of the worker's time
- * and measuring is not starved (a 4,700-sample library takes about 2 s to regroup here).
+ * The window cataloguing requests of a library share, from how long its last cataloguing took (in this process):
+ * at least CATALOGUING_WINDOW_MS, and four times the last cataloguing's duration (rounded up to whole base windows,
+ * at most a minute), so cataloguings of a large library being measured take at most about a quarter of the
+ * worker's time and measuring is not starved (bench/RESULTS.md, finding 9).
  */
-export function regroupWindowMs(lastRegroupMs: number | undefined): number {
-  const want = Math.ceil((4 * (lastRegroupMs ?? 0)) / REGROUP_WINDOW_MS) * REGROUP_WINDOW_MS;
-  return Math.min(60_000, Math.max(REGROUP_WINDOW_MS, want));
+export function cataloguingWindowMs(lastCataloguingMs: number | undefined): number {
+  const want = Math.ceil((4 * (lastCataloguingMs ?? 0)) / CATALOGUING_WINDOW_MS) * CATALOGUING_WINDOW_MS;
+  return Math.min(60_000, Math.max(CATALOGUING_WINDOW_MS, want));
 }
 
 const queues = new Map<string, Queue>();
@@ -60,7 +60,38 @@ function queue(name: string): Queue {
 }
 export const maintenanceQueue = (): Queue => queue(MAINTENANCE_QUEUE);
 export const measureQueue = (): Queue => queue(MEASURE_QUEUE);
-export const regroupQueue = (): Queue => queue(REGROUP_QUEUE);
+export const catalogueQueue = (): Queue => queue(CATALOGUE_QUEUE);
+
+/**
+ * Names this code no longer uses, kept only to tidy Redis: the cataloguing queue was called "kw-regroup" (job
+ * "regroup"), and the maintenance job "purge-expired". The worker calls retireRenamedJobs at start: it removes the
+ * old maintenance schedule and the job it has already queued (a job of that name would fail every 10 minutes)
+ * and deletes the old queue with whatever it still holds; what those jobs were to do is done anyway, since the maintenance queues the cataloguing
+ * of every library changed since its catalogue (catalogue/maintenance.ts requeueStaleCatalogues).
+ */
+const RETIRED = { queues: ["kw-regroup"], maintenanceSchedules: ["purge-expired"] } as const;
+
+/** Removes the queues and the schedule of the names above; returns how many jobs of those names were waiting. */
+export async function retireRenamedJobs(): Promise<number> {
+  let dropped = 0;
+  for (const id of RETIRED.maintenanceSchedules) await maintenanceQueue().removeJobScheduler(id);
+  const waiting = await maintenanceQueue().getJobs(["waiting", "delayed", "prioritized", "wait"]);
+  for (const job of waiting.filter((j) => (RETIRED.maintenanceSchedules as readonly string[]).includes(j.name))) {
+    await job.remove();
+    dropped++;
+  }
+  for (const name of RETIRED.queues) {
+    const q = new Queue(name, { connection: redis() });
+    try {
+      const counts = await q.getJobCounts();
+      dropped += Object.values(counts).reduce((a, b) => a + b, 0);
+      await q.obliterate({ force: true });
+    } finally {
+      await q.close();
+    }
+  }
+  return dropped;
+}
 
 /** Closes the queues and the shared Redis connection (scripts and tests, before they exit). */
 export async function closeQueues(): Promise<void> {

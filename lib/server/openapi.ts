@@ -69,7 +69,7 @@ const uploadSummary = z
   .object({ files: z.array(uploadFile), counts: z.object({ queued: z.number().int(), duplicate: z.number().int(), refused: z.number().int() }) })
   .meta({ id: "UploadSummary" }) satisfies z.ZodType<UploadSummary>;
 
-const stateCounts = z.object({ queued: z.number().int(), measuring: z.number().int(), catalogued: z.number().int(), rejected: z.number().int(), total: z.number().int() });
+const stateCounts = z.object({ queued: z.number().int(), measuring: z.number().int(), measured: z.number().int(), catalogued: z.number().int(), rejected: z.number().int(), total: z.number().int() });
 const librarySummary = z
   .object({
     id: z.string(),

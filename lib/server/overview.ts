@@ -22,7 +22,8 @@ export async function studioOverview({ studioId }: { studioId: string }): Promis
       const m = by.get(l.id) ?? {};
       const catalogued = m.catalogued ?? 0;
       const rejected = m.rejected ?? 0;
-      const pending = (m.queued ?? 0) + (m.measuring ?? 0);
+      // waiting: to be measured, or measured and waiting for the cataloguing
+      const pending = (m.queued ?? 0) + (m.measuring ?? 0) + (m.measured ?? 0);
       return { id: l.id, name: l.name, total: catalogued + rejected + pending, catalogued, pending, rejected };
     }),
     kits: Number(kits?.n ?? 0),

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { besselJ } from "./dsp";
 import { MEMBRANE_MODES, membraneRatios, renderSound, type SoundSpec } from "./drums";
-import { centroidHz, decaySeconds, dftMag, envelopeDb, magnitudeSpectrum, rmsDb, strongestPeakHz } from "./test-utils";
+import { centroidHz, decaySeconds, dftMag, envelopeDb, magnitudeSpectrum, rmsDb, strongestPeakHz } from "./test-helpers";
 
 const SR = 48000;
 const TOM12: SoundSpec = { family: "tom", instrument: { diameterIn: 12, depthIn: 9, tuneHz: 136, floor: false }, articulation: "centre" };

@@ -1,3 +1,4 @@
+// Over 300 lines: one synthesizer: shared sources (membrane, wires, cymbal) and the renderers built on them.
 // Physically informed drum one-shot synthesizer: one function per drum family, each rendering a struck
 // instrument at a velocity (1-127), for a round-robin seed, through a microphone position.
 //

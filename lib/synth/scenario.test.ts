@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { FAMILY_ARTICULATIONS, isArticulation } from "../catalogue/taxonomy";
 import { renderScenarioChannels, renderScenarioFile } from "./render";
 import { DEMO_FAULTS, DEMO_INSTRUMENTS, DEMO_LIBRARY, demoScenario, dynamics, layerVelocity, type ScenarioFile } from "./scenario";
-import { rmsDb } from "./test-utils";
+import { rmsDb } from "./test-helpers";
 
 const files = demoScenario();
 const byPath = new Map(files.map((f) => [f.path, f]));

@@ -8,7 +8,7 @@ const WaveFile = (ns as any).WaveFile ?? (ns as any).default.WaveFile;
 const ascii = (b: Uint8Array, at: number) => String.fromCharCode(...b.subarray(at, at + 4));
 
 describe("WAV writer", () => {
-  it("writes the canonical 44-byte PCM header (STANDARDS.md, RIFF WAVE)", () => {
+  it("writes the canonical 44-byte PCM header (Microsoft/IBM RIFF 1991, RIFF WAVE)", () => {
     const L = new Float32Array([0, 0.5, -0.5, 1]);
     const R = new Float32Array([0.25, -1, 0, 0]);
     const b = encodeWav([L, R], { sampleRate: 48000, bits: 24 });

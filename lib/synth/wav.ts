@@ -1,4 +1,4 @@
-// WAV writer for generated one-shots: the canonical 44-byte RIFF/WAVE header (STANDARDS.md, "RIFF WAVE")
+// WAV writer for generated one-shots: the canonical 44-byte RIFF/WAVE header (Microsoft/IBM RIFF 1991)
 // followed by interleaved little-endian samples. 16/24-bit two's-complement PCM (format tag 1) or 32-bit IEEE
 // float (format tag 3). Pure TypeScript; returns bytes, writes nothing.
 

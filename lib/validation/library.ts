@@ -20,8 +20,11 @@ export const libraryParams = z.strictObject({ studioId: idParam, libraryId: idPa
 export const sampleParams = z.strictObject({ studioId: idParam, libraryId: idParam, sampleId: idParam });
 export const instrumentParams = z.strictObject({ studioId: idParam, libraryId: idParam, instrumentId: idParam });
 
-export const SAMPLE_STATES = ["queued", "measuring", "catalogued", "rejected"] as const;
+/** A sample's way: queued, measuring, measured (waiting for the cataloguing), catalogued (placed in its instrument and layer), or rejected. */
+export const SAMPLE_STATES = ["queued", "measuring", "measured", "catalogued", "rejected"] as const;
 export type SampleState = (typeof SAMPLE_STATES)[number];
+/** The states of a sample that has a measurement, whether or not the cataloguing has placed it yet. */
+export const MEASURED_STATES = ["measured", "catalogued"] as const satisfies readonly SampleState[];
 export const SAMPLE_SORTS = ["name", "path", "instrument", "articulation", "family", "layer", "roundRobin", "mic", "strike", "truePeak", "duration", "confidence", "state", "added"] as const;
 export type SampleSort = (typeof SAMPLE_SORTS)[number];
 

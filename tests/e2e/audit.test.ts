@@ -13,7 +13,7 @@ import type { Browser, Page } from "playwright-core";
 import { BASE, launch, screenshot, signIn } from "./browser";
 import { db } from "@/lib/server/db";
 import { makeStudioWithRoles } from "../integration/helpers";
-import { addInstrument, addLayerGroup, evenLayers, makeLibrary } from "../integration/audit/factories";
+import { addInstrument, addLayerGroup, evenLayers, makeLibrary } from "../integration/audit/helpers";
 
 let browser: Browser;
 let s: Awaited<ReturnType<typeof makeStudioWithRoles>>;

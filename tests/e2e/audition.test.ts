@@ -66,8 +66,8 @@ describe("audition", () => {
       }
     }
     await expect
-      .poll(async () => (await (await api.get(`${BASE}/api/studios/${studioId}/libraries/${libraryId}/progress`)).json()) as { catalogued: number; sorting: boolean }, { timeout: 90_000, interval: 1000 })
-      .toMatchObject({ catalogued: 4, sorting: false });
+      .poll(async () => (await (await api.get(`${BASE}/api/studios/${studioId}/libraries/${libraryId}/progress`)).json()) as { catalogued: number; cataloguing: boolean }, { timeout: 90_000, interval: 1000 })
+      .toMatchObject({ catalogued: 4, cataloguing: false });
 
     const kit = await api.post(`${BASE}/api/studios/${studioId}/kits`, { data: { name: "Audition kit", template: "trigger-five" } });
     expect(kit.status()).toBe(201);

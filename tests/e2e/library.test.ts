@@ -73,7 +73,7 @@ describe("library in the browser", () => {
     await screenshot(page, "library-uploaded");
 
     await expect.poll(async () => page.getByTestId("count-catalogued").locator("dd").textContent(), { timeout: 90_000, interval: 1000 }).toBe("12");
-    await expect.poll(async () => page.getByTestId("progress-status").textContent(), { timeout: 30_000 }).toBe("all measured");
+    await expect.poll(async () => page.getByTestId("progress-status").textContent(), { timeout: 30_000 }).toBe("all catalogued");
     // the folder names became the families once the library is sorted
     await expect.poll(async () => (await page.getByTestId("samples-table").textContent()) ?? "", { timeout: 30_000, interval: 1000 }).toMatch(/kick/);
     await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(12);

@@ -6,7 +6,7 @@ import type { Browser } from "playwright-core";
 import { BASE, launch, screenshot, signIn } from "./browser";
 import { db } from "@/lib/server/db";
 import { call, makeStudioWithRoles } from "../integration/helpers";
-import { smallCatalogue } from "../integration/audit/factories";
+import { smallCatalogue } from "../integration/audit/helpers";
 import * as kitsRoute from "@/app/api/studios/[studioId]/kits/route";
 import * as layoutsRoute from "@/app/api/studios/[studioId]/layouts/route";
 

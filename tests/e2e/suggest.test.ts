@@ -6,7 +6,7 @@ import type { Browser } from "playwright-core";
 import { BASE, launch, screenshot, signIn } from "./browser";
 import { db } from "@/lib/server/db";
 import { call, makeStudioWithRoles } from "../integration/helpers";
-import { addInstrument, makeLibrary } from "../integration/audit/factories";
+import { addInstrument, makeLibrary } from "../integration/audit/helpers";
 import * as kitsRoute from "@/app/api/studios/[studioId]/kits/route";
 
 let browser: Browser;

@@ -2,7 +2,7 @@
 //   bash scripts/with-test-env.sh node --conditions=react-server --import tsx tests/hostile/upload-corpus.ts --count 10000
 // Sends the seeded corpus (tests/hostile/mutate.ts) in batches of 500 files to the real upload route handler
 // (in-process, signed-in editor), then measures every queued sample exactly as the worker does (measureSample +
-// measureWav, inline) and checks: no 5xx, one outcome per file, every stored sample catalogued or rejected with
+// measureWav, inline), catalogues the library (catalogueLibrary) and checks: no 5xx, one outcome per file, every stored sample catalogued or rejected with
 // a reason, one stored file per row. Prints counts and the worst times; exit code 1 on any problem.
 import crypto from "node:crypto";
 import fs from "node:fs";
@@ -14,6 +14,7 @@ import { env } from "@/lib/server/env";
 import { createSessionCookie, createStudio, createUser } from "@/db/factories";
 import { createLibrary } from "@/lib/server/catalogue/libraries";
 import { measureSample } from "@/lib/server/catalogue/measure";
+import { catalogueLibrary } from "@/lib/server/catalogue/catalogue-library";
 import { closeQueues } from "@/lib/server/jobs";
 import { measureWav } from "@/lib/audio";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
@@ -74,6 +75,7 @@ async function main() {
     await measureSample({ sampleId: id, studioId: studio.id }, async (bytes) => measureWav(bytes));
     worstMeasureMs = Math.max(worstMeasureMs, performance.now() - m0);
   }
+  await catalogueLibrary({ studioId: studio.id, libraryId: lib.id });
   const rows = await db()("samples").where({ library_id: lib.id }).select("id", "state", "reject_code", "reject_reason", "rel_path");
   const after: Record<string, number> = {};
   for (const r of rows) {

@@ -155,7 +155,7 @@ async function main() {
   let rows: { id: string; state: string; reject_reason: string | null }[] = [];
   while (Date.now() < giveUp && Date.now() - lastProgress < 120_000) {
     rows = await k("samples").where({ library_id: libraryId }).select("id", "state", "reject_reason");
-    const now = rows.filter((r) => r.state === "queued" || r.state === "measuring").length;
+    const now = rows.filter((r) => r.state === "queued" || r.state === "measuring" || r.state === "measured").length;
     if (now < pending) lastProgress = Date.now();
     pending = now;
     if (!pending) break;

@@ -1,11 +1,11 @@
 import "server-only";
 // The instruments of a library: the list (a read), rename and merge (writes, each with its activity row in the
-// same transaction; a merge then queues a regroup of the library).
+// same transaction; a merge then queues a cataloguing of the library).
 import { db } from "../db";
 import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
 import { assertLibrary } from "./libraries";
-import { enqueueRegroup } from "./queue";
+import { enqueueCataloguing } from "./queue";
 import type { InstrumentRow } from "@/lib/api-types/instruments";
 
 export async function listInstruments({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<InstrumentRow[]> {
@@ -23,7 +23,7 @@ export async function renameInstrument({ studioId, libraryId, instrumentId, acto
   });
 }
 
-/** Moves every sample of the source instruments into the target (confirmed), then regroups. */
+/** Moves every sample of the source instruments into the target (confirmed), then catalogues the library again. */
 export async function mergeInstruments({ studioId, libraryId, actorId, sourceIds, targetId }: { studioId: string; libraryId: string; actorId: string; sourceIds: string[]; targetId: string }): Promise<{ moved: number }> {
   if (sourceIds.includes(targetId)) throw new AppError("invalid-input", "An instrument cannot be merged into itself.");
   const moved = await db().transaction(async (trx) => {
@@ -38,6 +38,6 @@ export async function mergeInstruments({ studioId, libraryId, actorId, sourceIds
     await logActivity(trx, { studioId, actorId, action: "instruments.merged", subjectType: "instrument", subjectId: targetId, details: { into: target.name, from: sources.map((s) => s.name), samples: n, libraryId } });
     return Number(n);
   });
-  await enqueueRegroup({ studioId, libraryId });
+  await enqueueCataloguing({ studioId, libraryId });
   return { moved };
 }

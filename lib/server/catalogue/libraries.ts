@@ -5,8 +5,8 @@ import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
 import { newId } from "../ids";
 import { storage } from "../storage";
-import { enqueueRegroup } from "./queue";
-import type { VelocityCurveName } from "@/lib/validation/library";
+import { enqueueCataloguing } from "./queue";
+import { MEASURED_STATES, type VelocityCurveName } from "@/lib/validation/library";
 import type { LibraryProgress, LibrarySummary, StateCounts } from "@/lib/api-types/libraries";
 import { deleteWordsOfLibrary } from "./words";
 
@@ -14,7 +14,7 @@ import { deleteWordsOfLibrary } from "./words";
 export const libraryPrefix = (studioId: string, libraryId: string) => `studios/${studioId}/libraries/${libraryId}/`;
 export const sampleKey = (studioId: string, libraryId: string, sampleId: string) => `${libraryPrefix(studioId, libraryId)}${sampleId}.wav`;
 
-const emptyCounts = (): StateCounts => ({ queued: 0, measuring: 0, catalogued: 0, rejected: 0, total: 0 });
+const emptyCounts = (): StateCounts => ({ queued: 0, measuring: 0, measured: 0, catalogued: 0, rejected: 0, total: 0 });
 
 export async function countsFor(studioId: string, libraryIds: string[]): Promise<Map<string, StateCounts>> {
   const out = new Map<string, StateCounts>(libraryIds.map((id) => [id, emptyCounts()]));
@@ -77,19 +77,20 @@ export async function assertLibrary({ studioId, libraryId }: { studioId: string;
 }
 
 /**
- * Counts per state, plus `sorting`: catalogued samples changed (measured, relabelled) after the last regroup
- * read them, so instruments, layers and health are about to change.
+ * Counts per state, plus `cataloguing`: samples wait for the cataloguing (state measured), or changed
+ * (measured again, relabelled) after the last cataloguing read them, so instruments, layers and health are
+ * about to change.
  */
 export async function libraryProgress({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<LibraryProgress> {
   await assertLibrary({ studioId, libraryId });
   const c = (await countsFor(studioId, [libraryId])).get(libraryId)!;
   const [h, last] = await Promise.all([
     db()("library_health").where({ library_id: libraryId, studio_id: studioId }).first("computed_at"),
-    db()("samples").where({ library_id: libraryId, studio_id: studioId, state: "catalogued" }).max({ t: "updated_at" }).first(),
+    db()("samples").where({ library_id: libraryId, studio_id: studioId }).whereIn("state", MEASURED_STATES).max({ t: "updated_at" }).first(),
   ]);
   const lastChange = last?.t ? new Date(last.t).getTime() : null;
-  const sorting = lastChange !== null && (!h || lastChange > new Date(h.computed_at).getTime());
-  return { ...c, pending: c.queued + c.measuring, sorting, healthComputedAt: h ? new Date(h.computed_at).toISOString() : null };
+  const cataloguing = c.measured > 0 || (lastChange !== null && (!h || lastChange > new Date(h.computed_at).getTime()));
+  return { ...c, pending: c.queued + c.measuring, cataloguing, healthComputedAt: h ? new Date(h.computed_at).toISOString() : null };
 }
 
 export async function createLibrary({ studioId, actorId, name, description }: { studioId: string; actorId: string; name: string; description?: string | null }): Promise<{ id: string; name: string }> {
@@ -131,8 +132,8 @@ export async function updateLibrary({ studioId, actorId, libraryId, name, descri
       await logActivity(trx, { studioId, actorId, action: name !== undefined && name !== lib.name ? "library.renamed" : "library.described", subjectType: "library", subjectId: libraryId, details: { name: name ?? lib.name, ...details } });
     }
   });
-  // the layers' velocity ranges follow the curve: sort the library again
-  if (curveChanged) await enqueueRegroup({ studioId, libraryId });
+  // the layers' velocity ranges follow the curve: catalogue the library again
+  if (curveChanged) await enqueueCataloguing({ studioId, libraryId });
 }
 
 /** Deletes a library, its rows and its stored files. The caller confirmed by typing the name. */

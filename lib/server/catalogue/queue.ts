@@ -1,6 +1,6 @@
 import "server-only";
-// Producers for the measure and regroup queues (lib/server/jobs.ts; the worker consumes them: workers/main.ts).
-import { MEASURE_JOB_OPTS, JOBS, measureJobId, measureQueue, regroupJob, regroupQueue, regroupWindowMs, type MeasureJobData, type RegroupJobData } from "../jobs";
+// Producers for the measure and cataloguing queues (lib/server/jobs.ts; the worker consumes them: workers/main.ts).
+import { MEASURE_JOB_OPTS, JOBS, measureJobId, measureQueue, cataloguingJob, catalogueQueue, cataloguingWindowMs, type MeasureJobData, type CatalogueJobData } from "../jobs";
 
 /** Enqueues measuring of samples; idempotent (one job per sample id and measuring version). */
 export async function enqueueMeasure(items: MeasureJobData[]): Promise<void> {
@@ -10,17 +10,18 @@ export async function enqueueMeasure(items: MeasureJobData[]): Promise<void> {
   }
 }
 
-/** How long each library's last regroup took in this process (the worker, which both measures and regroups). */
-const regroupCost = new Map<string, number>();
-export function noteRegroupDuration(libraryId: string, ms: number): void {
-  regroupCost.set(libraryId, ms);
+/** How long each library's last cataloguing took in this process (the worker, which both measures and catalogues). */
+const cataloguingCost = new Map<string, number>();
+export function noteCataloguingDuration(libraryId: string, ms: number): void {
+  cataloguingCost.set(libraryId, ms);
 }
 
 /**
- * Asks for a regroup of a library; requests within one window share one job. The window grows with the cost
- * of the library's last regroup (lib/server/jobs.ts regroupWindowMs); elsewhere (a person's relabel) it is short.
+ * Asks for a cataloguing of a library; requests within one window share one job. The window grows with the cost
+ * of the library's last cataloguing (lib/server/jobs.ts cataloguingWindowMs); elsewhere (a person's relabel) it is
+ * short.
  */
-export async function enqueueRegroup(data: RegroupJobData): Promise<void> {
-  const { jobId, delay } = regroupJob(data.libraryId, Date.now(), regroupWindowMs(regroupCost.get(data.libraryId)));
-  await regroupQueue().add(JOBS.regroup.name, data, { jobId, delay, attempts: 5, backoff: { type: "exponential", delay: 1000 }, removeOnComplete: { age: 600 }, removeOnFail: { age: 7 * 24 * 3600 } });
+export async function enqueueCataloguing(data: CatalogueJobData): Promise<void> {
+  const { jobId, delay } = cataloguingJob(data.libraryId, Date.now(), cataloguingWindowMs(cataloguingCost.get(data.libraryId)));
+  await catalogueQueue().add(JOBS.catalogue.name, data, { jobId, delay, attempts: 5, backoff: { type: "exponential", delay: 1000 }, removeOnComplete: { age: 600 }, removeOnFail: { age: 7 * 24 * 3600 } });
 }

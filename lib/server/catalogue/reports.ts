@@ -9,6 +9,7 @@ import { micConsistency, takeName, type MicSample, type MicSeries } from "@/lib/
 import { parseName } from "@/lib/catalogue/names";
 import type { Measurement } from "@/lib/audio/types";
 import type { FeaturePoint, HealthView, LadderGroup, LibraryPlots } from "@/lib/api-types/libraries";
+import { MEASURED_STATES } from "@/lib/validation/library";
 
 export async function libraryHealth({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<HealthView> {
   await assertLibrary({ studioId, libraryId });
@@ -55,7 +56,7 @@ export async function libraryPlots({ studioId, libraryId }: { studioId: string; 
   await assertLibrary({ studioId, libraryId });
   const [groups, samples] = await Promise.all([
     db()("layer_groups").where({ studio_id: studioId, library_id: libraryId }).orderBy("group_key"),
-    db()("samples").where({ studio_id: studioId, library_id: libraryId, state: "catalogued" }).limit(20_000).select("id", "rel_path", "family", "articulation", "centroid_hz", "decay_sec", "strike_lufs", "conflict", "instrument_key"),
+    db()("samples").where({ studio_id: studioId, library_id: libraryId }).whereIn("state", MEASURED_STATES).limit(20_000).select("id", "rel_path", "family", "articulation", "centroid_hz", "decay_sec", "strike_lufs", "conflict", "instrument_key"),
   ]);
   const loud = new Map(samples.map((s) => [s.id as string, s.strike_lufs === null ? null : Number(s.strike_lufs)]));
   return {

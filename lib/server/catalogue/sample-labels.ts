@@ -1,12 +1,12 @@
 import "server-only";
 // Members' labels on samples (writes): bulk relabel and confirm. Labels set here become the member's (source
-// "person"), win over the names and the sound at the next regroup, are logged, and queue that regroup.
+// "person"), win over the names and the sound at the next cataloguing, are logged, and queue that cataloguing.
 import type { Knex } from "knex";
 import { db } from "../db";
 import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
 import { assertLibrary } from "./libraries";
-import { enqueueRegroup } from "./queue";
+import { enqueueCataloguing } from "./queue";
 import type { ConfirmAnswer, RelabelAnswer, RelabelBody } from "@/lib/api-types/samples";
 
 async function ownedIds(trx: Knex.Transaction, studioId: string, libraryId: string, ids: string[]): Promise<string[]> {
@@ -15,7 +15,7 @@ async function ownedIds(trx: Knex.Transaction, studioId: string, libraryId: stri
   return rows.map((r) => r.id);
 }
 
-/** Sets labels on many samples at once; they become confirmed (source "person"), are logged, and trigger a regroup. */
+/** Sets labels on many samples at once; they become confirmed (source "person"), are logged, and trigger a cataloguing. */
 export async function relabelSamples({ studioId, libraryId, actorId, input }: { studioId: string; libraryId: string; actorId: string; input: RelabelBody }): Promise<RelabelAnswer> {
   await assertLibrary({ studioId, libraryId });
   if (input.instrumentKey) {
@@ -34,7 +34,7 @@ export async function relabelSamples({ studioId, libraryId, actorId, input }: { 
     await logActivity(trx, { studioId, actorId, action: "samples.relabelled", subjectType: "library", subjectId: libraryId, details: { count: ids.length, set, sampleIds: ids.slice(0, 50) } });
     return ids.length;
   });
-  await enqueueRegroup({ studioId, libraryId });
+  await enqueueCataloguing({ studioId, libraryId });
   return { updated };
 }
 
@@ -64,6 +64,6 @@ export async function confirmSamples({ studioId, libraryId, actorId, sampleIds }
     await logActivity(trx, { studioId, actorId, action: "samples.confirmed", subjectType: "library", subjectId: libraryId, details: { count: ids.length, sampleIds: ids.slice(0, 50) } });
     return ids.length;
   });
-  await enqueueRegroup({ studioId, libraryId });
+  await enqueueCataloguing({ studioId, libraryId });
   return { confirmed, skipped: sampleIds.length - confirmed };
 }

@@ -168,7 +168,8 @@ async function pageOf(studioId: string, libraryId: string, query: SamplesQuery, 
     if (rows.length < expected) rows = null;
   }
   // Fetch: the matches are put in order by the sort column alone, and only the page's rows are then read in full
-  // (with their instrument): sorting thousands of matches with every listed column cost a third more.
+  // (with their instrument): sorting thousands of matches with every listed column costs more (bench/RESULTS.md,
+  // "Measurements behind design choices").
   const fetchPage = async () => {
     const ids = ((await ordered(fetchRows()).select("s.id")) as { id: string }[]).map((r) => r.id);
     return ids.length ? await page(base().whereIn("s.id", ids), { offset: false }) : [];

@@ -1,6 +1,6 @@
 import "server-only";
 // A studio's catalogue as the auditor reads it: the `instruments` rows of every library of the studio, with
-// their articulations from `layer_groups` (linked by library id + instrument key). The regroup job fills both
+// their articulations from `layer_groups` (linked by library id + instrument key). The cataloguing job fills both
 // tables from lib/catalogue (pitch included); until it has run, a studio simply has no instruments (audits then
 // report empty slots / silence). This module only reads the rows: they go through the same converter as the
 // command line's catalogues (lib/audit/catalogue-input.ts readCatalogue), so layers are read, clamped and

@@ -1,4 +1,4 @@
-// Audits over the API: run on catalogue rows written like the regroup job writes them, exact outcomes,
+// Audits over the API: run on catalogue rows written like the cataloguing job writes them, exact outcomes,
 // the saved audit re-read, comparison after new samples arrive, exports, roles and studio isolation.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { parseMidi } from "midi-file";
@@ -6,7 +6,7 @@ import { db } from "@/lib/server/db";
 import { NextRequest } from "next/server";
 import { env } from "@/lib/server/env";
 import { call, makeStudioWithRoles, sessionCookie } from "../helpers";
-import { addLayerGroup, evenLayers, smallCatalogue } from "./factories";
+import { addLayerGroup, evenLayers, smallCatalogue } from "./helpers";
 import * as kitsRoute from "@/app/api/studios/[studioId]/kits/route";
 import * as layoutsRoute from "@/app/api/studios/[studioId]/layouts/route";
 import * as layoutRoute from "@/app/api/studios/[studioId]/layouts/[layoutId]/route";

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/lib/server/db";
 import { readStudioCatalogue } from "@/lib/server/kits/catalogue-for-audit";
 import { makeStudioWithRoles } from "../helpers";
-import { addInstrument, addLayerGroup, makeLibrary } from "./factories";
+import { addInstrument, addLayerGroup, makeLibrary } from "./helpers";
 
 let s: Awaited<ReturnType<typeof makeStudioWithRoles>>;
 
@@ -16,7 +16,7 @@ afterAll(async () => {
 });
 
 describe("readStudioCatalogue", () => {
-  it("reads the regroup's rows with the shared converter: velocities clamped to 1-127 and reported, unknown words left out and named", async () => {
+  it("reads the cataloguing's rows with the shared converter: velocities clamped to 1-127 and reported, unknown words left out and named", async () => {
     const k = db();
     const libraryId = await makeLibrary(k, s.studio.id);
     const tom = await addInstrument(k, s.studio.id, libraryId, { key: "tom:10in", name: "Tom 10in", family: "tom", pitchHz: 182.56, articulations: {} });

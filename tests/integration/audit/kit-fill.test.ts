@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/lib/server/db";
 import { call, makeStudioWithRoles } from "../helpers";
-import { addInstrument, makeLibrary } from "./factories";
+import { addInstrument, makeLibrary } from "./helpers";
 import * as kitsRoute from "@/app/api/studios/[studioId]/kits/route";
 import { studioProgress } from "@/lib/server/next-step";
 import { nextStep } from "@/lib/next-step";

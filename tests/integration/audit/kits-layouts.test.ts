@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/lib/server/db";
 import { call, makeStudioWithRoles } from "../helpers";
-import { smallCatalogue } from "./factories";
+import { smallCatalogue } from "./helpers";
 import * as kitsRoute from "@/app/api/studios/[studioId]/kits/route";
 import * as kitRoute from "@/app/api/studios/[studioId]/kits/[kitId]/route";
 import * as kitCopy from "@/app/api/studios/[studioId]/kits/[kitId]/copy/route";
@@ -36,7 +36,7 @@ describe("kits", () => {
     const slots = [
       { id: "snare", name: "Snare A", family: "snare", instrumentId: cat.snare },
       { id: "tom-1", name: "Tom 1", family: "tom", instrumentId: cat.tomHigh },
-      // a slot may hold an instrument of another family (DESIGN.md: the audit uses its own articulations)
+      // a slot may hold an instrument of another family (the audit uses its own articulations)
       { id: "perc", name: "Perc", family: "snare", instrumentId: cat.cowbell, standIns: { "half-edge": "hit" } },
     ];
     const c = await call(kitsRoute.POST, { params: P(), user: s.users.editor, body: { name: "Room kit", slots } });

@@ -5,7 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/lib/server/db";
 import { call, makeStudioWithRoles } from "../helpers";
-import { smallCatalogue } from "./factories";
+import { smallCatalogue } from "./helpers";
 import * as kitsRoute from "@/app/api/studios/[studioId]/kits/route";
 import * as layoutsRoute from "@/app/api/studios/[studioId]/layouts/route";
 import * as shareRoute from "@/app/api/studios/[studioId]/layouts/[layoutId]/share/route";

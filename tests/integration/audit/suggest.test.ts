@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/lib/server/db";
 import { call, makeStudioWithRoles } from "../helpers";
-import { smallCatalogue } from "./factories";
+import { smallCatalogue } from "./helpers";
 import * as kitsRoute from "@/app/api/studios/[studioId]/kits/route";
 import * as suggestRoute from "@/app/api/studios/[studioId]/layouts/suggest/route";
 import * as layoutImport from "@/app/api/studios/[studioId]/layouts/import/route";

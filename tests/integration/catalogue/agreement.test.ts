@@ -1,6 +1,6 @@
 // The same answers everywhere: one folder of generated WAVs goes through the command line (`kitwright measure |
 // catalogue | audit` as real processes) and through the app (upload route, the real worker process measuring
-// and regrouping, the library page's routes, a kit and an audit run over the API). The two catalogues and the
+// and cataloguing, the library page's routes, a kit and an audit run over the API). The two catalogues and the
 // two audits are compared field by field; any difference fails with the file (or pad) and the field named.
 // The test compares the two paths with each other, not with fixed truths: whatever family the sound model picks
 // for a file, both paths must pick the same.
@@ -18,7 +18,7 @@ import type { AuditResult, Kit } from "@/lib/audit/types";
 import { renderSound, type SoundSpec } from "@/lib/synth/drums";
 import { layerVelocity } from "@/lib/synth/scenario";
 import { encodeWav } from "@/lib/synth/wav";
-import { multipart, startWorker, waitFor, waitForReady } from "./fixtures";
+import { multipart, startWorker, waitFor, waitForReady } from "./helpers";
 import { auditDifferences, catalogueDifferences, differences, type CliCatalogue } from "./compare";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
@@ -103,7 +103,7 @@ beforeAll(async () => {
   ctx = await makeStudioWithRoles();
   const r = await call(libsRoute.POST, { params: { studioId: ctx.studio.id }, body: { name: uniq("Agreement") }, user: ctx.users.editor });
   libraryId = r.json.id;
-  // the app's path: upload the same files with the same relative paths; the real worker measures and regroups
+  // the app's path: upload the same files with the same relative paths; the real worker measures and catalogues
   const { body, type } = await multipart(files.map((f) => ({ name: f.path, data: new Uint8Array(fs.readFileSync(path.join(dir, f.path))) })));
   const up = await call(uploadRoute.POST, { method: "POST", params: { studioId: ctx.studio.id, libraryId }, rawBody: body, headers: { "content-type": type }, user: ctx.users.editor });
   expect(up.status, JSON.stringify(up.json)).toBe(201);
@@ -111,7 +111,7 @@ beforeAll(async () => {
   worker = startWorker(log);
   await waitForReady(log);
   const progress = () => call(progressRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, user: ctx.users.viewer }).then((x) => x.json);
-  await waitFor(progress, (p) => p.catalogued === files.length && p.pending === 0 && !p.sorting && p.healthComputedAt !== null, 180_000, "the worker to measure and sort the library");
+  await waitFor(progress, (p) => p.catalogued === files.length && p.pending === 0 && !p.cataloguing && p.healthComputedAt !== null, 180_000, "the worker to measure and sort the library");
 }, 300_000);
 
 afterAll(async () => {

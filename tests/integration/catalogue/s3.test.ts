@@ -9,7 +9,7 @@ import { Readable } from "node:stream";
 // @ts-expect-error -- the package ships no type declarations
 import S3rverImport from "s3rver";
 import { S3Storage } from "@/lib/server/storage";
-import { hitWav } from "./fixtures";
+import { hitWav } from "./helpers";
 
 async function freePort(): Promise<number> {
   for (let p = 4300 + Math.floor(Math.random() * 90); p < 4400; p++) {

@@ -9,7 +9,7 @@ import { call, makeStudioWithRoles, sessionCookie, uniq } from "../helpers";
 import { db, closeDb } from "@/lib/server/db";
 import { env } from "@/lib/server/env";
 import { closeQueues } from "@/lib/server/jobs";
-import { hitWav, multipart } from "./fixtures";
+import { hitWav, multipart } from "./helpers";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
 

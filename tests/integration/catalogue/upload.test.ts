@@ -1,5 +1,5 @@
 // Libraries, uploads, listening, labelling and permissions, through the real route handlers against the
-// test MariaDB/Redis. Measuring runs inline here (measureSample + regroupLibrary); the worker process is
+// test MariaDB/Redis. Measuring runs inline here (measureSample + catalogueLibrary); the worker process is
 // exercised in batch.test.ts.
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 
@@ -16,9 +16,9 @@ import { db, closeDb } from "@/lib/server/db";
 import { env } from "@/lib/server/env";
 import { closeQueues, measureJobId, measureQueue } from "@/lib/server/jobs";
 import { measureSample } from "@/lib/server/catalogue/measure";
-import { regroupLibrary } from "@/lib/server/catalogue/regroup";
+import { catalogueLibrary } from "@/lib/server/catalogue/catalogue-library";
 import { measureWav } from "@/lib/audio";
-import { badHeaderWav, hitWav, multipart, notWav, rf64, zipOf } from "./fixtures";
+import { badHeaderWav, hitWav, multipart, notWav, rf64, zipOf } from "./helpers";
 import * as libsRoute from "@/app/api/studios/[studioId]/libraries/route";
 import * as libRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/route";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
@@ -53,7 +53,7 @@ async function uploadStream(stream: ReadableStream<Uint8Array>, type: string) {
 async function measureAll(lib: string) {
   const rows = await db()("samples").where({ library_id: lib, state: "queued" }).select("id", "studio_id");
   for (const r of rows) await measureSample({ sampleId: r.id, studioId: r.studio_id }, async (b) => measureWav(b));
-  await regroupLibrary({ studioId: ctx.studio.id, libraryId: lib });
+  await catalogueLibrary({ studioId: ctx.studio.id, libraryId: lib });
 }
 
 /** Calls a handler and keeps the body as bytes. */
@@ -305,7 +305,7 @@ describe("measuring, browsing, listening, labelling", () => {
     expect(out.res.headers.get("content-range")).toBe(`bytes */${whole.length}`);
   });
 
-  it("relabel and confirm make the labels a person's, are logged, and survive a regroup", async () => {
+  it("relabel and confirm make the labels a person's, are logged, and survive a cataloguing", async () => {
     const ids = (await db()("samples").where({ library_id: libraryId, state: "catalogued" }).where("rel_path", "like", "Snare/%").select("id")).map((r) => r.id);
     const r = await call(relabelRoute.POST, { params: { studioId: ctx.studio.id, libraryId }, body: { sampleIds: ids, articulation: "rim-shot", mic: "top" }, user: ctx.users.editor });
     expect(r.status).toBe(201);
@@ -313,12 +313,12 @@ describe("measuring, browsing, listening, labelling", () => {
     const kick = (await db()("samples").where({ library_id: libraryId, state: "catalogued" }).where("rel_path", "like", "Kick/%").select("id")).map((x) => x.id);
     const c = await call(confirmRoute.POST, { params: { studioId: ctx.studio.id, libraryId }, body: { sampleIds: kick }, user: ctx.users.editor });
     expect(c.json.confirmed).toBe(kick.length);
-    // until the regroup has read the changed samples, the library says it is being sorted (the page keeps polling)
+    // until the cataloguing has read the changed samples, the library says it is being catalogued (the page keeps polling)
     const during = await call(progressRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, user: ctx.users.viewer });
-    expect(during.json).toMatchObject({ pending: 0, sorting: true });
-    await regroupLibrary({ studioId: ctx.studio.id, libraryId });
+    expect(during.json).toMatchObject({ pending: 0, cataloguing: true });
+    await catalogueLibrary({ studioId: ctx.studio.id, libraryId });
     const after = await call(progressRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, user: ctx.users.viewer });
-    expect(after.json).toMatchObject({ pending: 0, sorting: false });
+    expect(after.json).toMatchObject({ pending: 0, cataloguing: false });
     const sn = await db()("samples").whereIn("id", ids).select("articulation", "articulation_source", "mic");
     for (const s of sn) expect(s).toMatchObject({ articulation: "rim-shot", articulation_source: "person", mic: "top" });
     const kk = await db()("samples").whereIn("id", kick).select("family", "family_source", "confirmed_by");
@@ -335,7 +335,7 @@ describe("measuring, browsing, listening, labelling", () => {
     expect(before.some((g) => g.lows.length > 1)).toBe(true);
     const r = await call(libRoute.PATCH, { method: "PATCH", params: { studioId: ctx.studio.id, libraryId }, body: { velocityCurve: "dannenberg" }, user: ctx.users.editor });
     expect(r.status).toBe(200);
-    await regroupLibrary({ studioId: ctx.studio.id, libraryId });
+    await catalogueLibrary({ studioId: ctx.studio.id, libraryId });
     expect((await db()("library_health").where({ library_id: libraryId }).first("curve")).curve).toBe("dannenberg");
     const after = await groups();
     // same groups, but the multi-layer ones now start their layers at other velocities (curves differ: DLS Level 1 vs Dannenberg ICMC 2006)
@@ -346,7 +346,7 @@ describe("measuring, browsing, listening, labelling", () => {
     const bad = await call(libRoute.PATCH, { method: "PATCH", params: { studioId: ctx.studio.id, libraryId }, body: { velocityCurve: "linear" }, user: ctx.users.editor });
     expect(bad.status).toBe(422);
     await call(libRoute.PATCH, { method: "PATCH", params: { studioId: ctx.studio.id, libraryId }, body: { velocityCurve: "dls" }, user: ctx.users.editor });
-    await regroupLibrary({ studioId: ctx.studio.id, libraryId });
+    await catalogueLibrary({ studioId: ctx.studio.id, libraryId });
     expect(await groups()).toEqual(before);
   });
 
@@ -357,14 +357,14 @@ describe("measuring, browsing, listening, labelling", () => {
     const snare = list.find((i) => i.family === "snare")!;
     const rn = await call(instrumentRoute.PATCH, { method: "PATCH", params: { studioId: ctx.studio.id, libraryId, instrumentId: snare.id }, body: { name: "Brass snare" }, user: ctx.users.editor });
     expect(rn.status).toBe(200);
-    await regroupLibrary({ studioId: ctx.studio.id, libraryId });
+    await catalogueLibrary({ studioId: ctx.studio.id, libraryId });
     const again = await db()("instruments").where({ id: snare.id }).first();
-    expect(again.name).toBe("Brass snare"); // kept across the regroup, same id
+    expect(again.name).toBe("Brass snare"); // kept across the cataloguing, same id
     const toms = list.filter((i) => i.family === "tom");
     if (toms.length) {
       const m = await call(mergeRoute.POST, { params: { studioId: ctx.studio.id, libraryId }, body: { sourceIds: toms.map((t) => t.id), targetId: snare.id }, user: ctx.users.editor });
       expect(m.status).toBe(201);
-      await regroupLibrary({ studioId: ctx.studio.id, libraryId });
+      await catalogueLibrary({ studioId: ctx.studio.id, libraryId });
       expect(await db()("instruments").whereIn("id", toms.map((t) => t.id)).first()).toBeUndefined();
     }
     const h = await call(healthRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, user: ctx.users.viewer });
@@ -373,6 +373,34 @@ describe("measuring, browsing, listening, labelling", () => {
     const pl = await call(plotsRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, user: ctx.users.viewer });
     expect(pl.json.groups.length).toBeGreaterThan(0);
     expect(pl.json.points.length).toBe(Number((await db()("samples").where({ library_id: libraryId, state: "catalogued" }).count({ n: "*" }).first())!.n));
+  });
+});
+
+describe("sample states", () => {
+  it("a measured sample is `measured` until the cataloguing places it; only then `catalogued`, and the progress says so", async () => {
+    const lib = await call(libsRoute.POST, { params: { studioId: ctx.studio.id }, body: { name: uniq("States") }, user: ctx.users.editor });
+    const libId = lib.json.id as string;
+    const up = await upload([{ name: "Tom/tom_hi_v1.wav", data: hitWav(71, { freq: 180 }) }, { name: "Tom/tom_hi_v2.wav", data: hitWav(72, { freq: 180, gain: 0.5 }) }], ctx.users.editor, libId);
+    expect(up.status).toBe(201);
+    const rows = await db()("samples").where({ library_id: libId }).select("id", "studio_id");
+    const outs = [];
+    for (const r of rows) outs.push(await measureSample({ sampleId: r.id, studioId: r.studio_id }, async (b) => measureWav(b)));
+    expect(outs).toEqual(["measured", "measured"]);
+    const measured = await db()("samples").where({ library_id: libId }).select("state", "instrument_key", "measurement");
+    for (const m of measured) {
+      expect(m).toMatchObject({ state: "measured", instrument_key: null });
+      expect(m.measurement).toBeTruthy();
+    }
+    const before = await call(progressRoute.GET, { params: { studioId: ctx.studio.id, libraryId: libId }, user: ctx.users.viewer });
+    expect(before.json).toMatchObject({ queued: 0, measuring: 0, measured: 2, catalogued: 0, pending: 0, cataloguing: true, total: 2 });
+    const filtered = await call(samplesRoute.GET, { params: { studioId: ctx.studio.id, libraryId: libId }, path: "/x?state=measured", user: ctx.users.viewer });
+    expect(filtered.json.total).toBe(2);
+
+    expect(await catalogueLibrary({ studioId: ctx.studio.id, libraryId: libId })).toMatchObject({ samples: 2, instruments: 1 });
+    const placed = await db()("samples").where({ library_id: libId }).select("state", "instrument_key", "family");
+    for (const p of placed) expect(p).toMatchObject({ state: "catalogued", instrument_key: expect.any(String), family: "tom" });
+    const after = await call(progressRoute.GET, { params: { studioId: ctx.studio.id, libraryId: libId }, user: ctx.users.viewer });
+    expect(after.json).toMatchObject({ measured: 0, catalogued: 2, pending: 0, cataloguing: false, total: 2 });
   });
 });
 

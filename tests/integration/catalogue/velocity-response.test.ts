@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/lib/server/db";
 import { call, makeStudioWithRoles } from "../helpers";
-import { addInstrument, makeLibrary } from "../audit/factories";
+import { addInstrument, makeLibrary } from "../audit/helpers";
 import * as route from "@/app/api/studios/[studioId]/libraries/[libraryId]/velocity-response/route";
 
 let s: Awaited<ReturnType<typeof makeStudioWithRoles>>;

@@ -16,7 +16,7 @@ import { closeQueues } from "@/lib/server/jobs";
 import { createLibrary } from "@/lib/server/catalogue/libraries";
 import { createApiToken, revokeApiToken } from "@/lib/server/auth/api-tokens";
 import { makeStudioWithRoles, uniq } from "../helpers";
-import { hitWav, notWav, zipOf } from "../catalogue/fixtures";
+import { hitWav, notWav, zipOf } from "../catalogue/helpers";
 import { startRouteServer, type RunningApp } from "../route-server";
 
 const BIN = path.resolve("bin/kitwright.mjs");

@@ -12,6 +12,7 @@ import { db } from "@/lib/server/db";
 import { env } from "@/lib/server/env";
 import { createLibrary } from "@/lib/server/catalogue/libraries";
 import { measureSample } from "@/lib/server/catalogue/measure";
+import { catalogueLibrary } from "@/lib/server/catalogue/catalogue-library";
 import { measureWav } from "@/lib/audio";
 import * as uploadRoute from "@/app/api/studios/[studioId]/libraries/[libraryId]/uploads/route";
 import { call, makeStudioWithRoles, uniq } from "../helpers";
@@ -114,6 +115,8 @@ describe("hostile uploads", () => {
     const queued = out.filter((f) => f.status === "queued");
     expect(queued.length).toBeGreaterThan(50);
     for (const q of queued) await measureSample({ sampleId: q.sampleId!, studioId: ctx.studio.id }, async (bytes) => measureWav(bytes));
+    // and catalogue the library, as the worker's cataloguing job does: every measured sample is placed
+    await catalogueLibrary({ studioId: ctx.studio.id, libraryId });
     const rows = await db()("samples").where({ library_id: libraryId }).select("id", "state", "reject_code", "reject_reason", "rel_path");
     expect(rows).toHaveLength(queued.length);
     for (const row of rows) {

@@ -9,7 +9,7 @@ import { closeQueues } from "@/lib/server/jobs";
 import { jsonColumn } from "@/lib/server/json-column";
 import { changeRole, removeMember } from "@/lib/server/studios";
 import { addToStudio, call, makeStudioWithRoles, makeUser, uniq, type CallOptions } from "../helpers";
-import { hitWav, multipart } from "../catalogue/fixtures";
+import { hitWav, multipart } from "../catalogue/helpers";
 import * as tokensRoute from "@/app/api/me/tokens/route";
 import * as tokenRoute from "@/app/api/me/tokens/[tokenId]/route";
 import * as whoamiRoute from "@/app/api/whoami/route";

@@ -1,7 +1,7 @@
 // The worker's maintenance: old auth rows purged, upload leftovers and stored files without a sample swept after
-// an hour, stranded queued
-// samples queued again (deterministic job ids, so nothing is doubled); at start, samples measured by an older
-// MEASURE_VERSION queued to be measured again, and measured again in place.
+// an hour, stranded queued samples queued again (deterministic job ids, so nothing is doubled), libraries changed
+// and not catalogued since queued for their cataloguing; at start, samples measured by an older MEASURE_VERSION
+// queued to be measured again, and measured again in place, and the jobs of retired queue names removed.
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -9,15 +9,17 @@ import crypto from "node:crypto";
 import { afterAll, describe, expect, it } from "vitest";
 import { db, closeDb } from "@/lib/server/db";
 import { purgeAuthRows } from "@/lib/server/auth/maintenance";
-import { requeueOutdated, requeueStranded } from "@/lib/server/catalogue/maintenance";
+import { requeueOutdated, requeueStaleCatalogues, requeueStranded } from "@/lib/server/catalogue/maintenance";
 import { LocalStorage, storage, sweepPartials } from "@/lib/server/storage";
 import { sweepOrphanFiles } from "@/lib/server/catalogue/orphans";
 import { sampleKey } from "@/lib/server/catalogue/libraries";
-import { closeQueues, measureJobId, measureQueue } from "@/lib/server/jobs";
+import { Queue } from "bullmq";
+import { catalogueQueue, closeQueues, maintenanceQueue, measureJobId, measureQueue, retireRenamedJobs } from "@/lib/server/jobs";
+import { redis } from "@/lib/server/redis";
 import { MEASURE_VERSION } from "@/lib/audio/version";
 import { measureWav } from "@/lib/audio";
 import { measureSample } from "@/lib/server/catalogue/measure";
-import { hitWav } from "../catalogue/fixtures";
+import { hitWav } from "../catalogue/helpers";
 import { makeStudioWithRoles, makeUser } from "../helpers";
 
 afterAll(async () => {
@@ -109,14 +111,15 @@ describe("maintenance", () => {
     const mk = (state: string, version: number | null) => ({ id: crypto.randomUUID(), studio_id: studio.id, library_id: libraryId, rel_path: `${crypto.randomUUID()}.wav`, file_name: "x.wav", sha256: crypto.randomBytes(32).toString("hex"), size_bytes: 1, storage_key: "k", state, measure_version: version, uploaded_by: users.owner.id });
     const old = mk("catalogued", MEASURE_VERSION - 1);
     const oldRefused = mk("rejected", MEASURE_VERSION - 1);
+    const oldMeasured = mk("measured", MEASURE_VERSION - 1);
     const current = mk("catalogued", MEASURE_VERSION);
     const queued = mk("queued", null);
-    const all = [old, oldRefused, current, queued];
+    const all = [old, oldRefused, oldMeasured, current, queued];
     await db()("samples").insert(all);
     try {
       // pages of two: the walk by id goes on past a full page
-      expect(await requeueOutdated({ pageSize: 2 })).toBeGreaterThanOrEqual(2);
-      for (const s of [old, oldRefused]) expect(await measureQueue().getJob(measureJobId(s.id))).toBeTruthy();
+      expect(await requeueOutdated({ pageSize: 2 })).toBeGreaterThanOrEqual(3);
+      for (const s of [old, oldRefused, oldMeasured]) expect(await measureQueue().getJob(measureJobId(s.id))).toBeTruthy();
       for (const s of [current, queued]) expect(await measureQueue().getJob(measureJobId(s.id))).toBeFalsy();
       const before = await measureQueue().getJobCounts("waiting", "delayed", "active");
       await requeueOutdated();
@@ -124,6 +127,48 @@ describe("maintenance", () => {
     } finally {
       for (const s of all) await (await measureQueue().getJob(measureJobId(s.id)))?.remove().catch(() => undefined);
       await db()("samples").whereIn("id", all.map((s) => s.id)).delete();
+    }
+  });
+
+  it("queues the cataloguing of a library changed a while ago and not catalogued since, and of no other", async () => {
+    const { studio, users } = await makeStudioWithRoles();
+    const mkLib = async (name: string) => {
+      const id = crypto.randomUUID();
+      await db()("libraries").insert({ id, studio_id: studio.id, name });
+      return id;
+    };
+    const stale = await mkLib("Stale"), fresh = await mkLib("Fresh"), done = await mkLib("Done"), relabelled = await mkLib("Relabelled");
+    const tenMinutesAgo = new Date(Date.now() - 10 * 60_000), twentyMinutesAgo = new Date(Date.now() - 20 * 60_000);
+    const mk = (libraryId: string, state: string, updated: Date) => ({ id: crypto.randomUUID(), studio_id: studio.id, library_id: libraryId, rel_path: `${crypto.randomUUID()}.wav`, file_name: "x.wav", sha256: crypto.randomBytes(32).toString("hex"), size_bytes: 1, storage_key: "k", state, uploaded_by: users.owner.id, updated_at: updated });
+    // stale: measured ten minutes ago, never catalogued; fresh: measured just now (its own job is due);
+    // done: catalogued after its last change; relabelled: a catalogued sample changed after the catalogue was read
+    await db()("samples").insert([mk(stale, "measured", tenMinutesAgo), mk(fresh, "measured", new Date()), mk(done, "catalogued", twentyMinutesAgo), mk(relabelled, "catalogued", tenMinutesAgo)]);
+    const health = (libraryId: string, at: Date) => ({ library_id: libraryId, studio_id: studio.id, findings: "[]", curve: "dls", sample_count: 1, computed_at: at });
+    await db()("library_health").insert([health(done, tenMinutesAgo), health(relabelled, twentyMinutesAgo)]);
+    const jobsOf = async () => new Set((await catalogueQueue().getJobs(["waiting", "delayed", "prioritized"])).map((j) => j.data.libraryId as string));
+    try {
+      expect(await requeueStaleCatalogues()).toBeGreaterThanOrEqual(2);
+      const queued = await jobsOf();
+      expect([stale, fresh, done, relabelled].map((l) => queued.has(l))).toEqual([true, false, false, true]);
+    } finally {
+      for (const j of await catalogueQueue().getJobs(["waiting", "delayed", "prioritized"])) if ([stale, relabelled].includes(j.data.libraryId)) await j.remove().catch(() => undefined);
+      await db()("libraries").whereIn("id", [stale, fresh, done, relabelled]).delete();
+    }
+  });
+
+  it("at worker start, the queue and the schedule of retired names are removed with what they held", async () => {
+    const old = new Queue("kw-regroup", { connection: redis() });
+    try {
+      await old.add("regroup", { studioId: "s", libraryId: "l" }, { delay: 60_000 });
+      await maintenanceQueue().upsertJobScheduler("purge-expired", { every: 600_000 }, { name: "purge-expired", data: {} });
+      expect(await retireRenamedJobs()).toBeGreaterThanOrEqual(1);
+      expect(Object.values(await old.getJobCounts()).reduce((a, b) => a + b, 0)).toBe(0);
+      expect(await maintenanceQueue().getJobScheduler("purge-expired")).toBeFalsy();
+      const left = await maintenanceQueue().getJobs(["waiting", "delayed", "prioritized", "wait", "active"]);
+      expect(left.filter((j) => j.name === "purge-expired")).toEqual([]);
+      expect(await retireRenamedJobs()).toBe(0);
+    } finally {
+      await old.close();
     }
   });
 

@@ -9,9 +9,9 @@ import { mb, Refusal } from "./outcome";
 
 /**
  * Bytes each stage of an upload (parser, file stream, hash) may hold ahead of the next. With Node's 16 KB
- * defaults the request waited on every disk write in turn (2 GB at 64-78 MB/s); 256 KB per stage, with the
- * 1 MB file write buffer in storage.ts, keeps the socket, the hash and the disk busy at once (about 110 MB/s
- * here). Larger stages gained nothing more and left more memory to the garbage collector.
+ * defaults the request waited on every disk write in turn; 256 KB per stage, with the 1 MB file write buffer in
+ * storage.ts, keeps the socket, the hash and the disk busy at once. Larger stages gained nothing more and left
+ * more memory to the garbage collector (bench/RESULTS.md, "Measurements behind design choices").
  */
 export const STREAM_BUFFER = 256 * 1024;
 

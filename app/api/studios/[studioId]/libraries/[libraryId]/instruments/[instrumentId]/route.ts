@@ -1,4 +1,4 @@
-// PATCH /api/studios/:studioId/libraries/:libraryId/instruments/:instrumentId – rename (kept across regroups).
+// PATCH /api/studios/:studioId/libraries/:libraryId/instruments/:instrumentId – rename (kept across cataloguings).
 import { route } from "@/lib/server/route";
 import { renameInstrument } from "@/lib/server/catalogue/instruments";
 import { instrumentParams, renameInstrumentSchema } from "@/lib/validation/library";

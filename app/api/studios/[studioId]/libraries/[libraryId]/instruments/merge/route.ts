@@ -1,5 +1,5 @@
 // POST /api/studios/:studioId/libraries/:libraryId/instruments/merge – { sourceIds, targetId }: move the
-// sources' samples into the target instrument; regroups the library.
+// sources' samples into the target instrument; catalogues the library again.
 import { route } from "@/lib/server/route";
 import { mergeInstruments } from "@/lib/server/catalogue/instruments";
 import { libraryParams, mergeInstrumentsSchema } from "@/lib/validation/library";

@@ -1,5 +1,5 @@
 // POST /api/studios/:studioId/libraries/:libraryId/samples/relabel – set family / articulation / mic /
-// instrument on many samples (labels become the member's: source "person"); logged; regroups the library.
+// instrument on many samples (labels become the member's: source "person"); logged; catalogues the library again.
 import { route } from "@/lib/server/route";
 import { relabelSamples } from "@/lib/server/catalogue/sample-labels";
 import { libraryParams, relabelSchema } from "@/lib/validation/library";

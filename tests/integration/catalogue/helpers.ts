@@ -1,4 +1,4 @@
-// Fixtures of the catalogue tests: small generated WAVs (RIFF/WAVE written by lib/audio's encoder), broken
+// Test helpers of the catalogue tests: small generated WAVs (RIFF/WAVE written by lib/audio's encoder), broken
 // files, multipart bodies, zip packs (stored or deflated, written by hand per the PKZIP APPNOTE 4.3 layout),
 // and a real worker process.
 import { spawn, type ChildProcess } from "node:child_process";
@@ -72,7 +72,7 @@ export async function waitForReady(log: string[], timeoutMs = 30_000): Promise<v
 
 export async function stateCounts(libraryId: string): Promise<Record<string, number>> {
   const rows = await db()("samples").where({ library_id: libraryId }).groupBy("state").select("state").count({ n: "*" });
-  const out: Record<string, number> = { queued: 0, measuring: 0, catalogued: 0, rejected: 0 };
+  const out: Record<string, number> = { queued: 0, measuring: 0, measured: 0, catalogued: 0, rejected: 0 };
   for (const r of rows as { state: string; n: number }[]) out[r.state] = Number(r.n);
   return out;
 }

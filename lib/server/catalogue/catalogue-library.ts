@@ -1,40 +1,43 @@
 import "server-only";
-// Regroup of a library: every catalogued sample + its confirmed labels + the studio's label model through
-// lib/catalogue's catalogueSamples(); then, in one transaction, the per-sample labels, layers and round robins,
-// the instruments with their pitch (upserted by key so ids stay stable; gone ones deleted), the layer groups and
-// the health. Nothing is computed here that the command line would compute otherwise.
+// Cataloguing of a library: every measured sample (state `measured` or `catalogued`) + its confirmed labels + the
+// studio's label model through lib/catalogue's catalogueSamples(); then, in one transaction, the per-sample labels,
+// layers and round robins, the instruments with their pitch (upserted by key so ids stay stable; gone ones
+// deleted), the layer groups and the health, and the samples it placed become `catalogued`. Nothing is computed
+// here that the command line would compute otherwise.
 import { buildLabelModel, catalogueSamples, featureVector, isArticulation, isFamily, MIC_POSITIONS, type CatalogueSampleInput, type LabelModel, type MicPosition } from "@/lib/catalogue";
 import type { Measurement } from "@/lib/audio";
 import { DLS, type VelocityCurve } from "@/lib/catalogue/velocity";
 import { db } from "../db";
 import { newId } from "../ids";
-import { noteRegroupDuration } from "./queue";
+import { noteCataloguingDuration } from "./queue";
 import { jsonColumn } from "../json-column";
+import { MEASURED_STATES } from "@/lib/validation/library";
 
 const isMic = (s: unknown): s is MicPosition => typeof s === "string" && (MIC_POSITIONS as readonly string[]).includes(s);
 
 /** The studio's nearest-neighbour model from the samples members labelled (family_source = person). */
 export async function studioLabelModel(studioId: string): Promise<LabelModel | undefined> {
-  const rows = await db()("samples").where({ studio_id: studioId, family_source: "person", state: "catalogued" }).whereNotNull("measurement").orderBy("confirmed_at", "desc").limit(5000).select("measurement", "family", "articulation");
+  const rows = await db()("samples").where({ studio_id: studioId, family_source: "person" }).whereIn("state", MEASURED_STATES).whereNotNull("measurement").orderBy("confirmed_at", "desc").limit(5000).select("measurement", "family", "articulation");
   const examples = rows
     .filter((r) => isFamily(r.family) && isArticulation(r.articulation))
     .map((r) => ({ features: featureVector(jsonColumn<Measurement>(r.measurement)), family: r.family, articulation: r.articulation }));
   return examples.length ? buildLabelModel(examples) : undefined;
 }
 
-export interface RegroupOutcome { samples: number; instruments: number; groups: number; findings: number }
+export interface CataloguingOutcome { samples: number; instruments: number; groups: number; findings: number }
 
-export async function regroupLibrary({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<RegroupOutcome | null> {
+export async function catalogueLibrary({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<CataloguingOutcome | null> {
   const labelModel = await studioLabelModel(studioId);
   return db().transaction(async (trx) => {
     const lib = await trx("libraries").where({ id: libraryId, studio_id: studioId }).forUpdate().first("id", "velocity_curve");
     if (!lib) return null;
     // The catalogue reflects the samples as read now: health.computed_at is this moment (database clock), so a
-    // sample measured or relabelled after it (updated_at later) shows the library as still being sorted.
+    // sample measured or relabelled after it (updated_at later) shows the library as still being catalogued.
     const [[{ t: readAt }]] = (await trx.raw("SELECT NOW(3) AS t")) as unknown as [[{ t: Date }]];
     const rows = await trx("samples")
-      .where({ library_id: libraryId, studio_id: studioId, state: "catalogued" })
-      .select("id", "rel_path", "file_name", "sha256", "size_bytes", "storage_key", "measurement", "confirmed_family", "confirmed_articulation", "confirmed_mic", "confirmed_instrument_key");
+      .where({ library_id: libraryId, studio_id: studioId })
+      .whereIn("state", MEASURED_STATES)
+      .select("id", "state", "rel_path", "file_name", "sha256", "size_bytes", "storage_key", "measurement", "confirmed_family", "confirmed_articulation", "confirmed_mic", "confirmed_instrument_key");
     const inputs: CatalogueSampleInput[] = rows.map((r) => {
       const confirmed: CatalogueSampleInput["confirmed"] = {};
       if (r.confirmed_family && isFamily(r.confirmed_family)) confirmed.family = r.confirmed_family;
@@ -84,17 +87,22 @@ export async function regroupLibrary({ studioId, libraryId }: { studioId: string
 
     const health = { library_id: libraryId, studio_id: studioId, findings: JSON.stringify(cat.health), curve: cat.curve.kind, sample_count: inputs.length, computed_at: readAt };
     await trx("library_health").insert(health).onConflict("library_id").merge(["findings", "curve", "sample_count", "computed_at"]);
+
+    // every sample read now has its instrument and layer: `measured` becomes `catalogued` (last, so the state
+    // counters of migration 0008 are held only briefly; updated_at stays, it dates the sample's own changes)
+    const placed = cat.samples.filter((e) => byId.get(e.id)!.state === "measured").map((e) => e.id);
+    for (let i = 0; i < placed.length; i += 1000) await trx("samples").whereIn("id", placed.slice(i, i + 1000)).where({ state: "measured" }).update({ state: "catalogued" });
     return { samples: inputs.length, instruments: cat.instruments.length, groups: cat.groups.length, findings: cat.health.length };
   });
 }
 
 /**
- * The regroup job (workers/main.ts): regroups the library and notes how long it took, which sets the window its
- * next regroup requests share (lib/server/jobs.ts regroupWindowMs).
+ * The cataloguing job (workers/main.ts): catalogues the library and notes how long it took, which sets the
+ * window its next cataloguing requests share (lib/server/jobs.ts cataloguingWindowMs).
  */
-export async function runRegroupJob(data: { studioId: string; libraryId: string }): Promise<RegroupOutcome | null> {
+export async function runCataloguingJob(data: { studioId: string; libraryId: string }): Promise<CataloguingOutcome | null> {
   const t0 = performance.now();
-  const out = await regroupLibrary(data);
-  noteRegroupDuration(data.libraryId, performance.now() - t0);
+  const out = await catalogueLibrary(data);
+  noteCataloguingDuration(data.libraryId, performance.now() - t0);
   return out;
 }

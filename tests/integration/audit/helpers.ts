@@ -1,5 +1,5 @@
 // Catalogue rows for audit tests and the e2e flow: a library, instruments and layer groups written the way
-// the regroup job writes them (layer_groups.layers = [{ index, velocityLow, velocityHigh, meanStrikeLufs, sampleIds }]).
+// the cataloguing job writes them (layer_groups.layers = [{ index, velocityLow, velocityHigh, meanStrikeLufs, sampleIds }]).
 import crypto from "node:crypto";
 import type { Knex } from "knex";
 
