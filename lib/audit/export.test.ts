@@ -78,7 +78,7 @@ describe("CSV export (RFC 4180 quoting)", () => {
   });
 });
 
-describe("JSON export (kitwright.audit/v1)", () => {
+describe("JSON export (kitwright.audit/v2)", () => {
   it("round-trips through JSON text", () => {
     const j = auditToJson(audit);
     expect(j.schema).toBe(AUDIT_SCHEMA);
