@@ -126,6 +126,9 @@ export interface AuditDiff {
   scoreBefore: number;
   scoreAfter: number;
   scoreDelta: number;
+  /** The score's sentence before and after. */
+  sentenceBefore: string;
+  sentenceAfter: string;
   summaryBefore: AuditResult["summary"];
   summaryAfter: AuditResult["summary"];
   conflictsAdded: Conflict[];
@@ -184,6 +187,8 @@ export function diffAudits(beforeRaw: AuditResult, afterRaw: AuditResult): Audit
     scoreBefore: before.score.value,
     scoreAfter: after.score.value,
     scoreDelta: after.score.value - before.score.value,
+    sentenceBefore: before.score.sentence,
+    sentenceAfter: after.score.sentence,
     summaryBefore: before.summary,
     summaryAfter: after.summary,
     conflictsAdded: after.conflicts.filter((c) => !ka.has(conflictKey(c))),
