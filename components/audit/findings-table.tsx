@@ -1,6 +1,6 @@
 "use client";
-// Every pad (then the pedal zones and the chick note) in a drummer's words: what it plays, its velocity bar and
-// round robins, sortable (TanStack Table v8). Pads aimed at an empty slot are already told once, grouped, above
+// Every pad (then the pedal zones and the chick note) in a drummer's words: what it plays, its velocity bar with
+// its layers and round robins, sortable (TanStack Table v8). Pads aimed at an empty slot are already told once, grouped, above
 // the table: they are folded away until asked for. Below 768 px each row is a stacked block.
 import { useMemo, useState } from "react";
 import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
@@ -60,26 +60,20 @@ export function FindingsTable({ result }: { result: AuditResult }) {
         );
       },
     }),
-    col.accessor((r) => r.f.layers.length, {
-      id: "layers", header: "Velocity layers",
+    col.accessor((r) => r.f.layers.length * 1000 + r.f.minRoundRobins, {
+      id: "layers", header: "Velocity layers and round robins",
       cell: (i) => {
         const f = i.row.original.f;
         if (f.outcome === "silent") return <Cell title="Velocity layers"><span className="text-muted">—</span></Cell>;
         return (
-          <Cell title="Velocity layers">
-            <div className="w-full min-w-40 max-w-64 space-y-0.5">
+          <Cell title="Velocity layers and round robins">
+            <div className="w-full space-y-0.5 md:w-72">
               <VelocityBar layers={f.layers} gaps={f.velocityGaps} />
-              <span className="block text-xs">{f.layers.length} layer{f.layers.length === 1 ? "" : "s"}{f.velocityGaps.length ? <span className="text-bad">; nothing at {gapsInWords(f)}</span> : null}</span>
+              <span className="block text-xs">{f.layers.length} layer{f.layers.length === 1 ? "" : "s"}, {f.minRoundRobins === 1 ? "1 take in the thinnest" : `at least ${f.minRoundRobins} takes each`}{f.velocityGaps.length ? <span className="text-bad">; nothing at {gapsInWords(f)}</span> : null}</span>
             </div>
           </Cell>
         );
       },
-    }),
-    col.accessor((r) => r.f.minRoundRobins, {
-      id: "rr", header: "Round robins",
-      cell: (i) => (i.row.original.f.outcome === "silent" ? null : (
-        <Cell title="Round robins"><span title="The fewest takes any of its layers holds">{i.getValue() === 1 ? "1 take" : `${i.getValue()} takes or more`}</span></Cell>
-      )),
     }),
   ], [middleC]);
   // eslint-disable-next-line react-hooks/incompatible-library

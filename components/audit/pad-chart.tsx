@@ -26,7 +26,9 @@ function shortPlays(p: PadFinding): string {
   return strokeName(p.family, p.plays);
 }
 
-function PadCell({ p, middleC, playing, onPlay, cell }: { p: PadFinding; middleC: "C3" | "C4"; playing: boolean; onPlay: (p: PadFinding) => void; cell?: CellProps }) {
+/** `dense`: a grid of 4 or more columns; below 640 px its pads show the outcome by icon only (the words stay in the label). */
+function PadCell({ p, middleC, playing, onPlay, cell, dense = false }: { p: PadFinding; middleC: "C3" | "C4"; playing: boolean; onPlay: (p: PadFinding) => void; cell?: CellProps; dense?: boolean }) {
+  const wide = dense ? "hidden sm:inline" : "inline";
   const frame = p.outcome === "direct" ? "border-line" : p.outcome === "stand-in" ? "border-warn/60 border-dashed" : "border-bad/70 border-2";
   return (
     <button type="button" onClick={() => onPlay(p)} data-testid="chart-pad" data-pad-id={p.padId} data-outcome={p.outcome} aria-pressed={playing} data-playing={playing || undefined}
@@ -36,10 +38,10 @@ function PadCell({ p, middleC, playing, onPlay, cell }: { p: PadFinding; middleC
       aria-label={`${p.label}, note ${p.note}: ${playsInWords(p)}. Press to audition.`}>
       <span className="flex flex-wrap items-start justify-between gap-x-1">
         <span className="min-w-0 font-medium leading-tight [overflow-wrap:anywhere] hyphens-auto">{p.label}</span>
-        <span className="num shrink-0 text-muted">{p.note}<span className="hidden sm:inline"> {noteName(p.note, middleC)}</span></span>
+        <span className="num shrink-0 text-muted">{p.note}<span className={wide}> {noteName(p.note, middleC)}</span></span>
       </span>
-      <span className="flex items-center gap-1 font-semibold"><OutcomeIcon outcome={p.outcome} /> <span className="hidden sm:inline">{OUTCOME_TEXT[p.outcome]}</span>{playing && <span className="ml-auto text-brand" aria-hidden>▶</span>}</span>
-      <span className="hidden leading-tight text-muted sm:block">{shortPlays(p)}</span>
+      <span className="flex items-center gap-1 font-semibold"><OutcomeIcon outcome={p.outcome} /> <span className={wide}>{OUTCOME_TEXT[p.outcome]}</span>{playing && <span className="ml-auto text-brand" aria-hidden>▶</span>}</span>
+      <span className={`${dense ? "hidden sm:block" : "block"} leading-tight text-muted`}>{shortPlays(p)}</span>
       {p.outcome !== "silent" && <span className="mt-auto block"><VelocityBar layers={p.layers} gaps={p.velocityGaps} compact /></span>}
     </button>
   );
@@ -100,7 +102,7 @@ export function PadChart({ studioId, auditId, result, surface }: { studioId: str
         </span>
       </div>
       <PadGrid surface={shape} pads={result.pads} label="Pad chart" testId="pad-chart"
-        renderPad={(p, cell) => <PadCell p={p} cell={cell} middleC={middleC} playing={playing.has(p.padId)} onPlay={(x) => play(x, velocity)} />} />
+        renderPad={(p, cell) => <PadCell p={p} cell={cell} dense={shape.kind === "grid" && shape.cols >= 4} middleC={middleC} playing={playing.has(p.padId)} onPlay={(x) => play(x, velocity)} />} />
       {result.pedal?.chick && (
         <div className="max-w-[12rem]">
           <p className="mb-1 text-xs text-muted">Pedal chick note</p>

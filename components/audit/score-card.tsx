@@ -11,8 +11,8 @@ import { conflictTitle, gapsInWords, onEmptySlot, playDetail, playsInWords, sile
 // MathML Core (drawn by the browser): score = round(100 × Σ wᵢ·cᵢ·kᵢ / N)
 const FORMULA_MATHML =
   '<math display="block" aria-label="score equals 100 times the sum over all items of w times c times k, divided by N, rounded">' +
-  "<mrow><mi>score</mi><mo>=</mo><mi>round</mi><mo>(</mo><mn>100</mn><mo>×</mo><mfrac><mrow><munderover><mo>∑</mo><mrow><mi>i</mi><mo>=</mo><mn>1</mn></mrow><mi>N</mi></munderover>" +
-  "<msub><mi>w</mi><mi>i</mi></msub><mo>·</mo><msub><mi>c</mi><mi>i</mi></msub><mo>·</mo><msub><mi>k</mi><mi>i</mi></msub></mrow><mi>N</mi></mfrac><mo>)</mo></mrow></math>";
+  "<mrow><mi>score</mi><mo>=</mo><mi>round</mi><mo>(</mo><mn>100</mn><mo>×</mo><mfrac><mrow><mstyle displaystyle='true'><munderover><mo>∑</mo><mrow><mi>i</mi><mo>=</mo><mn>1</mn></mrow><mi>N</mi></munderover>" +
+  "<msub><mi>w</mi><mi>i</mi></msub><mo>·</mo><msub><mi>c</mi><mi>i</mi></msub><mo>·</mo><msub><mi>k</mi><mi>i</mi></msub></mstyle></mrow><mi>N</mi></mfrac><mo>)</mo></mrow></math>";
 const WEIGHT_MATHML =
   '<math aria-label="w for a stand-in d steps away equals the larger of one half and 1 minus d over 10"><mrow><msub><mi>w</mi><mi>i</mi></msub><mo>=</mo><mi>max</mi><mo>(</mo><mfrac><mn>1</mn><mn>2</mn></mfrac><mo>,</mo><mn>1</mn><mo>−</mo><mfrac><mi>d</mi><mn>10</mn></mfrac><mo>)</mo></mrow></math>';
 
@@ -48,7 +48,7 @@ export function ScoreCard({ result: r }: { result: AuditResult }) {
             <li><i>c</i>, velocities covered: the share of velocities 1–127 that one of its layers covers.</li>
             <li><i>k</i>, note clash: 0 when another pad sends the same note on the same channel for a different sound, since only one can answer; otherwise 1.</li>
           </ul>
-          <p className="num" data-testid="score-worked">For this audit: 100 × {sc.itemSum.toFixed(2)} ÷ {items} = {items ? ((100 * sc.itemSum) / items).toFixed(1) : "0"} → {sc.value}/100.</p>
+          <p className="tabular-nums" data-testid="score-worked">For this audit: 100 × {sc.itemSum.toFixed(2)} ÷ {items} = {items ? ((100 * sc.itemSum) / items).toFixed(1) : "0"} → {sc.value}/100.</p>
           <p className="text-xs text-muted" title="Velocities are MIDI 1.0 note-on velocities (1–127). The closeness steps between strokes are common practice of drum libraries, not a published standard.">Conflicts that change nothing that plays (a pad outside the grid, a repeated pad id) are listed but do not change the score.</p>
         </div>
       </details>

@@ -86,15 +86,20 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
 }
 
 /** A difference of diffAudits in a drummer's words (outcome and stroke are shown by the badges beside it). */
-function detailInWords(d: string): string {
-  const m = /^(\w[\w ]*?) (.*) -> (.*)$/.exec(d);
+function detailInWords(d: string, _i: number, all: string[]): string {
+  const was = (what: string) => all.some((x) => x.startsWith(`${what} `));
+  const fromSilence = all.some((x) => x.startsWith("outcome silent "));
+  const toSilence = all.some((x) => / -> silent$/.test(x) && x.startsWith("outcome "));
+  const m = /^(outcome|plays|instrument|path|layers|velocity gaps|round robins) (.*) -> (.*)$/.exec(d);
   if (!m) return d;
   const [, what, a, b] = m as unknown as [string, string, string, string];
+  const dash = (x: string) => x.replace(/(\d)-(\d)/g, "$1–$2");
   if (what === "outcome" || what === "plays") return "";
   if (what === "path") return "another stand-in answers";
   if (what === "instrument") return `instrument ${a} → ${b}`;
-  if (what === "layers") return `velocity layers ${a} → ${b}`;
-  if (what === "velocity gaps") return `velocities with no sound: ${a.replace(/-/g, "–")} → ${b.replace(/-/g, "–")}`;
-  if (what === "round robins") return `round robins ${a} → ${b}`;
-  return `${what} ${a} → ${b}`;
+  // a pad that starts or stops sounding: its layers say the rest
+  if ((fromSilence || toSilence) && (what === "velocity gaps" || what === "round robins")) return "";
+  if (what === "layers") return fromSilence ? `now ${b} velocity layer${b === "1" ? "" : "s"}${was("velocity gaps") && / -> none$/.test(all.find((x) => x.startsWith("velocity gaps "))!) ? ", every velocity covered" : ""}` : toSilence ? "" : `velocity layers ${a} → ${b}`;
+  if (what === "velocity gaps") return b === "none" ? `velocities ${dash(a)} now sound` : a === "none" ? `nothing sounds at ${dash(b)} now` : `velocities with no sound: ${dash(a)} → ${dash(b)}`;
+  return `round robins ${a} → ${b}`;
 }
