@@ -56,8 +56,10 @@ export function PadChart({ studioId, auditId, result, surface }: { studioId: str
   const [velocity, setVelocity] = useState(100);
   const [line, setLine] = useState<{ ok: boolean; text: string } | null>(null);
   const [pending, setPending] = useState<{ p: PadFinding; v: number } | null>(null);
-  const [playing, setPlaying] = useState<ReadonlySet<string>>(new Set());
-  const mark = useCallback((id: string, on: boolean) => setPlaying((s) => { const n = new Set(s); if (on) n.add(id); else n.delete(id); return n; }), []);
+  // how many of each pad's hits are sounding (a pad hit again before its sample ends stays lit until the last ends)
+  const [sounding, setSounding] = useState<ReadonlyMap<string, number>>(new Map());
+  const mark = useCallback((id: string, on: boolean) => setSounding((s) => { const n = new Map(s); const k = (n.get(id) ?? 0) + (on ? 1 : -1); if (k > 0) n.set(id, k); else n.delete(id); return n; }), []);
+  const playing = { has: (id: string) => sounding.has(id) };
   const [events, setEvents] = useState<MidiEvent[]>([]);
   const loadSounds = useAuditSoundsLoader(studioId, auditId);
 
