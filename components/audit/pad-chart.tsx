@@ -34,7 +34,7 @@ function PadCell({ p, middleC, playing, onPlay, cell, dense = false }: { p: PadF
     <button type="button" onClick={() => onPlay(p)} data-testid="chart-pad" data-pad-id={p.padId} data-outcome={p.outcome} aria-pressed={playing} data-playing={playing || undefined}
       {...cell}
       title={`${playsInWords(p)}. ${playDetail(p)}`}
-      className={`flex h-full min-h-20 w-full flex-col gap-1 rounded-md border bg-card p-1.5 text-left text-xs break-inside-avoid hover:bg-paper sm:p-2 ${frame} ${playing ? "ring-2 ring-brand ring-offset-1 ring-offset-card" : ""}`}
+      className={`flex h-full min-h-20 w-full flex-col gap-1 rounded-md border bg-card text-left break-inside-avoid hover:bg-paper sm:p-2 sm:text-xs ${dense ? "p-1 text-[11px]" : "p-1.5 text-xs"} ${frame} ${playing ? "ring-2 ring-brand ring-offset-1 ring-offset-card" : ""}`}
       aria-label={`${p.label}, note ${p.note}: ${playsInWords(p)}. Press to audition.`}>
       <span className="flex flex-wrap items-start justify-between gap-x-1">
         <span className="min-w-0 font-medium leading-tight [overflow-wrap:anywhere] hyphens-auto">{p.label}</span>

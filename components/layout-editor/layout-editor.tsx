@@ -103,7 +103,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
     const isSel = p.id === selected;
     return (
       <button key={p.id} type="button" onClick={() => setSelected(p.id)} aria-pressed={isSel} data-testid="layout-pad" data-pad-id={p.id} {...cell}
-        className={`flex h-full min-h-20 w-full flex-col items-start gap-0.5 rounded-md border p-1.5 text-left text-xs sm:p-2 ${isSel ? "border-brand bg-brand-soft ring-2 ring-brand" : "border-line bg-card hover:bg-paper"}`}>
+        className={`flex h-full min-h-20 w-full flex-col items-start gap-0.5 rounded-md border p-1 text-left text-[11px] sm:p-2 sm:text-xs ${isSel ? "border-brand bg-brand-soft ring-2 ring-brand" : "border-line bg-card hover:bg-paper"}`}>
         <span className="min-w-0 font-medium [overflow-wrap:anywhere]">{p.label || "(no label)"}</span>
         <span className="num">{p.note} · {noteName(p.note, middleC)} · ch {p.channel}{shared && <span title="Several pads send this note" aria-label="shared note"> ⧉</span>}</span>
         <span className="text-muted">{p.target ? `${s?.name ?? p.target.slotId}: ${p.target.articulation}` : "→ no target"}</span>

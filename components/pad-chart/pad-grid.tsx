@@ -43,7 +43,7 @@ export function PadGrid<P extends Placed>({ surface, pads, renderPad, renderEmpt
   };
 
   const style: CSSProperties = g.kind === "grid"
-    ? { gridTemplateColumns: `repeat(${g.cols}, minmax(3.25rem, 1fr))` }
+    ? { gridTemplateColumns: `repeat(${g.cols}, minmax(2.75rem, 1fr))` }
     : ({ "--pad-cols": g.cols, "--pad-cols-narrow": NARROW_ZONE_COLUMNS } as CSSProperties);
   return (
     <div className={`overflow-x-auto ${className}`}>
