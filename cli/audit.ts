@@ -127,10 +127,15 @@ function describe(f: PlayFinding): string {
 export function formatText(r: AuditResult): string {
   const lines: string[] = [];
   lines.push(`Audit of "${r.layoutName}" against "${r.kitName}"`);
-  lines.push(`score ${r.score.value} / 100   pads ${r.summary.pads}: ${r.summary.direct} direct, ${r.summary.standIn} stand-in, ${r.summary.silent} silent   conflicts ${r.summary.conflicts}`);
+  lines.push(`score ${r.score.value}/100   pads ${r.summary.pads}: ${r.summary.direct} direct, ${r.summary.standIn} stand-in, ${r.summary.silent} silent   conflicts ${r.summary.conflicts}`);
+  lines.push(r.score.sentence);
   if (r.conflicts.length) {
     lines.push("", "Conflicts");
     for (const c of r.conflicts) lines.push(`  ${c.kind}: ${c.message}`);
+  }
+  if (r.emptySlots.length) {
+    lines.push("", `Empty slots (${r.emptySlots.reduce((s, g) => s + g.padIds.length, 0)} silent pads aim at them)`);
+    for (const g of r.emptySlots) lines.push(`  ${g.slotName}: ${g.labels.join(", ")}`);
   }
   lines.push("", "Pads");
   for (const p of r.pads) {

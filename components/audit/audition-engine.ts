@@ -26,7 +26,8 @@ export function layerFor(layers: SoundLayer[], velocity: number): SoundLayer | n
 
 export const dbToGain = (db: number) => Math.pow(10, db / 20);
 
-export interface PlayInfo { text: string; ok: boolean }
+/** What was played: a line of text, and for a sound that started, when it ends. */
+export interface PlayInfo { text: string; ok: boolean; ended?: Promise<void> }
 
 export class AuditionEngine {
   private ctx: AudioContext | null = null;
@@ -95,17 +96,19 @@ export class AuditionEngine {
     const take = n % layer.sampleIds.length;
     const ctx = this.ensure();
     if (ctx.state === "suspended") await ctx.resume();
+    let ended: Promise<void>;
     try {
       const buf = await this.load(inst.libraryId, layer.sampleIds[take]!);
       const src = ctx.createBufferSource();
       src.buffer = buf;
       src.connect(this.master!);
+      ended = new Promise<void>((resolve) => { src.onended = () => resolve(); });
       src.start();
     } catch (e) {
       return { ok: false, text: `Could not play: ${(e as Error).message}.` };
     }
     const pos = art.layers.filter((l) => l.sampleIds.length).sort((a, b) => a.velocityLow - b.velocityLow).indexOf(layer) + 1;
-    return { ok: true, text: `${inst.name}: ${art.articulation}, velocity ${velocity} → layer ${pos}/${art.layers.length} (${layer.velocityLow}-${layer.velocityHigh}), take ${take + 1}/${layer.sampleIds.length}` };
+    return { ok: true, ended, text: `${inst.name}: ${art.articulation}, velocity ${velocity} → layer ${pos}/${art.layers.length} (${layer.velocityLow}-${layer.velocityHigh}), take ${take + 1}/${layer.sampleIds.length}` };
   }
 
   close() { void this.ctx?.close(); this.ctx = null; }

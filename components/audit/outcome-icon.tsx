@@ -2,7 +2,7 @@
 // (stand-in) and a hollow disc with a cross (silent). Always shown beside the outcome word.
 import type { Outcome } from "@/lib/audit/types";
 
-export const OUTCOME_TEXT: Record<Outcome, string> = { direct: "direct", "stand-in": "stand-in", silent: "silent" };
+export const OUTCOME_TEXT: Record<Outcome, string> = { direct: "as recorded", "stand-in": "stand-in", silent: "silent" };
 
 export function OutcomeIcon({ outcome, size = 14 }: { outcome: Outcome; size?: number }) {
   const r = 6;

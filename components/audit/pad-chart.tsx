@@ -1,12 +1,16 @@
 "use client";
-// The pad chart drawn like the layout (grid rows × columns, or the trigger-zone list), each pad with its
-// outcome in words and an icon, what it plays and its velocity bar; and the audition controls: click a pad
-// (or hit it on the controller) to hear what the kit plays at that velocity.
+// The audit's pad chart: the layout drawn by the shared pad grid (components/pad-chart, the same drawing as the
+// layout editor), each pad with its outcome in words and an icon, what it plays and its velocity bar; and the
+// audition: click a pad, press Enter or Space on it, or hit it on the controller, to hear what the kit plays at
+// that velocity. A pad shows it is sounding (aria-pressed and a ring) until its sample ends.
 import { useCallback, useEffect, useRef, useState } from "react";
-import type { AuditResult, PadFinding } from "@/lib/audit/types";
+import type { AuditResult, LayoutSurface, PadFinding } from "@/lib/audit/types";
 import { OutcomeIcon, OUTCOME_TEXT } from "./outcome-icon";
 import { VelocityBar } from "./velocity-bar";
 import { AuditionEngine, START_LEVEL_DB, type SoundInstrument } from "./audition-engine";
+import { playDetail, playsInWords, silentReason, strokeName, onEmptySlot } from "./words";
+import { PadGrid, type CellProps } from "@/components/pad-chart/pad-grid";
+import { surfaceOfFindings } from "@/components/pad-chart/geometry";
 import { MiddleCSetting, noteName, useMiddleC } from "@/components/midi/notes";
 import { useMidi, type MidiEvent } from "@/components/midi/use-midi";
 import { MidiMonitor, MidiStatusLine } from "@/components/midi/midi-panel";
@@ -16,26 +20,34 @@ import { loadSampleAudio } from "@/components/data/samples";
 
 const CAUTION_KEY = "kw.hearingCaution.v1";
 
-function PadCell({ p, middleC, active, onPlay }: { p: PadFinding; middleC: "C3" | "C4"; active: boolean; onPlay: (p: PadFinding) => void }) {
+function shortPlays(p: PadFinding): string {
+  if (p.outcome === "silent") return onEmptySlot(p) ? "empty slot" : silentReason(p);
+  if (p.outcome === "stand-in") return `→ ${strokeName(p.family, p.plays)}`;
+  return strokeName(p.family, p.plays);
+}
+
+/** `dense`: a grid of 4 or more columns; below 640 px its pads show the outcome by icon only (the words stay in the label). */
+function PadCell({ p, middleC, playing, onPlay, cell, dense = false }: { p: PadFinding; middleC: "C3" | "C4"; playing: boolean; onPlay: (p: PadFinding) => void; cell?: CellProps; dense?: boolean }) {
+  const wide = dense ? "hidden sm:inline" : "inline";
   const frame = p.outcome === "direct" ? "border-line" : p.outcome === "stand-in" ? "border-warn/60 border-dashed" : "border-bad/70 border-2";
   return (
-    <button type="button" onClick={() => onPlay(p)} data-testid="chart-pad" data-pad-id={p.padId} data-outcome={p.outcome}
-      className={`flex min-h-24 w-full flex-col gap-1 rounded-md border bg-card p-2 text-left text-xs break-inside-avoid ${frame} ${active ? "ring-2 ring-brand" : ""}`}
-      aria-label={`${p.label}: ${OUTCOME_TEXT[p.outcome]}${p.plays ? `, plays ${p.plays}` : ""}. Click to audition.`}>
-      <span className="flex items-start justify-between gap-1">
-        <span className="font-medium leading-tight">{p.label}</span>
-        <span className="num shrink-0 text-muted">{p.note} {noteName(p.note, middleC)}</span>
+    <button type="button" onClick={() => onPlay(p)} data-testid="chart-pad" data-pad-id={p.padId} data-outcome={p.outcome} aria-pressed={playing} data-playing={playing || undefined}
+      {...cell}
+      title={`${playsInWords(p)}. ${playDetail(p)}`}
+      className={`flex h-full min-h-20 w-full flex-col gap-1 rounded-md border bg-card text-left break-inside-avoid hover:bg-paper sm:p-2 sm:text-xs ${dense ? "p-1 text-[11px]" : "p-1.5 text-xs"} ${frame} ${playing ? "ring-2 ring-brand ring-offset-1 ring-offset-card" : ""}`}
+      aria-label={`${p.label}, note ${p.note}: ${playsInWords(p)}. Press to audition.`}>
+      <span className="flex flex-wrap items-start justify-between gap-x-1">
+        <span className="min-w-0 font-medium leading-tight [overflow-wrap:anywhere] hyphens-auto">{p.label}</span>
+        <span className="num shrink-0 text-muted">{p.note}<span className={wide}> {noteName(p.note, middleC)}</span></span>
       </span>
-      <span className="flex items-center gap-1 font-semibold"><OutcomeIcon outcome={p.outcome} /> {OUTCOME_TEXT[p.outcome]}</span>
-      <span className="leading-tight text-muted">
-        {p.outcome === "silent" ? p.reason : `${p.plays}${p.standIn ? ` (for ${p.requested})` : ""}`}
-      </span>
-      {p.outcome !== "silent" && <VelocityBar layers={p.layers} gaps={p.velocityGaps} compact />}
+      <span className="flex items-center gap-1 font-semibold"><OutcomeIcon outcome={p.outcome} /> <span className={wide}>{OUTCOME_TEXT[p.outcome]}</span>{playing && <span className="ml-auto text-brand" aria-hidden>▶</span>}</span>
+      <span className={`${dense ? "hidden sm:block" : "block"} leading-tight text-muted`}>{shortPlays(p)}</span>
+      {p.outcome !== "silent" && <span className="mt-auto block"><VelocityBar layers={p.layers} gaps={p.velocityGaps} compact /></span>}
     </button>
   );
 }
 
-export function PadChart({ studioId, auditId, result }: { studioId: string; auditId: string; result: AuditResult }) {
+export function PadChart({ studioId, auditId, result, surface }: { studioId: string; auditId: string; result: AuditResult; surface?: LayoutSurface | null }) {
   const [middleC, setMiddleC] = useMiddleC();
   const engine = useRef<AuditionEngine | null>(null);
   const sounds = useRef<SoundInstrument[] | null>(null);
@@ -44,23 +56,28 @@ export function PadChart({ studioId, auditId, result }: { studioId: string; audi
   const [velocity, setVelocity] = useState(100);
   const [line, setLine] = useState<{ ok: boolean; text: string } | null>(null);
   const [pending, setPending] = useState<{ p: PadFinding; v: number } | null>(null);
-  const [active, setActive] = useState<string | null>(null);
+  // how many of each pad's hits are sounding (a pad hit again before its sample ends stays lit until the last ends)
+  const [sounding, setSounding] = useState<ReadonlyMap<string, number>>(new Map());
+  const mark = useCallback((id: string, on: boolean) => setSounding((s) => { const n = new Map(s); const k = (n.get(id) ?? 0) + (on ? 1 : -1); if (k > 0) n.set(id, k); else n.delete(id); return n; }), []);
+  const playing = { has: (id: string) => sounding.has(id) };
   const [events, setEvents] = useState<MidiEvent[]>([]);
   const loadSounds = useAuditSoundsLoader(studioId, auditId);
 
   useEffect(() => () => engine.current?.close(), []);
 
   const doPlay = useCallback(async (p: PadFinding, v: number) => {
-    setActive(p.padId);
+    mark(p.padId, true);
     if (!engine.current) { engine.current = new AuditionEngine((libraryId, sampleId) => loadSampleAudio(studioId, libraryId, sampleId)); engine.current.setLevel(level); engine.current.setLimiter(limiter); }
     try {
       if (!sounds.current) sounds.current = await loadSounds();
       const info = await engine.current.play(p, v, sounds.current);
       setLine({ ok: info.ok, text: `${p.label}: ${info.text}` });
+      if (info.ended) await info.ended;
     } catch (e) {
       setLine({ ok: false, text: `Could not load the sounds: ${errorText(e, "no answer from the server").replace(/\.$/, "")}.` });
     }
-  }, [studioId, level, limiter, loadSounds]);
+    mark(p.padId, false);
+  }, [studioId, level, limiter, loadSounds, mark]);
 
   const play = useCallback((p: PadFinding, v: number) => {
     if (typeof window !== "undefined" && !localStorage.getItem(CAUTION_KEY)) { setPending({ p, v }); return; }
@@ -74,39 +91,24 @@ export function PadChart({ studioId, auditId, result }: { studioId: string; audi
     if (p) play(p, e.velocity!);
   });
 
-  const rows = Math.max(0, ...result.pads.map((p) => p.row ?? 0));
-  const cols = Math.max(0, ...result.pads.map((p) => p.col ?? 0));
-  const isGrid = rows > 0 && cols > 0 && result.pads.every((p) => p.row && p.col);
+  const shape = surfaceOfFindings(result.pads, surface);
 
   return (
     <div className="space-y-4">
       <div className="no-print flex flex-wrap items-center justify-between gap-3">
         <MiddleCSetting value={middleC} onChange={setMiddleC} />
         <span className="flex flex-wrap items-center gap-3 text-xs text-muted" aria-label="Legend">
-          <span className="inline-flex items-center gap-1"><OutcomeIcon outcome="direct" /> direct: recorded</span>
-          <span className="inline-flex items-center gap-1"><OutcomeIcon outcome="stand-in" /> stand-in: nearest recorded articulation</span>
+          <span className="inline-flex items-center gap-1"><OutcomeIcon outcome="direct" /> as recorded</span>
+          <span className="inline-flex items-center gap-1"><OutcomeIcon outcome="stand-in" /> stand-in: the nearest recorded stroke plays</span>
           <span className="inline-flex items-center gap-1"><OutcomeIcon outcome="silent" /> silent: nothing plays</span>
         </span>
       </div>
-      {isGrid ? (
-        <div className="grid gap-2" style={{ gridTemplateColumns: `repeat(${cols}, minmax(0, 1fr))` }} data-testid="pad-chart">
-          {Array.from({ length: rows * cols }, (_, i) => {
-            const r = Math.floor(i / cols) + 1;
-            const c = (i % cols) + 1;
-            const p = result.pads.find((x) => x.row === r && x.col === c);
-            return p ? <PadCell key={p.padId} p={p} middleC={middleC} active={active === p.padId} onPlay={(x) => play(x, velocity)} /> : <div key={i} className="rounded-md border border-dashed border-line" aria-hidden />;
-          })}
-          {result.pedal?.chick && (
-            <div style={{ gridColumn: "1 / -1" }} className="max-w-xs">
-              <p className="mb-1 text-xs text-muted">Pedal chick note</p>
-              <PadCell p={result.pedal.chick} middleC={middleC} active={active === result.pedal.chick.padId} onPlay={(x) => play(x, velocity)} />
-            </div>
-          )}
-        </div>
-      ) : (
-        <div className="grid gap-2 sm:grid-cols-3 lg:grid-cols-5 print:grid-cols-4" data-testid="pad-chart">
-          {result.pads.map((p) => <PadCell key={p.padId} p={p} middleC={middleC} active={active === p.padId} onPlay={(x) => play(x, velocity)} />)}
-          {result.pedal?.chick && <PadCell p={result.pedal.chick} middleC={middleC} active={active === result.pedal.chick.padId} onPlay={(x) => play(x, velocity)} />}
+      <PadGrid surface={shape} pads={result.pads} label="Pad chart" testId="pad-chart"
+        renderPad={(p, cell) => <PadCell p={p} cell={cell} dense={shape.kind === "grid" && shape.cols >= 4} middleC={middleC} playing={playing.has(p.padId)} onPlay={(x) => play(x, velocity)} />} />
+      {result.pedal?.chick && (
+        <div className="max-w-[12rem]">
+          <p className="mb-1 text-xs text-muted">Pedal chick note</p>
+          <PadCell p={result.pedal.chick} middleC={middleC} playing={playing.has(result.pedal.chick.padId)} onPlay={(x) => play(x, velocity)} />
         </div>
       )}
 

@@ -1,14 +1,22 @@
 "use client";
-// Run an audit: a layout against a kit, with the studio's current catalogue.
+// Run an audit: a layout against a kit, with the studio's current catalogue. The kit offered first is the one last
+// audited with the chosen layout (lastKitByLayout, newest audit first), else the one given, else the first.
+// Compare: the link to the previous audit of the same layout, and a choice of any other.
 import { useState } from "react";
 import { useRouter } from "next/navigation";
+import { compareHref } from "./audit-links";
 import { FormError } from "@/components/form-bits";
 import { useRunAudit } from "@/components/data/audits";
 
-export function RunAuditForm({ studioId, layouts, kits, layoutId, kitId }: { studioId: string; layouts: Array<{ id: string; name: string }>; kits: Array<{ id: string; name: string }>; layoutId?: string; kitId?: string }) {
+export function RunAuditForm({ studioId, layouts, kits, layoutId, kitId, lastKits = {} }: { studioId: string; layouts: Array<{ id: string; name: string }>; kits: Array<{ id: string; name: string }>; layoutId?: string; kitId?: string; lastKits?: Record<string, string> }) {
   const router = useRouter();
+  const defaultKit = (layout: string) => {
+    const last = lastKits[layout];
+    if (last && kits.some((x) => x.id === last)) return last;
+    return kitId && kits.some((x) => x.id === kitId) ? kitId : (kits[0]?.id ?? "");
+  };
   const [l, setL] = useState(layoutId ?? layouts[0]?.id ?? "");
-  const [k, setK] = useState(kitId ?? kits[0]?.id ?? "");
+  const [k, setK] = useState(() => defaultKit(layoutId ?? layouts[0]?.id ?? ""));
   const run = useRunAudit(studioId);
   // stays busy after success until the new audit's page replaces this one
   const busy = run.isPending || run.isSuccess;
@@ -20,11 +28,12 @@ export function RunAuditForm({ studioId, layouts, kits, layoutId, kitId }: { stu
     }}>
       <div>
         <label className="label" htmlFor="audit-layout">Layout</label>
-        <select id="audit-layout" className="field" value={l} onChange={(e) => setL(e.target.value)}>{layouts.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</select>
+        <select id="audit-layout" className="field" value={l} onChange={(e) => { setL(e.target.value); setK(defaultKit(e.target.value)); }}>{layouts.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</select>
       </div>
       <div>
         <label className="label" htmlFor="audit-kit">Kit</label>
         <select id="audit-kit" className="field" value={k} onChange={(e) => setK(e.target.value)}>{kits.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</select>
+        {lastKits[l] === k && <p className="mt-1 text-xs text-muted" data-testid="kit-last-used">The kit last audited with this layout.</p>}
       </div>
       <button className="btn-primary" disabled={busy}>{busy ? "Auditing…" : "Run audit"}</button>
       <FormError error={run.error} />
@@ -34,15 +43,15 @@ export function RunAuditForm({ studioId, layouts, kits, layoutId, kitId }: { stu
 
 export function CompareWith({ studioId, auditId, others }: { studioId: string; auditId: string; others: Array<{ id: string; label: string; older: boolean }> }) {
   const router = useRouter();
-  if (!others.length) return <p className="text-xs text-muted">No other audit of this layout to compare with yet.</p>;
+  if (!others.length) return null;
   return (
-    <label className="inline-flex items-center gap-2 text-sm">
-      <span>Compare with</span>
+    <label className="inline-flex flex-wrap items-center gap-2 text-sm">
+      <span>Or compare with</span>
       <select className="field w-auto py-1" defaultValue="" aria-label="Compare with another audit" onChange={(e) => {
         const o = others.find((x) => x.id === e.target.value);
         if (!o) return;
         const [before, after] = o.older ? [o.id, auditId] : [auditId, o.id];
-        router.push(`/s/${studioId}/audits/compare?before=${before}&after=${after}`);
+        router.push(compareHref(studioId, before, after));
       }}>
         <option value="" disabled>choose an audit…</option>
         {others.map((o) => <option key={o.id} value={o.id}>{o.label}</option>)}

@@ -14,6 +14,7 @@ import type { HiHatPedal, Layout, LayoutSlot, Pad } from "@/lib/audit/types";
 import { PedalEditor } from "./pedal-editor";
 import { ReadOnlyValue, ViewOnlyNote } from "@/components/view-only";
 import type { MiddleC } from "@/components/midi/note-name";
+import { PadGrid, type CellProps } from "@/components/pad-chart/pad-grid";
 
 export interface KitSlotsChoice { id: string; name: string; slots: LayoutSlot[] }
 
@@ -98,14 +99,14 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
     return m;
   }, [layout.pads]);
 
-  const padButton = (p: Pad) => {
+  const padButton = (p: Pad, cell?: CellProps) => {
     const s = slotOf(p.target?.slotId);
     const shared = (noteUse.get(`${p.note}/${p.channel}`) ?? 0) > 1;
     const isSel = p.id === selected;
     return (
-      <button key={p.id} type="button" onClick={() => setSelected(p.id)} aria-pressed={isSel} data-testid="layout-pad" data-pad-id={p.id}
-        className={`flex min-h-20 flex-col items-start gap-0.5 rounded-md border p-2 text-left text-xs ${isSel ? "border-brand bg-brand-soft ring-2 ring-brand" : "border-line bg-card hover:bg-paper"}`}>
-        <span className="font-medium">{p.label || "(no label)"}</span>
+      <button key={p.id} type="button" onClick={() => setSelected(p.id)} aria-pressed={isSel} data-testid="layout-pad" data-pad-id={p.id} {...cell}
+        className={`flex h-full min-h-20 w-full flex-col items-start gap-0.5 rounded-md border p-1 text-left text-[11px] sm:p-2 sm:text-xs ${isSel ? "border-brand bg-brand-soft ring-2 ring-brand" : "border-line bg-card hover:bg-paper"}`}>
+        <span className="min-w-0 font-medium [overflow-wrap:anywhere]">{p.label || "(no label)"}</span>
         <span className="num">{p.note} · {noteName(p.note, middleC)} · ch {p.channel}{shared && <span title="Several pads send this note" aria-label="shared note"> ⧉</span>}</span>
         <span className="text-muted">{p.target ? `${s?.name ?? p.target.slotId}: ${p.target.articulation}` : "→ no target"}</span>
         {lastVelocity[p.id] !== undefined && <span className="num text-muted">vel {lastVelocity[p.id]}</span>}
@@ -125,27 +126,18 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
             <h2>{grid ? `Pads (${grid.rows} × ${grid.cols} grid)` : `Trigger zones (${layout.pads.length})`}</h2>
             <MiddleCSetting value={middleC} onChange={setMiddleC} />
           </div>
-          {grid ? (
-            <div className="grid gap-2" style={{ gridTemplateColumns: `repeat(${grid.cols}, minmax(0, 1fr))` }} data-testid="layout-grid">
-              {Array.from({ length: grid.rows * grid.cols }, (_, i) => {
-                const r = Math.floor(i / grid.cols) + 1;
-                const c = (i % grid.cols) + 1;
-                const p = layout.pads.find((x) => x.row === r && x.col === c);
-                return p ? padButton(p) : !canWrite ? <div key={`e${r}-${c}`} className="min-h-20 rounded-md border border-dashed border-line" aria-hidden /> : (
-                  <button key={`e${r}-${c}`} type="button" className="min-h-20 rounded-md border border-dashed border-line text-xs text-muted"
-                    onClick={() => {
-                      const ids = new Set(layout.pads.map((x) => x.id));
-                      let id = `r${r}c${c}`;
-                      while (ids.has(id)) id += "x";
-                      update((l) => ({ ...l, pads: [...l.pads, { id, label: `Pad ${l.pads.length + 1}`, row: r, col: c, note: 36, channel: 10, target: null }] }));
-                      setSelected(id);
-                    }}>+ pad</button>
-                );
-              })}
-            </div>
-          ) : (
-            <div className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3" data-testid="layout-grid">{layout.pads.map(padButton)}</div>
-          )}
+          <PadGrid surface={layout.surface} pads={layout.pads} label="Pads" testId="layout-grid"
+            renderPad={(p, cell) => padButton(p, cell)}
+            renderEmpty={grid ? (c, cell) => !canWrite ? <div {...cell} className="h-full min-h-20 w-full rounded-md border border-dashed border-line" aria-label="no pad" /> : (
+              <button type="button" {...cell} className="h-full min-h-20 w-full rounded-md border border-dashed border-line text-xs text-muted"
+                onClick={() => {
+                  const ids = new Set(layout.pads.map((x) => x.id));
+                  let id = `r${c.row}c${c.col}`;
+                  while (ids.has(id)) id += "x";
+                  update((l) => ({ ...l, pads: [...l.pads, { id, label: `Pad ${l.pads.length + 1}`, row: c.row, col: c.col, note: 36, channel: 10, target: null }] }));
+                  setSelected(id);
+                }}>+ pad</button>
+            ) : undefined} />
           {!grid && canWrite && (
             <button type="button" className="btn-quiet" disabled={layout.pads.length >= 128} onClick={() => {
               const ids = new Set(layout.pads.map((x) => x.id));

@@ -1,7 +1,7 @@
 // Conflicts of a layout: the log every stage of the audit writes to, the checks of notes and channels across
 // pads, and the order the findings list them in (by kind, then as met). Pure.
 
-import type { Conflict, ConflictKind, PadFinding } from "./types";
+import type { Conflict, ConflictKind, EmptySlotGroup, PadFinding } from "./types";
 
 /** The order conflicts are listed in, by kind. */
 export const CONFLICT_ORDER: ConflictKind[] = [
@@ -11,7 +11,6 @@ export const CONFLICT_ORDER: ConflictKind[] = [
   "controller-out-of-range",
   "duplicate-pad-id",
   "unknown-slot",
-  "empty-slot",
   "unknown-instrument",
   "no-target",
   "outside-grid",
@@ -24,12 +23,29 @@ export function isInt(x: unknown, lo: number, hi: number): boolean {
 }
 
 /**
- * The conflicts met while auditing. A problem of a kit slot (unknown, empty, holding an instrument not in the
- * catalogue) is one conflict naming every pad that asked for the slot, however many asked.
+ * The conflicts met while auditing. A problem of a kit slot (unknown, holding an instrument not in the
+ * catalogue) is one conflict naming every pad that asked for the slot, however many asked. An empty slot is
+ * not a conflict: its pads are silent, and the slot is reported once in the audit's `emptySlots`, with every
+ * pad (pedal zone, chick note) that aims at it.
  */
 export class ConflictLog {
   private readonly list: Conflict[] = [];
   private readonly slotProblems = new Map<string, { kind: ConflictKind; message: string; padIds: string[] }>();
+  private readonly empty = new Map<string, EmptySlotGroup>();
+
+  /** A pad (or pedal zone) aims at a slot the kit leaves empty. */
+  emptySlot(slotId: string, slotName: string, askerId: string, askerLabel: string): void {
+    const g = this.empty.get(slotId);
+    if (g) {
+      g.padIds.push(askerId);
+      g.labels.push(askerLabel);
+    } else this.empty.set(slotId, { slotId, slotName, padIds: [askerId], labels: [askerLabel] });
+  }
+
+  /** The empty slots, in the order first met, each with the pads that aim at it. */
+  emptySlots(): EmptySlotGroup[] {
+    return [...this.empty.values()].map((g) => ({ ...g, padIds: g.padIds.slice(), labels: g.labels.slice() }));
+  }
 
   add(kind: ConflictKind, message: string, padIds: string[], note: number | null = null, channel: number | null = null): void {
     this.list.push({ kind, message, padIds, note, channel });

@@ -84,12 +84,12 @@ function emptyPlay(partial: Partial<PlayFinding>): PlayFinding {
 /** A copy of a (cached, shared) finding that its asker may own. */
 export const clonePlay = (p: PlayFinding): PlayFinding => Object.assign({}, p, { notes: p.notes.slice() });
 
-/** What `slotId` plays when asked for `requested` by `askerId` (a pad id or a pedal zone). */
-export type Play = (slotId: string, requested: Articulation, askerId: string) => PlayFinding;
+/** What `slotId` plays when asked for `requested` by `askerId` (a pad id or a pedal zone, named `askerLabel`). */
+export type Play = (slotId: string, requested: Articulation, askerId: string, askerLabel: string) => PlayFinding;
 
 /**
  * The resolver of one audit: answers are cached per slot and articulation, problems of a slot go to the log
- * (once per slot, naming every asker). A slot holding an instrument of another family is answered by that
+ * (once per slot, naming every asker), and so does an empty slot (a silent pad, reported once per slot). A slot holding an instrument of another family is answered by that
  * instrument's own family graph.
  */
 export function slotResolver(kit: Kit, instruments: ReadonlyMap<string, CatalogueInstrument>, log: ConflictLog): Play {
@@ -98,7 +98,7 @@ export function slotResolver(kit: Kit, instruments: ReadonlyMap<string, Catalogu
   const recordedCache = new Map<string, Map<Articulation, CatalogueArticulation[]>>();
   const playCache = new Map<string, PlayFinding>();
 
-  return function play(slotId: string, requested: Articulation, askerId: string): PlayFinding {
+  return function play(slotId: string, requested: Articulation, askerId: string, askerLabel: string): PlayFinding {
     const slot = slots.get(slotId);
     if (!slot) {
       const reason = `no slot "${slotId}" in kit "${kit.name}"`;
@@ -108,7 +108,7 @@ export function slotResolver(kit: Kit, instruments: ReadonlyMap<string, Catalogu
     const base = { requested, slotId, slotName: slot.name };
     if (slot.instrumentId === null) {
       const reason = `slot "${slot.name}" is empty`;
-      log.slotProblem("empty-slot", slotId, reason, askerId);
+      log.emptySlot(slotId, slot.name, askerId, askerLabel);
       return emptyPlay(Object.assign({ reason }, base));
     }
     const inst = instruments.get(slot.instrumentId);
@@ -185,7 +185,7 @@ export function auditPad(pad: Pad, play: Play, log: ConflictLog): PadFinding {
     log.add("no-target", `pad "${pad.label}" is not aimed at any kit slot`, [pad.id], pad.note, pad.channel);
     return Object.assign(where, emptyPlay({ reason: "the pad has no target" }));
   }
-  return Object.assign(where, clonePlay(play(pad.target.slotId, pad.target.articulation, pad.id)));
+  return Object.assign(where, clonePlay(play(pad.target.slotId, pad.target.articulation, pad.id, pad.label)));
 }
 
 /** Every pad of a layout, in order; pad ids must be unique and grid pads inside the grid. */

@@ -15,7 +15,7 @@ export function auditPedal(hh: HiHatPedal, play: Play, log: ConflictLog): PedalF
     if (!isInt(z.low, 0, 127) || !isInt(z.high, 0, 127) || z.low > z.high) {
       log.add("pedal-zone-out-of-range", `pedal zone ${i + 1} (${z.low}-${z.high}) is not a range inside 0-127`, [`pedal-zone-${i + 1}`]);
     }
-    const p = clonePlay(play(hh.slotId, z.articulation, `pedal-zone-${i + 1}`));
+    const p = clonePlay(play(hh.slotId, z.articulation, `pedal-zone-${i + 1}`, `pedal ${z.low}-${z.high} (${z.articulation})`));
     return Object.assign({ zoneIndex: i, low: z.low, high: z.high, recorded: p.outcome === "direct" }, p);
   });
   for (let i = 0; i < hh.zones.length; i++) {

@@ -82,10 +82,17 @@ describe("audit of the generated kit against each template (expected findings wo
     // the snare centre: 4 even layers of 3 round robins, no gap
     expect(pad("Snare").layers.map((l) => [l.velocityLow, l.velocityHigh, l.roundRobins])).toEqual([[1, 31, 3], [32, 63, 3], [64, 95, 3], [96, 127, 3]]);
     expect(pad("Snare").velocityGaps).toEqual([]);
-    expect(r.conflicts.map((c) => [c.kind, c.padIds])).toEqual([["empty-slot", ["r1c5"]], ["empty-slot", ["r1c6"]]]);
-    expect(r.summary).toMatchObject({ pads: 24, direct: 17, standIn: 5, silent: 2, conflicts: 2 });
-    // score by the stated formula: (16 + 108/127 + 0.8 + 0.8 + 0.9 + 0.8 + 0.85) / 24 * 100 - 2 * 5 = 77.50
-    expect(r.score.value).toBe(77.5);
+    // the two empty slots: silent pads, each slot reported once, not conflicts
+    expect(r.conflicts).toEqual([]);
+    expect(r.emptySlots).toEqual([
+      { slotId: "splash", slotName: "Splash", padIds: ["r1c5"], labels: ["Splash"] },
+      { slotId: "crash-2", slotName: "Crash 2", padIds: ["r1c6"], labels: ["Crash 2"] },
+    ]);
+    expect(r.summary).toMatchObject({ pads: 24, direct: 17, standIn: 5, silent: 2, conflicts: 0 });
+    // score by the stated formula (SCHEMA.md "Score"): stand-ins 1 - 0.1 d (d = 2, 2, 1, 2, 1.5), the snare edge
+    // covers 108 of 127 velocities: 100 * (16 + 108/127 + 0.8 + 0.8 + 0.9 + 0.8 + 0.85) / 24 = 87.50 -> 88
+    expect(r.score.value).toBe(88);
+    expect(r.score.sentence).toBe("22 of 24 pads will sound (17 as recorded, 5 through stand-ins); 2 stay silent, all on slots the kit leaves empty; 1 misses some velocities.");
   });
 
   it("grid-2x8", () => {
@@ -93,8 +100,9 @@ describe("audit of the generated kit against each template (expected findings wo
     const silent = r.pads.filter((p) => p.outcome === "silent").map((p) => p.label);
     expect(silent).toEqual(["Crash 2", "Splash"]);
     expect(r.pads.filter((p) => p.outcome === "stand-in")).toEqual([]);
-    expect(r.summary).toMatchObject({ pads: 16, direct: 14, standIn: 0, silent: 2, conflicts: 2 });
-    expect(r.score.value).toBe(77.5); // 14/16 * 100 - 10
+    expect(r.summary).toMatchObject({ pads: 16, direct: 14, standIn: 0, silent: 2, conflicts: 0 });
+    expect(r.score.value).toBe(88); // 14/16 * 100 = 87.5, rounded half up
+    expect(r.score.sentence).toBe("14 of 16 pads will sound as recorded; 2 stay silent, all on slots the kit leaves empty.");
     expect(hasSilentPads(r)).toBe(true);
   });
 
@@ -117,8 +125,9 @@ describe("audit of the generated kit against each template (expected findings wo
     expect(r.pedal!.chick).toMatchObject({ note: 44, outcome: "direct", plays: "pedal" });
     expect(r.conflicts).toEqual([]);
     expect(r.summary).toMatchObject({ pads: 16, direct: 11, standIn: 5, silent: 0, pedalZones: 4, pedalZonesRecorded: 2 });
-    // (14 + 0.8 + 0.8 + 0.9 + 0.9 + 0.85 + 0.85 + 0.9) / 21 * 100 = 95.238...
-    expect(r.score.value).toBe(95.2);
+    // (14 + 0.8 + 0.8 + 0.9 + 0.9 + 0.85 + 0.85 + 0.9) / 21 * 100 = 95.238... -> 95
+    expect(r.score.value).toBe(95);
+    expect(r.score.sentence).toBe("All 21 pads and pedal positions will sound (14 as recorded, 7 through stand-ins).");
     expect(hasSilentPads(r)).toBe(false);
   });
 
@@ -215,13 +224,17 @@ describe("conflicts", () => {
       ["channel-out-of-range", ["f"]],
       ["channel-out-of-range", ["j"]],
       ["unknown-slot", ["h"]],
-      ["empty-slot", ["g"]],
       ["unknown-instrument", ["i"]],
       ["no-target", ["j"]],
       ["outside-grid", ["i"]],
     ]);
     expect(r.pads.map((p) => p.outcome)).toEqual(["direct", "direct", "direct", "direct", "direct", "direct", "silent", "silent", "silent", "silent"]);
     expect(r.pads.find((p) => p.padId === "h")!.reason).toBe('no slot "nowhere" in kit "Test kit"');
+    // the empty slot is reported once, apart from the conflicts
+    expect(r.emptySlots).toEqual([{ slotId: "empty", slotName: "Tom 9", padIds: ["g"], labels: ["Empty"] }]);
+    // pads a, b, c share note 38 for two sounds, e and f cannot be sent: they count 0, like the 4 silent pads;
+    // only d (kick centre, 4 even layers, no gap) plays: 100 * 1 / 10 = 10
+    expect(r.score).toMatchObject({ value: 10, items: 10, sounding: 1, noteClashes: 5 });
   });
 
   it("two pads on one note and one target are not a conflict; a chick note clashing with a pad is", () => {

@@ -11,7 +11,7 @@ import type { AuditResult, Catalogue, CatalogueInstrument, Kit, Layout } from ".
 
 export { CONFLICT_ORDER } from "./audit-conflicts";
 export { indexCatalogue, uncoveredRanges } from "./audit-pads";
-export { CONFLICT_PENALTY, SCORE_FORMULA, itemScore } from "./audit-score";
+export { SCORE_FORMULA, itemScore, playWeight, velocityCoverage } from "./audit-score";
 
 /**
  * Audit a layout against a kit and a catalogue.
@@ -28,14 +28,16 @@ export function runAudit(
   const pedal = layout.hiHatPedal ? auditPedal(layout.hiHatPedal, play, log) : null;
   checkNotesAndChannels([...pads, ...(pedal?.chick ? [pedal.chick] : [])], log);
   const conflicts = log.sorted();
+  const emptySlots = log.emptySlots();
   return {
     layoutId: layout.id,
     layoutName: layout.name,
     kitId: kit.id,
     kitName: kit.name,
     conflicts,
+    emptySlots,
     summary: summarizeAudit(pads, pedal, conflicts.length),
-    score: scoreAudit(pads, pedal, conflicts.length),
+    score: scoreAudit(pads, pedal, conflicts, emptySlots),
     pads,
     pedal,
   };

@@ -22,18 +22,19 @@ describe("export formats", () => {
     expect(EXPORT_FORMATS.map((f) => f.mediaType)).toEqual(["text/csv; charset=utf-8", "application/json", "audio/midi"]);
   });
 
-  it("CSV: the RFC 4180 header line, then one CRLF-ended line per conflict, pad and pedal item", () => {
+  it("CSV: the RFC 4180 header line, then one CRLF-ended line per conflict, empty slot, pad and pedal item", () => {
     const csv = exportFormat("csv").serialize(audit) as string;
     const lines = csv.split("\r\n");
     expect(lines[0]).toBe(CSV_COLUMNS.join(","));
     expect(lines.at(-1)).toBe("");
-    expect(lines.length - 2).toBe(audit.conflicts.length + audit.pads.length + (audit.pedal ? audit.pedal.zones.length + (audit.pedal.chick ? 1 : 0) : 0));
+    expect(audit.emptySlots).toHaveLength(2);
+    expect(lines.length - 2).toBe(audit.conflicts.length + audit.emptySlots.length + audit.pads.length + (audit.pedal ? audit.pedal.zones.length + (audit.pedal.chick ? 1 : 0) : 0));
   });
 
-  it("JSON: kitwright.audit/v1 that reads back to the same audit", () => {
+  it("JSON: kitwright.audit/v2 that reads back to the same audit", () => {
     const text = exportFormat("json").serialize(audit) as string;
     expect(parseAuditJson(text)).toEqual(audit);
-    expect(text.startsWith('{\n  "schema": "kitwright.audit/v1"')).toBe(true);
+    expect(text.startsWith('{\n  "schema": "kitwright.audit/v2"')).toBe(true);
   });
 
   it("MIDI: a Standard MIDI File (MThd, header length 6, format 1, two tracks)", () => {

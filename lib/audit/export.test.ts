@@ -41,9 +41,10 @@ function readCsv(text: string): string[][] {
 
 describe("CSV export (RFC 4180 quoting)", () => {
   const rows = readCsv(auditToCsv(audit));
-  it("header, conflicts first, then one row per pad", () => {
+  it("header, conflicts first (none here), the empty slots once each, then one row per pad", () => {
+    expect(audit.conflicts).toEqual([]);
     expect(rows[0]).toEqual([...CSV_COLUMNS]);
-    expect(rows.slice(1, 3).map((r) => [r[0], r[1], r[2]])).toEqual([["conflict", "empty-slot", "r1c5"], ["conflict", "empty-slot", "r1c6"]]);
+    expect(rows.slice(1, 3).map((r) => [r[0], r[1], r[2], r[8]])).toEqual([["empty-slot", "splash", "r1c5", "Splash"], ["empty-slot", "crash-2", "r1c6", "Crash 2"]]);
     expect(rows.slice(3).map((r) => r[0])).toEqual(Array(24).fill("pad"));
     expect(rows.every((r) => r.length === CSV_COLUMNS.length)).toBe(true);
   });
@@ -77,7 +78,7 @@ describe("CSV export (RFC 4180 quoting)", () => {
   });
 });
 
-describe("JSON export (kitwright.audit/v1)", () => {
+describe("JSON export (kitwright.audit/v2)", () => {
   it("round-trips through JSON text", () => {
     const j = auditToJson(audit);
     expect(j.schema).toBe(AUDIT_SCHEMA);
@@ -87,7 +88,7 @@ describe("JSON export (kitwright.audit/v1)", () => {
     expect(Object.keys(j).slice(0, 6)).toEqual(["schema", "layoutId", "layoutName", "kitId", "kitName", "conflicts"]);
   });
   it("refuses other documents with a clear error", () => {
-    expect(() => parseAuditJson({ schema: "something/v9" })).toThrow(/kitwright.audit\/v1/);
+    expect(() => parseAuditJson({ schema: "something/v9" })).toThrow(/kitwright.audit\/v2/);
   });
 });
 
@@ -104,7 +105,9 @@ describe("diff of two audits", () => {
       ["Snare half-edge", "outcome stand-in -> direct"],
     ]);
     expect(d.changes[1]!.details).toContain("plays centre -> half-edge");
-    expect(d.conflictsResolved.map((c) => c.padIds)).toEqual([["r1c5"]]);
+    expect(d.emptySlotsFilled.map((g) => [g.slotName, g.padIds])).toEqual([["Splash", ["r1c5"]]]);
+    expect(d.emptySlotsAdded).toEqual([]);
+    expect(d.conflictsResolved).toEqual([]);
     expect(d.conflictsAdded).toEqual([]);
     expect(d.scoreDelta).toBeCloseTo(after.score.value - audit.score.value, 6);
     expect(d.scoreDelta).toBeGreaterThan(0);

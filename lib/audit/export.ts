@@ -1,9 +1,13 @@
-// Exports of an audit: CSV (one row per conflict, pad, pedal zone), JSON in the versioned schema
-// kitwright.audit/v1 (see SCHEMA.md), and the difference between two audits of the same layout.
+// Exports of an audit: CSV (one row per conflict, empty slot, pad, pedal zone), JSON in the versioned schema
+// kitwright.audit/v2 (see SCHEMA.md; v1 documents are still read), and the difference between two audits of the
+// same layout.
 
-import type { AuditResult, Conflict, PadFinding, PedalZoneFinding, PlayFinding } from "./types";
+import { currentAuditResult } from "./audit-version";
+import type { AuditResult, Conflict, EmptySlotGroup, PadFinding, PedalZoneFinding, PlayFinding } from "./types";
 
-export const AUDIT_SCHEMA = "kitwright.audit/v1";
+export const AUDIT_SCHEMA = "kitwright.audit/v2";
+/** Earlier audit schemas that parseAuditJson still reads (brought to today's shape by currentAuditResult). */
+export const OLDER_AUDIT_SCHEMAS = ["kitwright.audit/v1"] as const;
 
 export const CSV_COLUMNS = [
   "kind",
@@ -68,6 +72,9 @@ export function auditToCsv(result: AuditResult): string {
   for (const c of result.conflicts) {
     rows.push(["conflict", c.kind, c.padIds.join(" "), c.note, c.channel, "", "", "", "", "", "", "", "", "", "", "", "", "", c.message]);
   }
+  for (const g of result.emptySlots) {
+    rows.push(["empty-slot", g.slotId, g.padIds.join(" "), "", "", "", "", "", g.slotName, "", "", "silent", "", "", "", "", "", "", `slot "${g.slotName}" is empty`]);
+  }
   const padRow = (kind: string, p: PadFinding) => [kind, p.padId, p.label, p.note, p.channel, p.row, p.col, p.zone, ...playCells(p)];
   for (const p of result.pads) rows.push(padRow("pad", p));
   if (result.pedal) {
@@ -83,23 +90,23 @@ export interface AuditFile extends AuditResult {
   schema: typeof AUDIT_SCHEMA;
 }
 
-/** The audit as a kitwright.audit/v1 object (plain JSON; Infinity never appears). */
+/** The audit as a kitwright.audit/v2 object (plain JSON; Infinity never appears). */
 export function auditToJson(result: AuditResult): AuditFile {
   return { schema: AUDIT_SCHEMA, ...structuredClone(result) };
 }
 
-/** Read back a kitwright.audit/v1 object (checks the schema tag and the main fields). */
+/** Read back a kitwright.audit/v2 (or v1) object: checks the schema tag and the main fields; v1 is upgraded. */
 export function parseAuditJson(input: unknown): AuditResult {
   const data = typeof input === "string" ? JSON.parse(input) : input;
-  if (!data || typeof data !== "object" || (data as { schema?: unknown }).schema !== AUDIT_SCHEMA) {
-    throw new Error(`not a ${AUDIT_SCHEMA} document`);
-  }
+  const tag = data && typeof data === "object" ? (data as { schema?: unknown }).schema : undefined;
+  const known = tag === AUDIT_SCHEMA || (OLDER_AUDIT_SCHEMAS as readonly unknown[]).includes(tag);
+  if (!known) throw new Error(`not a ${AUDIT_SCHEMA} document (nor an earlier ${OLDER_AUDIT_SCHEMAS.join(", ")})`);
   const d = data as AuditFile;
   if (!Array.isArray(d.pads) || !Array.isArray(d.conflicts) || typeof d.score?.value !== "number") {
-    throw new Error(`${AUDIT_SCHEMA}: pads, conflicts and score are required`);
+    throw new Error(`${String(tag)}: pads, conflicts and score are required`);
   }
   const { schema: _schema, ...rest } = d;
-  return rest;
+  return currentAuditResult(rest);
 }
 
 // ---------------------------------------------------------------- diff
@@ -119,10 +126,17 @@ export interface AuditDiff {
   scoreBefore: number;
   scoreAfter: number;
   scoreDelta: number;
+  /** The score's sentence before and after. */
+  sentenceBefore: string;
+  sentenceAfter: string;
   summaryBefore: AuditResult["summary"];
   summaryAfter: AuditResult["summary"];
   conflictsAdded: Conflict[];
   conflictsResolved: Conflict[];
+  /** Slots that were empty before and are filled now (as before saw them). */
+  emptySlotsFilled: EmptySlotGroup[];
+  /** Slots that are empty now and were not before. */
+  emptySlotsAdded: EmptySlotGroup[];
   changes: FindingChange[];
 }
 
@@ -144,7 +158,9 @@ function compareFindings(a: PlayFinding, b: PlayFinding): string[] {
 const conflictKey = (c: Conflict) => `${c.kind}|${c.note}|${c.channel}|${[...c.padIds].sort().join(",")}`;
 
 /** What changed from `before` to `after` (two audits of the same layout, e.g. after new samples arrived). */
-export function diffAudits(before: AuditResult, after: AuditResult): AuditDiff {
+export function diffAudits(beforeRaw: AuditResult, afterRaw: AuditResult): AuditDiff {
+  const before = currentAuditResult(beforeRaw);
+  const after = currentAuditResult(afterRaw);
   const items = (r: AuditResult) => {
     const m = new Map<string, { kind: FindingChange["kind"]; label: string; f: PlayFinding }>();
     for (const p of r.pads) m.set(`pad:${p.padId}`, { kind: "pad", label: p.label, f: p });
@@ -170,11 +186,15 @@ export function diffAudits(before: AuditResult, after: AuditResult): AuditDiff {
   return {
     scoreBefore: before.score.value,
     scoreAfter: after.score.value,
-    scoreDelta: Math.round((after.score.value - before.score.value) * 10) / 10,
+    scoreDelta: after.score.value - before.score.value,
+    sentenceBefore: before.score.sentence,
+    sentenceAfter: after.score.sentence,
     summaryBefore: before.summary,
     summaryAfter: after.summary,
     conflictsAdded: after.conflicts.filter((c) => !ka.has(conflictKey(c))),
     conflictsResolved: before.conflicts.filter((c) => !kb.has(conflictKey(c))),
+    emptySlotsFilled: before.emptySlots.filter((g) => !after.emptySlots.some((x) => x.slotId === g.slotId)),
+    emptySlotsAdded: after.emptySlots.filter((g) => !before.emptySlots.some((x) => x.slotId === g.slotId)),
     changes,
   };
 }

@@ -197,7 +197,6 @@ export type ConflictKind =
   | "note-out-of-range"
   | "channel-out-of-range"
   | "controller-out-of-range"
-  | "empty-slot"
   | "unknown-slot"
   | "unknown-instrument"
   | "no-target"
@@ -214,13 +213,35 @@ export interface Conflict {
   channel: number | null;
 }
 
+/** The score of an audit (formula in audit-score.ts SCORE_FORMULA and SCHEMA.md "Score"). */
 export interface AuditScore {
-  /** 0-100, one decimal. */
+  /** Whole points 0-100: the share of what the layout asks for that will really play, weighted by how well. */
   value: number;
+  /** The scale: the score reads `value/100`. */
+  outOf: 100;
+  /** The score in one sentence of plain words. */
+  sentence: string;
+  /** The formula in words. */
   formula: string;
+  /** What the layout asks for: its pads, its pedal zones and the pedal's chick note. */
   items: number;
+  /** Sum of the item values (each 0-1), to 6 decimals. */
   itemSum: number;
-  conflictPenalty: number;
+  /** Items that will sound: played as recorded or by a stand-in, and not sharing a note with another sound. */
+  sounding: number;
+  /** Items whose note and channel another pad uses for a different sound (each counts 0). */
+  noteClashes: number;
+  /** Sounding items with velocities no layer covers. */
+  withGaps: number;
+}
+
+/** A kit slot left empty, with every pad (pedal zone, chick note) that aims at it: each of them is silent. */
+export interface EmptySlotGroup {
+  slotId: string;
+  slotName: string;
+  padIds: string[];
+  /** The pads' labels, in the order of padIds. */
+  labels: string[];
 }
 
 export interface AuditSummary {
@@ -240,6 +261,8 @@ export interface AuditResult {
   kitName: string;
   /** Conflicts come first, as the reader should see them first. */
   conflicts: Conflict[];
+  /** Slots the kit leaves empty that pads aim at (their pads are silent; an empty slot is not a conflict). */
+  emptySlots: EmptySlotGroup[];
   summary: AuditSummary;
   score: AuditScore;
   pads: PadFinding[];

@@ -1,9 +1,11 @@
 import "server-only";
 // The studio's home page in numbers: libraries with their sample states, kits, layouts and the latest audits.
 import { db } from "./db";
+import { upgradeStoredAudits } from "./kits/audits";
 import type { StudioOverview } from "@/lib/api-types/studios";
 
 export async function studioOverview({ studioId }: { studioId: string }): Promise<StudioOverview> {
+  await upgradeStoredAudits({ studioId });
   const [libs, counts, kits, layouts, audits] = await Promise.all([
     db()("libraries").where({ studio_id: studioId }).orderBy("name").select("id", "name"),
     db()("samples").where({ studio_id: studioId }).groupBy("library_id", "state").select("library_id", "state").count({ n: "*" }),

@@ -75,10 +75,12 @@ describe("running an audit", () => {
     expect(by.r2c2).toMatchObject({ outcome: "silent", plays: null });
     expect(by.r2c3).toMatchObject({ outcome: "silent", plays: null });
     expect(a.result.summary).toMatchObject({ pads: 6, direct: 2, standIn: 2, silent: 2 });
-    expect(a.result.conflicts.map((c: { kind: string }) => c.kind)).toEqual(["empty-slot"]);
-    // SCHEMA.md score: 100 * (1 + 0.9 + 1 + 0.8 + 0 + 0) / 6 - 5 * 1 conflict = 56.67 -> 56.7
-    expect(a.result.score.value).toBe(56.7);
-    expect(a.score).toBe(56.7);
+    // the empty slot is told once, apart from the conflicts (SCHEMA.md "kitwright.audit/v2")
+    expect(a.result.conflicts).toEqual([]);
+    expect(a.result.emptySlots.map((g: { padIds: string[] }) => g.padIds)).toEqual([["r2c3"]]);
+    // SCHEMA.md score: 100 * (1 + 0.9 + 1 + 0.8 + 0 + 0) / 6 = 61.67 -> 62
+    expect(a.result.score.value).toBe(62);
+    expect(a.score).toBe(62);
     expect(a.silentPads).toBe(2);
 
     const back = await call(auditRoute.GET, { params: { ...P(), auditId: a.id }, user: s.users.viewer });
@@ -110,10 +112,35 @@ describe("running an audit", () => {
     const change = c.json.diff.changes.find((x: { id: string }) => x.id === "pad:r2c2");
     expect(change.change).toBe("changed");
     expect(change.details).toContain("outcome silent -> direct");
-    // (1+0.9+1+0.8+1+0)/6*100 - 5 = 73.3
-    expect(c.json.diff.scoreAfter).toBe(73.3);
-    expect(c.json.diff.scoreDelta).toBeCloseTo(16.6, 5);
+    // (1+0.9+1+0.8+1+0)/6*100 = 78.33 -> 78
+    expect(c.json.diff.scoreAfter).toBe(78);
+    expect(c.json.diff.scoreDelta).toBe(16);
     expect(c.json.diff.changes.map((x: { id: string }) => x.id)).toEqual(["pad:r2c2"]);
+  });
+
+  it("reads an audit stored in the earlier shape (v1) on today's scale, and upgrades the row once", async () => {
+    const row = await db()("audits").where({ id: firstAuditId }).first();
+    const now = typeof row.result === "string" ? JSON.parse(row.result) : structuredClone(row.result);
+    // as version 1 stored it: the empty slot also a conflict, 5 points off per conflict
+    const { emptySlots: _e, ...rest } = now;
+    const v1 = {
+      ...rest,
+      conflicts: [{ kind: "empty-slot", message: 'slot "Crash" is empty', padIds: ["r2c3"], note: null, channel: null }],
+      summary: { ...now.summary, conflicts: 1 },
+      score: { value: 56.7, formula: "score = clamp(100 * sum(item) / items - 5 * conflicts, 0, 100)", items: 6, itemSum: 3.7, conflictPenalty: 5 },
+    };
+    const id = "00000000-0000-4000-8000-0000000000a1";
+    await db()("audits").insert({ ...row, id, score: 56.7, conflicts: 1, result: JSON.stringify(v1), result_version: 1, created_at: new Date("2026-01-01T00:00:00Z") });
+    const one = await call(auditRoute.GET, { params: { ...P(), auditId: id }, user: s.users.viewer });
+    expect(one.json.audit.result.score).toMatchObject({ value: 62, outOf: 100 });
+    expect(one.json.audit.result.conflicts).toEqual([]);
+    expect(one.json.audit.result.emptySlots).toEqual([{ slotId: "crash", slotName: "Crash", padIds: ["r2c3"], labels: ["Crash"] }]);
+    expect(one.json.audit.score).toBe(62);
+    const list = await call(auditsRoute.GET, { params: P(), path: `/api/x?layoutId=${layoutId}`, user: s.users.viewer });
+    expect(list.json.audits.find((x: { id: string }) => x.id === id)).toMatchObject({ score: 62, conflicts: 0 });
+    const after = await db()("audits").where({ id }).first("score", "conflicts", "result_version");
+    expect([Number(after.score), Number(after.conflicts), Number(after.result_version)]).toEqual([62, 0, 2]);
+    await db()("audits").where({ id }).delete();
   });
 
   it("refuses to compare audits of two different layouts (422)", async () => {
@@ -141,15 +168,15 @@ describe("exports", () => {
     expect(r.res.headers.get("content-disposition")).toMatch(/^attachment; filename=".*\.csv"/);
     const lines = (r.json as string).split("\r\n");
     expect(lines[0]).toBe("kind,id,label,note,channel,row,col,zone,slot,instrument,requested,outcome,plays,path,cost,layers,velocity_gaps,min_round_robins,reason");
-    expect(lines[1]!.startsWith("conflict,empty-slot,")).toBe(true);
+    expect(lines[1]!.startsWith("empty-slot,")).toBe(true);
     expect(lines.filter((l) => l.startsWith("pad,"))).toHaveLength(6);
     expect(lines.find((l) => l.startsWith("pad,r1c2,"))).toContain("half-edge>centre");
   });
 
-  it("JSON carries the kitwright.audit/v1 schema id and the findings", async () => {
+  it("JSON carries the kitwright.audit/v2 schema id and the findings", async () => {
     const r = await call(exportRoute.GET, { params: { ...P(), auditId: firstAuditId }, path: "/api/x?format=json", user: s.users.viewer });
     expect(r.status).toBe(200);
-    expect(r.json.schema).toBe("kitwright.audit/v1");
+    expect(r.json.schema).toBe("kitwright.audit/v2");
     expect(r.json.pads).toHaveLength(6);
     expect(r.json.score.formula).toContain("score =");
   });

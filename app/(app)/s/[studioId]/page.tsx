@@ -55,7 +55,7 @@ export default async function StudioOverview({ params }: { params: Promise<{ stu
             {o.audits.map((a) => (
               <li key={a.id} className="flex justify-between gap-2">
                 <Link href={`${base}/audits/${a.id}`}>{a.layoutName} × {a.kitName}</Link>
-                <span className="num whitespace-nowrap">{a.score.toFixed(1)}{a.silentPads > 0 && <span className="text-bad"> · {a.silentPads} silent</span>}</span>
+                <span className="num whitespace-nowrap">{a.score}/100{a.silentPads > 0 && <span className="text-bad"> · {a.silentPads} silent</span>}</span>
               </li>
             ))}
           </ul>
