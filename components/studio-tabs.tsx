@@ -6,7 +6,7 @@ import { usePathname } from "next/navigation";
 export function StudioTabs({ base, tabs }: { base: string; tabs: { href: string; label: string }[] }) {
   const pathname = usePathname();
   return (
-    <nav aria-label="Studio sections" className="no-print flex flex-wrap gap-1 border-b border-line">
+    <nav aria-label="Studio sections" className="no-print -mx-4 flex gap-1 overflow-x-auto border-b border-line px-4 sm:mx-0 sm:px-0">
       {tabs.map((t) => {
         const current = t.href === base ? pathname === base : pathname === t.href || pathname.startsWith(`${t.href}/`);
         return (
@@ -14,7 +14,7 @@ export function StudioTabs({ base, tabs }: { base: string; tabs: { href: string;
             key={t.href}
             href={t.href}
             aria-current={current ? "page" : undefined}
-            className={`-mb-px rounded-t-md border px-3 py-2 text-sm text-ink hover:no-underline ${current ? "border-line border-b-card bg-card font-semibold" : "border-transparent hover:border-line hover:bg-card"}`}
+            className={`-mb-px shrink-0 whitespace-nowrap rounded-t-md border px-3 py-2 text-sm text-ink hover:no-underline ${current ? "border-line border-b-card bg-card font-semibold" : "border-transparent hover:border-line hover:bg-card"}`}
           >
             {t.label}
           </Link>
