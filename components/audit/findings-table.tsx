@@ -41,7 +41,7 @@ export function FindingsTable({ result }: { result: AuditResult }) {
   // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({ data: rows, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
   return (
-    <div className="overflow-x-auto">
+    <div className="table-scroll">
       <table className="w-full text-sm" data-testid="findings-table">
         <thead className="text-left text-muted">
           {table.getHeaderGroups().map((hg) => (

@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { FormError } from "@/components/form-bits";
 import { useRunAudit } from "@/components/data/audits";
+import { Select } from "@/components/ui/select";
 
 export function RunAuditForm({ studioId, layouts, kits, layoutId, kitId }: { studioId: string; layouts: Array<{ id: string; name: string }>; kits: Array<{ id: string; name: string }>; layoutId?: string; kitId?: string }) {
   const router = useRouter();
@@ -20,11 +21,11 @@ export function RunAuditForm({ studioId, layouts, kits, layoutId, kitId }: { stu
     }}>
       <div>
         <label className="label" htmlFor="audit-layout">Layout</label>
-        <select id="audit-layout" className="field" value={l} onChange={(e) => setL(e.target.value)}>{layouts.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</select>
+        <Select id="audit-layout" className="field" value={l} onChange={(e) => setL(e.target.value)}>{layouts.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</Select>
       </div>
       <div>
         <label className="label" htmlFor="audit-kit">Kit</label>
-        <select id="audit-kit" className="field" value={k} onChange={(e) => setK(e.target.value)}>{kits.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</select>
+        <Select id="audit-kit" className="field" value={k} onChange={(e) => setK(e.target.value)}>{kits.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</Select>
       </div>
       <button className="btn-primary" disabled={busy}>{busy ? "Auditing…" : "Run audit"}</button>
       <FormError error={run.error} />
@@ -38,7 +39,7 @@ export function CompareWith({ studioId, auditId, others }: { studioId: string; a
   return (
     <label className="inline-flex items-center gap-2 text-sm">
       <span>Compare with</span>
-      <select className="field w-auto py-1" defaultValue="" aria-label="Compare with another audit" onChange={(e) => {
+      <Select className="field w-auto py-1" defaultValue="" aria-label="Compare with another audit" onChange={(e) => {
         const o = others.find((x) => x.id === e.target.value);
         if (!o) return;
         const [before, after] = o.older ? [o.id, auditId] : [auditId, o.id];
@@ -46,7 +47,7 @@ export function CompareWith({ studioId, auditId, others }: { studioId: string; a
       }}>
         <option value="" disabled>choose an audit…</option>
         {others.map((o) => <option key={o.id} value={o.id}>{o.label}</option>)}
-      </select>
+      </Select>
     </label>
   );
 }

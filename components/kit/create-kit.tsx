@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { FormError } from "@/components/form-bits";
 import { useCreateKit } from "@/components/data/kits";
+import { Select } from "@/components/ui/select";
 
 export const TEMPLATE_LABELS: Record<string, string> = {
   "gm-percussion": "General MIDI percussion map (47 notes)",
@@ -30,10 +31,10 @@ export function CreateKitForm({ studioId }: { studioId: string }) {
       </div>
       <div>
         <label className="label" htmlFor="kit-template">Slots</label>
-        <select id="kit-template" className="field" value={template} onChange={(e) => setTemplate(e.target.value)}>
+        <Select id="kit-template" className="field" value={template} onChange={(e) => setTemplate(e.target.value)}>
           <option value="">Start empty</option>
           {Object.entries(TEMPLATE_LABELS).map(([k, v]) => <option key={k} value={k}>Fill from the catalogue for: {v}</option>)}
-        </select>
+        </Select>
         <p className="mt-1 text-xs text-muted">Filling picks one catalogued instrument per slot (toms high to low by measured pitch); you can change every slot afterwards.</p>
       </div>
       <button className="btn-primary" disabled={busy}>Create kit</button>

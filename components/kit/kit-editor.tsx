@@ -10,6 +10,7 @@ import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type 
 import { orderTomsByPitch } from "@/lib/audit/kits";
 import type { Kit, KitSlot } from "@/lib/audit/types";
 import type { InstrumentChoice } from "@/lib/api-types/kits";
+import { Select } from "@/components/ui/select";
 
 /** Assign the instruments held by tom slots to those slots from high to low measured pitch (slot order kept). */
 export function orderTomSlots(slots: KitSlot[], instruments: InstrumentChoice[]): KitSlot[] {
@@ -86,13 +87,13 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
                 </div>
                 <div>
                   <label className="sr-only" htmlFor={`slot-family-${i}`}>Expects</label>
-                  <select id={`slot-family-${i}`} className="field py-1.5" value={s.family} disabled={!canWrite} onChange={(e) => patch(i, { family: e.target.value as Family })}>
+                  <Select id={`slot-family-${i}`} className="field py-1.5" value={s.family} disabled={!canWrite} onChange={(e) => patch(i, { family: e.target.value as Family })}>
                     {FAMILIES.map((f) => <option key={f} value={f}>{f}</option>)}
-                  </select>
+                  </Select>
                 </div>
                 <div>
                   <label className="sr-only" htmlFor={`slot-inst-${i}`}>Instrument</label>
-                  <select id={`slot-inst-${i}`} className="field py-1.5" value={s.instrumentId ?? ""} disabled={!canWrite} onChange={(e) => patch(i, { instrumentId: e.target.value || null })}>
+                  <Select id={`slot-inst-${i}`} className="field py-1.5" value={s.instrumentId ?? ""} disabled={!canWrite} onChange={(e) => patch(i, { instrumentId: e.target.value || null })}>
                     <option value="">— empty slot (its pads stay silent) —</option>
                     {s.instrumentId && !inst && <option value={s.instrumentId}>missing instrument {s.instrumentId}</option>}
                     {[s.family, ...FAMILIES.filter((f) => f !== s.family)].map((f) => {
@@ -103,7 +104,7 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
                         </optgroup>
                       ) : null;
                     })}
-                  </select>
+                  </Select>
                   {inst && <p className="mt-0.5 text-xs text-muted">Recorded: {inst.articulations.join(", ") || "nothing yet"}</p>}
                   {otherFamily && <p className="mt-0.5 text-xs text-warn">⚠ holds a {inst.family} in a {s.family} slot: the audit uses the {inst.family}’s own articulations.</p>}
                   {s.instrumentId && !inst && <p className="mt-0.5 text-xs text-bad">✕ this instrument is no longer in the catalogue.</p>}
@@ -122,18 +123,18 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
                   <p className="text-xs text-muted">When the requested articulation is missing, play this one instead (used only when it is recorded; otherwise the family’s closeness graph decides).</p>
                   {overrides.map(([req, play], k) => (
                     <div key={k} className="flex flex-wrap items-center gap-2 text-sm">
-                      <select aria-label="Requested articulation" className="field w-auto" value={req} disabled={!canWrite} onChange={(e) => {
+                      <Select aria-label="Requested articulation" className="field w-auto" value={req} disabled={!canWrite} onChange={(e) => {
                         const next = { ...(s.standIns ?? {}) };
                         delete next[req];
                         next[e.target.value as Articulation] = play;
                         patch(i, { standIns: next });
                       }}>
                         {ARTICULATIONS.map((a) => <option key={a} value={a}>{a}</option>)}
-                      </select>
+                      </Select>
                       <span aria-hidden>→</span>
-                      <select aria-label="Plays instead" className="field w-auto" value={play} disabled={!canWrite} onChange={(e) => patch(i, { standIns: { ...(s.standIns ?? {}), [req]: e.target.value as Articulation } })}>
+                      <Select aria-label="Plays instead" className="field w-auto" value={play} disabled={!canWrite} onChange={(e) => patch(i, { standIns: { ...(s.standIns ?? {}), [req]: e.target.value as Articulation } })}>
                         {[...FAMILY_ARTICULATIONS[fam], ...ARTICULATIONS.filter((a) => !FAMILY_ARTICULATIONS[fam].includes(a))].map((a) => <option key={a} value={a}>{a}</option>)}
-                      </select>
+                      </Select>
                       {canWrite && <button type="button" className="btn-quiet py-1" onClick={() => { const next = { ...(s.standIns ?? {}) }; delete next[req]; patch(i, { standIns: Object.keys(next).length ? next : undefined }); }}>Remove</button>}
                     </div>
                   ))}

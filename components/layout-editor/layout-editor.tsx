@@ -12,6 +12,7 @@ import { MiddleCSetting, noteName, useMiddleC } from "@/components/midi/notes";
 import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalogue/taxonomy";
 import type { HiHatPedal, Layout, LayoutSlot, Pad } from "@/lib/audit/types";
 import { PedalEditor } from "./pedal-editor";
+import { Select } from "@/components/ui/select";
 
 export interface KitSlotsChoice { id: string; name: string; slots: LayoutSlot[] }
 
@@ -206,22 +207,22 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
               {(noteUse.get(`${pad.note}/${pad.channel}`) ?? 0) > 1 && <p className="text-xs text-muted">⧉ Other pads send this note too (fine when they aim at the same target; the audit flags two different targets).</p>}
               <div>
                 <label className="label" htmlFor="pad-slot">Target slot</label>
-                <select id="pad-slot" className="field" value={pad.target?.slotId ?? ""} onChange={(e) => {
+                <Select id="pad-slot" className="field" value={pad.target?.slotId ?? ""} onChange={(e) => {
                   const s = slots.find((x) => x.id === e.target.value);
                   patchPad(pad.id, { target: s ? { slotId: s.id, articulation: pad.target && FAMILY_ARTICULATIONS[s.family].includes(pad.target.articulation) ? pad.target.articulation : FAMILY_ARTICULATIONS[s.family][0]! } : null });
                 }}>
                   <option value="">— no target —</option>
                   {slots.map((s) => <option key={s.id} value={s.id}>{s.name} ({s.family})</option>)}
-                </select>
+                </Select>
                 {slots.length === 0 && <p className="mt-1 text-xs text-muted">Take the slot list from a kit below, or add a slot.</p>}
               </div>
               {pad.target && (
                 <div>
                   <label className="label" htmlFor="pad-art">Articulation</label>
-                  <select id="pad-art" className="field" value={pad.target.articulation} onChange={(e) => patchPad(pad.id, { target: { slotId: pad.target!.slotId, articulation: e.target.value as Articulation } })}>
+                  <Select id="pad-art" className="field" value={pad.target.articulation} onChange={(e) => patchPad(pad.id, { target: { slotId: pad.target!.slotId, articulation: e.target.value as Articulation } })}>
                     {fam && <optgroup label={`${fam} articulations`}>{FAMILY_ARTICULATIONS[fam].map((a) => <option key={a} value={a}>{a}</option>)}</optgroup>}
                     <optgroup label="other articulations">{ARTICULATIONS.filter((a) => !fam || !FAMILY_ARTICULATIONS[fam].includes(a)).map((a) => <option key={a} value={a}>{a}</option>)}</optgroup>
-                  </select>
+                  </Select>
                 </div>
               )}
               {lastVelocity[pad.id] !== undefined && <p className="text-xs text-muted">Last learned velocity: <span className="num">{lastVelocity[pad.id]}</span></p>}
@@ -234,10 +235,10 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
           <h2>Slots the pads aim at</h2>
           <div>
             <label className="label" htmlFor="slots-from-kit">Take slots from a kit</label>
-            <select id="slots-from-kit" className="field" value={kitForSlots} onChange={(e) => { setKitForSlots(e.target.value); const k = kits.find((x) => x.id === e.target.value); if (k) update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], k.slots) })); }} disabled={!canWrite}>
+            <Select id="slots-from-kit" className="field" value={kitForSlots} onChange={(e) => { setKitForSlots(e.target.value); const k = kits.find((x) => x.id === e.target.value); if (k) update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], k.slots) })); }} disabled={!canWrite}>
               <option value="">—</option>
               {kits.map((k) => <option key={k.id} value={k.id}>{k.name} ({k.slots.length} slots)</option>)}
-            </select>
+            </Select>
           </div>
           <ul className="flex max-h-48 flex-wrap gap-1 overflow-y-auto text-xs" data-testid="layout-slots">{slots.map((s) => <li key={s.id} className="tag border-line">{s.name} <span className="ml-1 text-muted">{s.family}</span></li>)}</ul>
           {canWrite && <AddSlot onAdd={(s) => update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], [s]) }))} taken={new Set(slots.map((s) => s.id))} />}
@@ -274,9 +275,9 @@ function AddSlot({ onAdd, taken }: { onAdd: (s: LayoutSlot) => void; taken: Set<
         <label className="label" htmlFor="new-slot-name">New slot</label>
         <input id="new-slot-name" className="field" value={name} onChange={(e) => setName(e.target.value)} placeholder="Snare B" />
       </div>
-      <select aria-label="Family the slot expects" className="field w-auto" value={family} onChange={(e) => setFamily(e.target.value as Family)}>
+      <Select aria-label="Family the slot expects" className="field w-auto" value={family} onChange={(e) => setFamily(e.target.value as Family)}>
         {FAMILIES.map((f) => <option key={f} value={f}>{f}</option>)}
-      </select>
+      </Select>
       <button type="button" className="btn-quiet" disabled={!name.trim()} onClick={() => {
         let id = name.trim().toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "slot";
         while (taken.has(id)) id += "-2";

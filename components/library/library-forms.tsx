@@ -5,6 +5,7 @@ import { useRouter } from "next/navigation";
 import { Field, FormError, Message, fieldErrors } from "../form-bits";
 import { useCreateLibrary, useDeleteLibrary, useUpdateLibrary } from "../data/libraries";
 import { createLibrarySchema, updateLibrarySchema, type VelocityCurveName } from "@/lib/validation/library";
+import { Select } from "@/components/ui/select";
 
 export function CreateLibraryForm({ studioId }: { studioId: string }) {
   const router = useRouter();
@@ -75,10 +76,10 @@ export function LibrarySettings({ studioId, libraryId, name, description, veloci
         </div>
         <div>
           <label htmlFor="lib-curve" className="label">Velocity curve</label>
-          <select id="lib-curve" name="velocityCurve" defaultValue={velocityCurve} className="field">
+          <Select id="lib-curve" name="velocityCurve" defaultValue={velocityCurve} className="field">
             <option value="dls">Square law (MMA DLS Level 1): the default</option>
             <option value="dannenberg">Dannenberg (ICMC 2006), over each group&apos;s measured range</option>
-          </select>
+          </Select>
           <p className="mt-1 text-xs text-muted">How the layers&apos; loudness maps to MIDI velocities. Changing it sorts the library again.</p>
         </div>
         <FormError error={save.error} />

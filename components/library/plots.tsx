@@ -6,6 +6,7 @@
 import { useMemo, useState } from "react";
 import { CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis } from "recharts";
 import type { FeaturePoint, LadderGroup } from "@/lib/api-types/libraries";
+import { Select } from "@/components/ui/select";
 
 const SHAPES = ["circle", "square", "triangle", "diamond", "cross", "star", "wye"] as const;
 const hz = (v: number) => (v >= 1000 ? `${(v / 1000).toFixed(v >= 10_000 ? 0 : 1)} kHz` : `${Math.round(v)} Hz`);
@@ -32,9 +33,9 @@ export function LoudnessLadder({ groups }: { groups: LadderGroup[] }) {
         <h3 className="font-semibold">Loudness ladder</h3>
         <div>
           <label htmlFor="ladder-group" className="label">Instrument / articulation / mic</label>
-          <select id="ladder-group" className="field w-80" value={key} onChange={(e) => setKey(e.target.value)}>
+          <Select id="ladder-group" className="field w-80" value={key} onChange={(e) => setKey(e.target.value)}>
             {groups.map((x) => <option key={x.key} value={x.key}>{x.label} ({x.layers.length} layers)</option>)}
-          </select>
+          </Select>
         </div>
       </div>
       {g && (
@@ -95,10 +96,10 @@ export function FeatureMap({ points, colourBy }: { points: FeaturePoint[]; colou
         <h3 className="font-semibold">Feature map: brightness against decay</h3>
         <div>
           <label htmlFor="fm-by" className="label">Colour and shape by</label>
-          <select id="fm-by" className="field w-40" value={by} onChange={(e) => setBy(e.target.value as "family" | "articulation")}>
+          <Select id="fm-by" className="field w-40" value={by} onChange={(e) => setBy(e.target.value as "family" | "articulation")}>
             <option value="family">family</option>
             <option value="articulation">articulation</option>
-          </select>
+          </Select>
         </div>
       </div>
       <div className="h-96" role="img" aria-label={`Feature map of ${points.length} samples in ${series.length} groups; ${flagged.length} flagged for review`}>

@@ -12,6 +12,7 @@ import { SampleDetail } from "./sample-detail";
 import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
 import { MIC_POSITIONS } from "@/lib/catalogue/names";
 import type { RelabelBody, SampleRow } from "@/lib/api-types/samples";
+import { Select as UiSelect } from "@/components/ui/select";
 
 type Inst = { key: string; name: string; family: string };
 
@@ -127,7 +128,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
       {canWrite && <BulkBar studioId={studioId} libraryId={libraryId} selected={[...selected]} instruments={instruments} onDone={() => setSelected(new Set())} onSelectPage={() => setSelected(new Set(allOnPage))} onClear={() => setSelected(new Set())} />}
 
       <div className={openId ? "grid items-start gap-3 xl:grid-cols-[minmax(0,1fr)_380px]" : ""}>
-        <div className="card overflow-x-auto p-0">
+        <div className="card table-scroll min-w-0 p-0">
           <table className="w-full text-sm" data-testid="samples-table">
             <caption className="sr-only">Samples of the library</caption>
             <thead className="text-left text-xs text-muted">
@@ -166,9 +167,9 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
               <button type="button" className="btn-quiet px-2 py-1" disabled={page <= 1} onClick={() => setParams({ page: String(page - 1) }, false)}>← Previous</button>
               <span>page <span className="num">{page}</span> of <span className="num">{pages}</span></span>
               <button type="button" className="btn-quiet px-2 py-1" disabled={page >= pages} onClick={() => setParams({ page: String(page + 1) }, false)}>Next →</button>
-              <select aria-label="Rows per page" className="field w-auto py-1" value={pageSize} onChange={(e) => setParams({ pageSize: e.target.value })}>
+              <UiSelect aria-label="Rows per page" className="field w-auto py-1" value={pageSize} onChange={(e) => setParams({ pageSize: e.target.value })}>
                 {[25, 50, 100, 200].map((n) => <option key={n} value={n}>{n} per page</option>)}
-              </select>
+              </UiSelect>
             </span>
           </div>
         </div>
@@ -183,10 +184,10 @@ function Select({ id, label, value, options, labels, onChange }: { id: string; l
   return (
     <div>
       <label className="label" htmlFor={id}>{label}</label>
-      <select id={id} className="field w-40" value={value ?? ""} onChange={(e) => onChange(e.target.value || null)}>
+      <UiSelect id={id} className="field w-40" value={value ?? ""} onChange={(e) => onChange(e.target.value || null)}>
         <option value="">any</option>
         {options.map((o) => <option key={o} value={o}>{labels?.[o] ?? o}</option>)}
-      </select>
+      </UiSelect>
     </div>
   );
 }

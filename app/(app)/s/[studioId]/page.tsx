@@ -23,7 +23,7 @@ export default async function StudioOverview({ params }: { params: Promise<{ stu
         {o.libraries.length === 0 ? (
           <p className="text-sm text-muted">No library yet.{can(studio.role, "studio:write") ? " Create one and drop your WAV files or a zipped pack on it." : ""}</p>
         ) : (
-          <table className="w-full text-sm">
+          <div className="table-scroll"><table className="w-full text-sm">
             <thead className="text-left text-muted"><tr><th className="py-1 font-medium">Name</th><th className="py-1 text-right font-medium">Samples</th><th className="py-1 text-right font-medium">Catalogued</th><th className="py-1 text-right font-medium">Waiting</th><th className="py-1 text-right font-medium">Refused</th></tr></thead>
             <tbody>
               {o.libraries.map((l) => (
@@ -36,7 +36,7 @@ export default async function StudioOverview({ params }: { params: Promise<{ stu
                 </tr>
               ))}
             </tbody>
-          </table>
+          </table></div>
         )}
       </section>
 

@@ -50,7 +50,7 @@ export default async function ActivityPage({ params, searchParams }: { params: P
   const beforeId = before && /^\d+$/.test(before) ? Number(before) : undefined;
   const entries = await listActivity({ studioId: studio.id, before: beforeId, limit });
   return (
-    <section className="card p-0">
+    <section className="card table-scroll p-0">
       <table className="w-full text-sm" data-testid="activity-table">
         <caption className="px-5 pt-4 text-left font-semibold">Activity log, newest first</caption>
         <thead className="text-left text-muted"><tr><th className="px-5 py-2 font-medium">When (UTC)</th><th className="px-2 py-2 font-medium">Who</th><th className="px-5 py-2 font-medium">What</th></tr></thead>

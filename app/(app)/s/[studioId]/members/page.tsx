@@ -14,9 +14,9 @@ export default async function MembersPage({ params }: { params: Promise<{ studio
   const manage = can(studio.role, "members:manage");
   const [members, invitations] = await Promise.all([listMembers({ studioId: studio.id }), manage ? listInvitations({ studioId: studio.id }) : Promise.resolve([])]);
   return (
-    <div className="grid gap-6 lg:grid-cols-[1fr_340px]">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_340px]">
       <section className="space-y-6">
-        <div className="card overflow-x-auto p-0">
+        <div className="card table-scroll p-0">
           <table className="w-full text-sm" data-testid="members-table">
             <caption className="px-5 pt-4 text-left font-semibold">Members</caption>
             <thead className="text-left text-muted">

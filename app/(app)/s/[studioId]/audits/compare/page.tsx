@@ -36,7 +36,7 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
         <div className="card text-sm"><p className="text-muted">After</p><p><Link href={`/s/${studio.id}/audits/${data.after.id}`} className="num">{when(data.after.createdAt)}</Link></p><p>kit {data.after.kitName}</p></div>
         <div className="card text-sm" data-testid="compare-score"><p className="text-muted">Score</p><p className="num text-2xl font-semibold">{d.scoreBefore.toFixed(1)} → {d.scoreAfter.toFixed(1)}</p><p className="num">{d.scoreDelta > 0 ? "▲ +" : d.scoreDelta < 0 ? "▼ " : "= "}{d.scoreDelta.toFixed(1)}</p></div>
       </div>
-      <div className="card w-fit"><table className="text-sm">
+      <div className="card table-scroll w-fit max-w-full"><table className="text-sm">
         <thead className="text-left text-muted"><tr><th className="pr-6 font-medium" /><th className="pr-6 font-medium">before</th><th className="font-medium">after</th></tr></thead>
         <tbody className="num">
           <tr><td className="pr-6">direct</td><td>{sb.direct}</td><td>{sa.direct}</td></tr>
@@ -48,7 +48,7 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
       <section className="card space-y-2" data-testid="compare-changes">
         <h2>Changes ({d.changes.length})</h2>
         {d.changes.length === 0 ? <p className="text-sm text-muted">Every pad plays the same as before.</p> : (
-          <table className="w-full text-sm">
+          <div className="table-scroll"><table className="w-full text-sm">
             <thead className="text-left text-muted"><tr><th className="py-1 font-medium">Pad</th><th className="font-medium">Change</th><th className="font-medium">Before</th><th className="font-medium">After</th><th className="font-medium">Details</th></tr></thead>
             <tbody>
               {d.changes.map((c) => (
@@ -61,7 +61,7 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
                 </tr>
               ))}
             </tbody>
-          </table>
+          </table></div>
         )}
       </section>
       {(d.conflictsAdded.length > 0 || d.conflictsResolved.length > 0) && (
