@@ -24,7 +24,7 @@ export function FindingsTable({ result }: { result: AuditResult }) {
   }, [result]);
   const columns = useMemo(() => [
     col.accessor("label", { header: "Pad", cell: (i) => <span><span className="font-medium">{i.getValue()}</span> <span className="text-xs text-muted">{i.row.original.kind !== "pad" ? i.row.original.kind : ""}</span></span> }),
-    col.accessor("note", { header: "Note", cell: (i) => (i.getValue() === null ? "—" : <span className="num">{i.getValue()} {noteName(i.getValue()!, middleC)} · ch {i.row.original.channel}</span>) }),
+    col.accessor("note", { header: "Note", cell: (i) => (i.getValue() === null ? "—" : <span className="num whitespace-nowrap">{i.getValue()} {noteName(i.getValue()!, middleC)} · ch {i.row.original.channel}</span>) }),
     col.accessor("target", { header: "Asks for" }),
     col.accessor((r) => ORDER[r.f.outcome], { id: "outcome", header: "Outcome", cell: (i) => <OutcomeBadge outcome={i.row.original.f.outcome} /> }),
     col.accessor((r) => r.f.plays ?? "", {

@@ -105,7 +105,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
       <button key={p.id} type="button" onClick={() => setSelected(p.id)} aria-pressed={isSel} data-testid="layout-pad" data-pad-id={p.id}
         className={`flex min-h-20 flex-col items-start gap-0.5 rounded-md border p-2 text-left text-xs ${isSel ? "border-brand bg-brand-soft ring-2 ring-brand" : "border-line bg-card hover:bg-paper"}`}>
         <span className="font-medium">{p.label || "(no label)"}</span>
-        <span className="num">{p.note} · {noteName(p.note, middleC)} · ch {p.channel}{shared && <span title="Several pads send this note" aria-label="shared note"> ⧉</span>}</span>
+        <span className="num">{p.note} · {noteName(p.note, middleC)} · ch {p.channel}{shared && <> <SharedNoteMark /></>}</span>
         <span className="text-muted">{p.target ? `${s?.name ?? p.target.slotId}: ${p.target.articulation}` : "→ no target"}</span>
         {lastVelocity[p.id] !== undefined && <span className="num text-muted">vel {lastVelocity[p.id]}</span>}
       </button>
@@ -204,7 +204,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
                   <input id="pad-channel" type="number" min={1} max={16} className="field num" value={pad.channel} onChange={(e) => patchPad(pad.id, { channel: Math.max(1, Math.min(16, Math.round(Number(e.target.value) || 1))) })} />
                 </div>
               </div>
-              {(noteUse.get(`${pad.note}/${pad.channel}`) ?? 0) > 1 && <p className="text-xs text-muted">⧉ Other pads send this note too (fine when they aim at the same target; the audit flags two different targets).</p>}
+              {(noteUse.get(`${pad.note}/${pad.channel}`) ?? 0) > 1 && <p className="text-xs text-muted"><SharedNoteMark /> Other pads send this note too (fine when they aim at the same target; the audit flags two different targets).</p>}
               <div>
                 <label className="label" htmlFor="pad-slot">Target slot</label>
                 <Select id="pad-slot" className="field" value={pad.target?.slotId ?? ""} onChange={(e) => {
@@ -285,5 +285,16 @@ function AddSlot({ onAdd, taken }: { onAdd: (s: LayoutSlot) => void; taken: Set<
         setName("");
       }}>Add</button>
     </div>
+  );
+}
+
+/** Two overlapping squares: several pads send this note (drawn, so it never depends on a font having the glyph). */
+function SharedNoteMark() {
+  return (
+    <svg viewBox="0 0 12 12" className="inline h-3 w-3 align-[-1px]" fill="none" stroke="currentColor" strokeWidth="1.3" role="img" aria-label="shared note">
+      <title>Several pads send this note</title>
+      <rect x="1" y="1" width="7" height="7" rx="1" />
+      <rect x="4" y="4" width="7" height="7" rx="1" />
+    </svg>
   );
 }
