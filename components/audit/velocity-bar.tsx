@@ -9,7 +9,7 @@ export function VelocityBar({ layers, gaps, compact = false }: { layers: LayerFi
   return (
     <div className={`relative w-full overflow-hidden rounded-sm border border-line bg-paper ${compact ? "h-3" : "h-5"}`} role="img" aria-label={`Velocity layers ${label}`} title={label} data-testid="velocity-bar">
       {layers.map((l, i) => (
-        <div key={i} className={`absolute inset-y-0 border-r border-card ${i % 2 ? "bg-brand/60" : "bg-brand/35"} flex items-center justify-center text-[9px] text-white`}
+        <div key={i} className={`absolute inset-y-0 border-r border-card ${i % 2 ? "bg-brand/45" : "bg-brand/25"} flex items-center justify-center text-[9px] text-ink`}
           style={{ left: `${pos(l.velocityLow)}%`, width: `${wid(l.velocityLow, l.velocityHigh)}%` }}>
           {!compact && `×${l.roundRobins}`}
         </div>

@@ -116,7 +116,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
   const fam: Family | undefined = pad?.target ? slotOf(pad.target.slotId)?.family : undefined;
 
   return (
-    <div className="grid gap-6 xl:grid-cols-[1fr_360px]">
+    <div className="grid grid-cols-1 gap-6 xl:grid-cols-[minmax(0,1fr)_360px]">
       <div className="space-y-4">
         <section className="card space-y-3">
           <div className="flex flex-wrap items-center justify-between gap-3">
@@ -124,7 +124,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
             <MiddleCSetting value={middleC} onChange={setMiddleC} />
           </div>
           {grid ? (
-            <div className="grid gap-2" style={{ gridTemplateColumns: `repeat(${grid.cols}, minmax(0, 1fr))` }} data-testid="layout-grid">
+            <div className="table-scroll -mx-1 px-1 pb-1"><div className="grid gap-2" style={{ gridTemplateColumns: `repeat(${grid.cols}, minmax(5.5rem, 1fr))` }} data-testid="layout-grid">
               {Array.from({ length: grid.rows * grid.cols }, (_, i) => {
                 const r = Math.floor(i / grid.cols) + 1;
                 const c = (i % grid.cols) + 1;
@@ -140,7 +140,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
                     }}>+ pad</button>
                 );
               })}
-            </div>
+            </div></div>
           ) : (
             <div className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3" data-testid="layout-grid">{layout.pads.map(padButton)}</div>
           )}
@@ -240,7 +240,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
               {kits.map((k) => <option key={k.id} value={k.id}>{k.name} ({k.slots.length} slots)</option>)}
             </Select>
           </div>
-          <ul className="flex max-h-48 flex-wrap gap-1 overflow-y-auto text-xs" data-testid="layout-slots">{slots.map((s) => <li key={s.id} className="tag border-line">{s.name} <span className="ml-1 text-muted">{s.family}</span></li>)}</ul>
+          <ul className="flex max-h-48 flex-wrap gap-1 overflow-y-auto text-xs" data-testid="layout-slots" tabIndex={0} aria-label="Slots of this layout">{slots.map((s) => <li key={s.id} className="tag border-line">{s.name} <span className="ml-1 text-muted">{s.family}</span></li>)}</ul>
           {canWrite && <AddSlot onAdd={(s) => update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], [s]) }))} taken={new Set(slots.map((s) => s.id))} />}
         </section>
 

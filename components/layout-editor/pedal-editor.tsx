@@ -35,7 +35,7 @@ export function PedalEditor({ pedal, slots, canWrite, middleC, onChange }: { ped
       </div>
       {!pedal ? <p className="text-sm text-muted">No pedal on this layout.</p> : (
         <fieldset disabled={!canWrite} className="space-y-3">
-          <div className="grid gap-3 sm:grid-cols-4">
+          <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
             <div>
               <label className="label" htmlFor="pedal-cc">Controller (CC)</label>
               <input id="pedal-cc" type="number" min={0} max={119} className="field num" value={pedal.controller} onChange={(e) => onChange({ ...pedal, controller: int(e.target.value, 0, 119) })} />
@@ -45,7 +45,7 @@ export function PedalEditor({ pedal, slots, canWrite, middleC, onChange }: { ped
               <label className="label" htmlFor="pedal-ch">Channel</label>
               <input id="pedal-ch" type="number" min={1} max={16} className="field num" value={pedal.channel} onChange={(e) => onChange({ ...pedal, channel: int(e.target.value, 1, 16) })} />
             </div>
-            <div>
+            <div className="col-span-2">
               <label className="label" htmlFor="pedal-closed">Closed at</label>
               <Select id="pedal-closed" className="field" value={pedal.closedAt} onChange={(e) => onChange({ ...pedal, closedAt: e.target.value as "low" | "high" })}>
                 <option value="high">high values (127 = closed)</option>

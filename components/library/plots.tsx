@@ -113,7 +113,7 @@ export function FeatureMap({ points, colourBy }: { points: FeaturePoint[]; colou
           <ScatterChart margin={{ top: 10, right: 16, bottom: 20, left: 24 }}>
             <CartesianGrid strokeDasharray="3 3" stroke="var(--color-line)" />
             <XAxis type="number" dataKey="centroidHz" name="centroid" scale="log" domain={xAxis.domain} ticks={xAxis.ticks} allowDataOverflow tickFormatter={hz} {...AXIS} label={{ value: "spectral centroid of the strike (log scale)", position: "insideBottom", offset: -10, ...AXIS_LABEL }} />
-            <YAxis type="number" dataKey="decaySec" name="decay" scale="log" domain={yAxis.domain} ticks={yAxis.ticks} allowDataOverflow tickFormatter={sec} width={56} {...AXIS} label={{ value: "decay (log scale)", angle: -90, position: "left", offset: 4, style: { textAnchor: "middle" }, ...AXIS_LABEL }} />
+            <YAxis type="number" dataKey="decaySec" name="decay" scale="log" domain={yAxis.domain} ticks={yAxis.ticks} allowDataOverflow tickFormatter={sec} width={66} {...AXIS} label={{ value: "decay (log scale)", angle: -90, position: "left", offset: 4, style: { textAnchor: "middle" }, ...AXIS_LABEL }} />
             <ZAxis range={[36, 36]} />
             <Tooltip {...TOOLTIP} cursor={{ strokeDasharray: "3 3" }} formatter={(v) => (typeof v === "number" ? v.toFixed(2) : String(v))} />
             <Legend verticalAlign="top" formatter={legendText} />

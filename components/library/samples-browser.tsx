@@ -138,10 +138,10 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
                     const key = SORTABLE[h.column.id];
                     const active = key === sort;
                     return (
-                      <th key={h.id} className="whitespace-nowrap px-2 py-2 font-medium" aria-sort={active ? (dir === "asc" ? "ascending" : "descending") : undefined}>
+                      <th key={h.id} className="whitespace-nowrap px-2 py-2 font-medium" aria-sort={active ? (dir === "asc" ? "ascending" : "descending") : key ? "none" : undefined}>
                         {key ? (
-                          <button type="button" className="hover:text-ink" onClick={() => setParams({ sort: key, dir: active && dir === "asc" ? "desc" : "asc" })}>
-                            {flexRender(h.column.columnDef.header, h.getContext())} {active ? (dir === "asc" ? "▲" : "▼") : ""}
+                          <button type="button" className="inline-flex items-center gap-1 hover:text-ink" onClick={() => setParams({ sort: key, dir: active && dir === "asc" ? "desc" : "asc" })}>
+                            {flexRender(h.column.columnDef.header, h.getContext())} <span aria-hidden className={active ? "" : "text-line-strong"}>{active ? (dir === "asc" ? "▲" : "▼") : "↕"}</span>
                           </button>
                         ) : (
                           flexRender(h.column.columnDef.header, h.getContext())

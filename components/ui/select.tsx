@@ -70,6 +70,7 @@ export interface SelectProps {
 
 export function Select({ id, name, value, defaultValue, onChange, onValueChange, disabled, required, className = "", placeholder, children, ...aria }: SelectProps) {
   const groups = parse(children);
+  const natural = /(^|\s)w-auto(\s|$)/.test(className);
   const controlled = value !== undefined;
   const [own, setOwn] = useState(String(defaultValue ?? ""));
   const current = controlled ? String(value) : own;
@@ -87,7 +88,9 @@ export function Select({ id, name, value, defaultValue, onChange, onValueChange,
         {...aria}
         className={`field flex min-h-[2.25rem] items-center justify-between gap-2 text-left data-[disabled]:cursor-not-allowed data-[disabled]:opacity-60 data-[placeholder]:text-muted ${className}`}
       >
-        <span className="min-w-0 truncate"><RS.Value placeholder={placeholder} /></span>
+        {/* a select as wide as its box lets a long choice be cut with an ellipsis instead of widening the page;
+            one sized to its content (w-auto) shows the whole choice */}
+        <span className={natural ? "min-w-0 truncate" : "w-0 min-w-0 flex-1 truncate"}><RS.Value placeholder={placeholder} /></span>
         <RS.Icon asChild>
           <svg viewBox="0 0 16 16" className="h-4 w-4 shrink-0 text-muted" fill="none" stroke="currentColor" strokeWidth="1.6" aria-hidden><path d="M4 6l4 4 4-4" /></svg>
         </RS.Icon>
