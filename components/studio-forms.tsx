@@ -111,7 +111,7 @@ export function MemberControls({ studioId, userId, role, name }: { studioId: str
   const refresh = { onSuccess: () => router.refresh() };
   const [asking, setAsking] = useState(false);
   return (
-    <div className="flex flex-wrap items-center justify-end gap-2">
+    <div className="flex flex-wrap items-center justify-start gap-2 sm:justify-end">
       <Select aria-label={`Role of ${name}`} className="field w-28 py-1" value={role} disabled={change.isPending} onChange={(e) => change.mutate(e.target.value as Role, refresh)}>
         {ROLES.map((r) => <option key={r} value={r}>{r}</option>)}
       </Select>
