@@ -11,6 +11,7 @@ import { orderTomsByPitch } from "@/lib/audit/kits";
 import type { Kit, KitSlot } from "@/lib/audit/types";
 import type { InstrumentChoice } from "@/lib/api-types/kits";
 import { Select } from "@/components/ui/select";
+import { Tip } from "@/components/ui/tooltip";
 
 /** Assign the instruments held by tom slots to those slots from high to low measured pitch (slot order kept). */
 export function orderTomSlots(slots: KitSlot[], instruments: InstrumentChoice[]): KitSlot[] {
@@ -155,7 +156,7 @@ export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: 
       {canWrite && (
         <div className="no-print sticky bottom-0 flex flex-wrap items-center gap-2 border-t border-line bg-paper py-3">
           <button type="button" className="btn-quiet" onClick={addSlot}>Add slot</button>
-          <button type="button" className="btn-quiet" onClick={() => change(orderTomSlots(slots, instruments))} title="Tom slots keep their places; the toms they hold are reordered from the highest measured pitch to the lowest">Order toms by pitch (high → low)</button>
+          <Tip content="Tom slots keep their places; the toms they hold are reordered from the highest measured pitch to the lowest"><button type="button" className="btn-quiet" onClick={() => change(orderTomSlots(slots, instruments))}>Order toms by pitch (high → low)</button></Tip>
           <button type="button" className="btn-primary" onClick={save} disabled={saveSlots.isPending || !dirty}>Save kit</button>
           {dirty && <span className="text-sm text-warn">● unsaved changes</span>}
           {saveSlots.isSuccess && <Message kind="ok">Kit saved.</Message>}

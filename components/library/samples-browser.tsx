@@ -13,6 +13,7 @@ import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
 import { MIC_POSITIONS } from "@/lib/catalogue/names";
 import type { RelabelBody, SampleRow } from "@/lib/api-types/samples";
 import { Select as UiSelect } from "@/components/ui/select";
+import { Tip } from "@/components/ui/tooltip";
 
 type Inst = { key: string; name: string; family: string };
 
@@ -96,7 +97,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
       { id: "truePeak", header: "True peak dBTP", cell: ({ row }) => <span className={`num ${row.original.truePeakDbtp !== null && row.original.truePeakDbtp > 0 ? "font-semibold text-bad" : ""}`}>{fmt(row.original.truePeakDbtp)}{row.original.truePeakDbtp !== null && row.original.truePeakDbtp > 0 ? " ▲" : ""}</span> },
       { id: "duration", header: "Length s", cell: ({ row }) => <span className="num">{fmt(row.original.durationSec, 2)}</span> },
       { id: "confidence", header: "Confidence", cell: ({ row }) => <span className="num">{row.original.confidence === null ? "–" : `${Math.round(row.original.confidence * 100)}%`}</span> },
-      { id: "flags", header: "Review", cell: ({ row }) => (row.original.conflict === "strong" ? <span className="tag border-warn/40 bg-warn-soft text-warn" title="The name and the sound disagree: check this sample">⚑ name ≠ sound</span> : row.original.conflict === "mild" ? <span className="text-xs text-muted" title="The sound only partly fits the name">~ check</span> : null) },
+      { id: "flags", header: "Review", cell: ({ row }) => (row.original.conflict === "strong" ? <Tip focusable content="The name and the sound disagree: check this sample"><span className="tag border-warn/40 bg-warn-soft text-warn">⚑ name ≠ sound</span></Tip> : row.original.conflict === "mild" ? <span className="text-xs text-muted" title="The sound only partly fits the name">~ check</span> : null) },
     );
     return cols;
     // eslint-disable-next-line react-hooks/exhaustive-deps
