@@ -21,7 +21,7 @@ function PadCell({ p, middleC, active, onPlay }: { p: PadFinding; middleC: "C3" 
   return (
     <button type="button" onClick={() => onPlay(p)} data-testid="chart-pad" data-pad-id={p.padId} data-outcome={p.outcome}
       className={`flex min-h-24 w-full flex-col gap-1 rounded-md border bg-card p-2 text-left text-xs break-inside-avoid ${frame} ${active ? "ring-2 ring-brand" : ""}`}
-      aria-label={`${p.label}: ${OUTCOME_TEXT[p.outcome]}${p.plays ? `, plays ${p.plays}` : ""}. Click to audition.`}>
+      aria-describedby="pad-chart-audition-hint">
       <span className="flex items-start justify-between gap-1">
         <span className="font-medium leading-tight">{p.label}</span>
         <span className="num shrink-0 text-muted">{p.note} {noteName(p.note, middleC)}</span>
@@ -80,6 +80,7 @@ export function PadChart({ studioId, auditId, result }: { studioId: string; audi
 
   return (
     <div className="space-y-4">
+      <p id="pad-chart-audition-hint" className="sr-only">Press a pad to audition it.</p>
       <div className="no-print flex flex-wrap items-center justify-between gap-3">
         <MiddleCSetting value={middleC} onChange={setMiddleC} />
         <span className="flex flex-wrap items-center gap-3 text-xs text-muted" aria-label="Legend">
