@@ -7,6 +7,8 @@ import { useRouter } from "next/navigation";
 import type { UseMutationResult } from "@tanstack/react-query";
 import { FormError, Message } from "@/components/form-bits";
 import { paths } from "@/components/data/paths";
+import { ConfirmDialog } from "@/components/ui/dialog";
+import { FilePicker } from "@/components/ui/file-picker";
 import { useCopyKit, useDeleteKit, useImportKit, useRenameKit } from "@/components/data/kits";
 import { useCopyLayout, useDeleteLayout, useImportLayout, useRenameLayout } from "@/components/data/layouts";
 
@@ -38,7 +40,21 @@ function ItemActions({ what, name, canWrite, exportHref, listHref, rename, copy,
         <a className="btn-quiet" href={exportHref} download>Export JSON</a>
         {canWrite && <button type="button" className="btn-quiet" onClick={() => { setMode("rename"); setText(name); }}>Rename</button>}
         {canWrite && <button type="button" className="btn-quiet" onClick={() => { setMode("copy"); setText(`${name} (copy)`); }}>Copy</button>}
-        {canWrite && <button type="button" className="btn-danger" onClick={() => setMode("delete")}>Delete</button>}
+        {canWrite && (
+          <ConfirmDialog
+            open={mode === "delete"}
+            onOpenChange={(o) => setMode(o ? "delete" : "idle")}
+            title={`Delete the ${what}?`}
+            confirmLabel="Delete for good"
+            cancelLabel="Keep it"
+            busy={busy}
+            onConfirm={() => { fresh(); remove.mutate(undefined, { onSuccess: () => { router.push(listHref); router.refresh(); } }); }}
+            trigger={<button type="button" className="btn-danger">Delete</button>}
+          >
+            <p>Delete the {what} “{name}”{what === "layout" ? " and its saved audits" : ""}? This cannot be undone.</p>
+            <div className="mt-2"><FormError error={remove.error} /></div>
+          </ConfirmDialog>
+        )}
       </div>
       {(mode === "rename" || mode === "copy") && (
         <form className="flex flex-wrap items-end gap-2" onSubmit={(e) => {
@@ -54,13 +70,6 @@ function ItemActions({ what, name, canWrite, exportHref, listHref, rename, copy,
           <button className="btn-primary" disabled={busy}>{mode === "rename" ? "Rename" : "Make copy"}</button>
           <button type="button" className="btn-quiet" onClick={() => setMode("idle")}>Cancel</button>
         </form>
-      )}
-      {mode === "delete" && (
-        <div className="flex flex-wrap items-center gap-2 text-sm">
-          <span>Delete the {what} “{name}”{what === "layout" ? " and its saved audits" : ""}? This cannot be undone.</span>
-          <button type="button" className="btn-danger" disabled={busy} onClick={() => { fresh(); remove.mutate(undefined, { onSuccess: () => { router.push(listHref); router.refresh(); } }); }}>Delete for good</button>
-          <button type="button" className="btn-quiet" onClick={() => setMode("idle")}>Keep it</button>
-        </div>
       )}
       <FormError error={rename.error ?? copy.error ?? remove.error} />
     </div>
@@ -87,8 +96,7 @@ function ImportJson({ write, listHref, label }: { write: Write<unknown>; listHre
   const [notJson, setNotJson] = useState(false);
   return (
     <div className="space-y-2">
-      <label className="label" htmlFor={`import-${label}`}>{label}</label>
-      <input id={`import-${label}`} type="file" accept="application/json,.json" className="block text-sm" onChange={async (e) => {
+      <FilePicker id={`import-${label.replace(/\W+/g, "-")}`} label={label} buttonText="Choose a JSON file…" accept="application/json,.json" onChange={async (e) => {
         setNotJson(false);
         write.reset();
         const f = e.target.files?.[0];

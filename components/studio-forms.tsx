@@ -9,6 +9,8 @@ import { useAcceptInvitation, useInvite, useRevokeInvitation } from "./data/invi
 import { useChangeRole, useRemoveMember } from "./data/members";
 import { inviteSchema, studioNameSchema } from "@/lib/validation/studio";
 import { DEFAULT_INVITE_ROLE, ROLES, rolesInWords, type Role } from "@/lib/permissions";
+import { Select } from "@/components/ui/select";
+import { ConfirmDialog } from "@/components/ui/dialog";
 import type { StudioNameBody } from "@/lib/api-types/studios";
 
 /** A studio name form's submit: the name, once the shared schema accepts it, goes to `send`. */
@@ -89,9 +91,9 @@ export function InviteForm({ studioId }: { studioId: string }) {
       <Field label="E-mail" name="email" type="email" required error={fields.email} />
       <div>
         <label className="label" htmlFor="invite-role">Role</label>
-        <select id="invite-role" name="role" className="field" defaultValue={DEFAULT_INVITE_ROLE}>
+        <Select id="invite-role" name="role" className="field" defaultValue={DEFAULT_INVITE_ROLE}>
           {ROLES.map((r) => <option key={r} value={r}>{r}</option>)}
-        </select>
+        </Select>
         <p className="mt-1 text-xs text-muted">{rolesInWords()}</p>
       </div>
       <FormError error={m.error} />
@@ -106,21 +108,23 @@ export function MemberControls({ studioId, userId, role, name }: { studioId: str
   const change = useChangeRole(studioId, userId);
   const remove = useRemoveMember(studioId, userId);
   const refresh = { onSuccess: () => router.refresh() };
+  const [asking, setAsking] = useState(false);
   return (
-    <div className="flex flex-wrap items-center justify-end gap-2">
-      <select aria-label={`Role of ${name}`} className="field w-28 py-1" value={role} disabled={change.isPending} onChange={(e) => change.mutate(e.target.value as Role, refresh)}>
+    <div className="flex flex-wrap items-center justify-start gap-2 sm:justify-end">
+      <Select aria-label={`Role of ${name}`} className="field w-28 py-1" value={role} disabled={change.isPending} onChange={(e) => change.mutate(e.target.value as Role, refresh)}>
         {ROLES.map((r) => <option key={r} value={r}>{r}</option>)}
-      </select>
-      <button
-        type="button"
-        className="btn-danger py-1"
-        disabled={remove.isPending}
-        onClick={() => {
-          if (window.confirm(`Remove ${name} from this studio? They lose access at once.`)) remove.mutate(undefined, refresh);
-        }}
+      </Select>
+      <ConfirmDialog
+        open={asking}
+        onOpenChange={setAsking}
+        title={`Remove ${name}?`}
+        confirmLabel="Remove from studio"
+        busy={remove.isPending}
+        onConfirm={() => remove.mutate(undefined, { onSuccess: () => { setAsking(false); router.refresh(); } })}
+        trigger={<button type="button" className="btn-danger py-1" disabled={remove.isPending}>Remove</button>}
       >
-        Remove
-      </button>
+        <p>{name} loses access to this studio at once.</p>
+      </ConfirmDialog>
       <FormError error={change.error ?? remove.error} compact className="basis-full text-right" />
     </div>
   );

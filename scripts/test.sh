@@ -29,4 +29,6 @@ nohup bash scripts/serve-app.sh -p "$KW_APP_PORT" -H 127.0.0.1 >"$KW_RUN/app.log
 nohup node --conditions=react-server --import tsx workers/main.ts >"$KW_RUN/worker.log" 2>&1 & echo $! >"$KW_RUN/worker.pid"
 for _ in $(seq 1 100); do curl -fsS "http://127.0.0.1:$KW_APP_PORT/api/health" >/dev/null 2>&1 && break; sleep 0.3; done
 step "browser tests"; npx vitest run --project e2e
+# the page screenshots of tests/e2e/pages.test.ts stay for CI to keep as artefacts (wiped only when the next run starts)
+log "screenshots: $KW_STATE/screenshots and test-results/screens"
 log "all tests passed"

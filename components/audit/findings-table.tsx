@@ -87,6 +87,7 @@ export function FindingsTable({ result }: { result: AuditResult }) {
           Also list the {folded} pad{folded === 1 ? "" : "s"} aimed at empty slots (grouped above)
         </label>
       )}
+      <div className="table-scroll">
       <table className="block w-full text-sm md:table" data-testid="findings-table">
         <thead className="hidden text-left text-muted md:table-header-group">
           {table.getHeaderGroups().map((hg) => (
@@ -110,6 +111,7 @@ export function FindingsTable({ result }: { result: AuditResult }) {
           ))}
         </tbody>
       </table>
+      </div>
     </div>
   );
 }

@@ -35,7 +35,7 @@ function PadCell({ p, middleC, playing, onPlay, cell, dense = false }: { p: PadF
       {...cell}
       title={`${playsInWords(p)}. ${playDetail(p)}`}
       className={`flex h-full min-h-20 w-full flex-col gap-1 rounded-md border bg-card text-left break-inside-avoid hover:bg-paper sm:p-2 sm:text-xs ${dense ? "p-1 text-[11px]" : "p-1.5 text-xs"} ${frame} ${playing ? "ring-2 ring-brand ring-offset-1 ring-offset-card" : ""}`}
-      aria-label={`${p.label}, note ${p.note}: ${playsInWords(p)}. Press to audition.`}>
+      aria-describedby="pad-chart-audition-hint">
       <span className="flex flex-wrap items-start justify-between gap-x-1">
         <span className="min-w-0 font-medium leading-tight [overflow-wrap:anywhere] hyphens-auto">{p.label}</span>
         <span className="num shrink-0 text-muted">{p.note}<span className={wide}> {noteName(p.note, middleC)}</span></span>
@@ -95,6 +95,7 @@ export function PadChart({ studioId, auditId, result, surface }: { studioId: str
 
   return (
     <div className="space-y-4">
+      <p id="pad-chart-audition-hint" className="sr-only">Press a pad to audition it.</p>
       <div className="no-print flex flex-wrap items-center justify-between gap-3">
         <MiddleCSetting value={middleC} onChange={setMiddleC} />
         <span className="flex flex-wrap items-center gap-3 text-xs text-muted" aria-label="Legend">

@@ -7,6 +7,7 @@ import { useRouter } from "next/navigation";
 import { compareHref } from "./audit-links";
 import { FormError } from "@/components/form-bits";
 import { useRunAudit } from "@/components/data/audits";
+import { Select } from "@/components/ui/select";
 
 export function RunAuditForm({ studioId, layouts, kits, layoutId, kitId, lastKits = {} }: { studioId: string; layouts: Array<{ id: string; name: string }>; kits: Array<{ id: string; name: string }>; layoutId?: string; kitId?: string; lastKits?: Record<string, string> }) {
   const router = useRouter();
@@ -28,11 +29,11 @@ export function RunAuditForm({ studioId, layouts, kits, layoutId, kitId, lastKit
     }}>
       <div>
         <label className="label" htmlFor="audit-layout">Layout</label>
-        <select id="audit-layout" className="field" value={l} onChange={(e) => { setL(e.target.value); setK(defaultKit(e.target.value)); }}>{layouts.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</select>
+        <Select id="audit-layout" className="field" value={l} onChange={(e) => { setL(e.target.value); setK(defaultKit(e.target.value)); }}>{layouts.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</Select>
       </div>
       <div>
         <label className="label" htmlFor="audit-kit">Kit</label>
-        <select id="audit-kit" className="field" value={k} onChange={(e) => setK(e.target.value)}>{kits.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</select>
+        <Select id="audit-kit" className="field" value={k} onChange={(e) => setK(e.target.value)}>{kits.map((x) => <option key={x.id} value={x.id}>{x.name}</option>)}</Select>
         {lastKits[l] === k && <p className="mt-1 text-xs text-muted" data-testid="kit-last-used">The kit last audited with this layout.</p>}
       </div>
       <button className="btn-primary" disabled={busy}>{busy ? "Auditing…" : "Run audit"}</button>
@@ -47,7 +48,7 @@ export function CompareWith({ studioId, auditId, others }: { studioId: string; a
   return (
     <label className="inline-flex flex-wrap items-center gap-2 text-sm">
       <span>Or compare with</span>
-      <select className="field w-auto py-1" defaultValue="" aria-label="Compare with another audit" onChange={(e) => {
+      <Select className="field w-auto py-1" defaultValue="" aria-label="Compare with another audit" onChange={(e) => {
         const o = others.find((x) => x.id === e.target.value);
         if (!o) return;
         const [before, after] = o.older ? [o.id, auditId] : [auditId, o.id];
@@ -55,7 +56,7 @@ export function CompareWith({ studioId, auditId, others }: { studioId: string; a
       }}>
         <option value="" disabled>choose an audit…</option>
         {others.map((o) => <option key={o.id} value={o.id}>{o.label}</option>)}
-      </select>
+      </Select>
     </label>
   );
 }

@@ -6,6 +6,7 @@ import { Field, FormError } from "@/components/form-bits";
 import { useCreateKit } from "@/components/data/kits";
 import { expectedSlots } from "@/lib/audit/kits";
 import { getTemplate } from "@/lib/audit/templates";
+import { Select } from "@/components/ui/select";
 
 export const TEMPLATE_LABELS: Record<string, string> = {
   "gm-percussion": "General MIDI percussion map (47 notes)",
@@ -40,10 +41,10 @@ export function CreateKitForm({ studioId, libraries, library }: { studioId: stri
       <Field label="Kit name" id="kit-name" value={name} onChange={(e) => setName(e.target.value)} required maxLength={160} placeholder="Studio A kit" />
       <div>
         <label className="label" htmlFor="kit-template">Kit template</label>
-        <select id="kit-template" className="field" value={template} onChange={(e) => setTemplate(e.target.value)} aria-describedby="kit-template-hint">
+        <Select id="kit-template" className="field" value={template} onChange={(e) => setTemplate(e.target.value)} aria-describedby="kit-template-hint">
           <option value="">No template: start with no slots</option>
           {KIT_TEMPLATES.map((t) => <option key={t.id} value={t.id}>{t.label} ({t.slots.length} slots)</option>)}
-        </select>
+        </Select>
         <p id="kit-template-hint" className="mt-1 text-xs text-muted">
           {chosen && <span className="block text-ink" data-testid="kit-template-slots">{chosen.slots.length > 12 ? `${chosen.slots.slice(0, 12).join(", ")} and ${chosen.slots.length - 12} more` : chosen.slots.join(", ")}.</span>}
           A template names the slots and puts one instrument in each (toms high to low by measured pitch); instruments left over get slots of their own. You can change every slot afterwards.

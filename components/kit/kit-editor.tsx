@@ -13,6 +13,8 @@ import { orderTomsByPitch } from "@/lib/audit/kits";
 import { choicesForSlot, slotNameKey } from "@/lib/audit/kit-fill";
 import type { Kit, KitSlot } from "@/lib/audit/types";
 import type { InstrumentChoice } from "@/lib/api-types/kits";
+import { Select } from "@/components/ui/select";
+import { Tip } from "@/components/ui/tooltip";
 
 /** Assign the instruments held by tom slots to those slots from high to low measured pitch (slot order kept). */
 export function orderTomSlots(slots: KitSlot[], instruments: InstrumentChoice[]): KitSlot[] {
@@ -121,13 +123,13 @@ function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; i
                 </div>
                 <div>
                   <label className="sr-only" htmlFor={`slot-family-${i}`}>Expects</label>
-                  <select id={`slot-family-${i}`} className="field py-1.5" value={s.family} onChange={(e) => patch(i, { family: e.target.value as Family })}>
+                  <Select id={`slot-family-${i}`} className="field py-1.5" value={s.family} onChange={(e) => patch(i, { family: e.target.value as Family })}>
                     {FAMILIES.map((f) => <option key={f} value={f}>{f}</option>)}
-                  </select>
+                  </Select>
                 </div>
                 <div>
                   <label className="sr-only" htmlFor={`slot-inst-${i}`}>Instrument</label>
-                  <select id={`slot-inst-${i}`} className="field py-1.5" value={s.instrumentId ?? ""} onChange={(e) => patch(i, { instrumentId: e.target.value || null })}>
+                  <Select id={`slot-inst-${i}`} className="field py-1.5" value={s.instrumentId ?? ""} onChange={(e) => patch(i, { instrumentId: e.target.value || null })}>
                     <option value="">— empty slot (its pads stay silent) —</option>
                     {s.instrumentId && !inst && <option value={s.instrumentId}>missing instrument {s.instrumentId}</option>}
                     {inst && libraryId && inst.libraryId !== libraryId && <option value={inst.id}>{instLabel(inst)}</option>}
@@ -144,7 +146,7 @@ function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; i
                         ))}
                       </>);
                     })()}
-                  </select>
+                  </Select>
                   {inst && <p className="mt-0.5 text-xs text-muted">Recorded: {inst.articulations.join(", ") || "nothing yet"}</p>}
                   {otherFamily && <p className="mt-0.5 text-xs text-warn">⚠ holds a {inst.family} in a {s.family} slot: the audit uses the {inst.family}’s own articulations.</p>}
                   {s.instrumentId && !inst && <p className="mt-0.5 text-xs text-bad">✕ this instrument is no longer in the catalogue.</p>}
@@ -161,18 +163,18 @@ function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; i
                   <p className="text-xs text-muted">When the requested articulation is missing, play this one instead (used only when it is recorded; otherwise the family’s closeness graph decides).</p>
                   {overrides.map(([req, play], k) => (
                     <div key={k} className="flex flex-wrap items-center gap-2 text-sm">
-                      <select aria-label="Requested articulation" className="field w-auto" value={req} onChange={(e) => {
+                      <Select aria-label="Requested articulation" className="field w-auto" value={req} onChange={(e) => {
                         const next = { ...(s.standIns ?? {}) };
                         delete next[req];
                         next[e.target.value as Articulation] = play;
                         patch(i, { standIns: next });
                       }}>
                         {ARTICULATIONS.map((a) => <option key={a} value={a}>{a}</option>)}
-                      </select>
+                      </Select>
                       <span aria-hidden>→</span>
-                      <select aria-label="Plays instead" className="field w-auto" value={play} onChange={(e) => patch(i, { standIns: { ...(s.standIns ?? {}), [req]: e.target.value as Articulation } })}>
+                      <Select aria-label="Plays instead" className="field w-auto" value={play} onChange={(e) => patch(i, { standIns: { ...(s.standIns ?? {}), [req]: e.target.value as Articulation } })}>
                         {[...FAMILY_ARTICULATIONS[fam], ...ARTICULATIONS.filter((a) => !FAMILY_ARTICULATIONS[fam].includes(a))].map((a) => <option key={a} value={a}>{a}</option>)}
-                      </select>
+                      </Select>
                       <button type="button" className="btn-quiet py-1" onClick={() => { const next = { ...(s.standIns ?? {}) }; delete next[req]; patch(i, { standIns: Object.keys(next).length ? next : undefined }); }}>Remove</button>
                     </div>
                   ))}
@@ -190,7 +192,7 @@ function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; i
       {slots.length === 0 && <p className="text-sm text-muted">No slots yet.</p>}
       <div className="no-print sticky bottom-0 flex flex-wrap items-center gap-2 border-t border-line bg-paper py-3">
         <button type="button" className="btn-quiet" onClick={addSlot}>Add slot</button>
-        <button type="button" className="btn-quiet" onClick={() => change(orderTomSlots(slots, instruments))} title="Tom slots keep their places; the toms they hold are reordered from the highest measured pitch to the lowest">Order toms by pitch (high → low)</button>
+        <Tip content="Tom slots keep their places; the toms they hold are reordered from the highest measured pitch to the lowest"><button type="button" className="btn-quiet" onClick={() => change(orderTomSlots(slots, instruments))}>Order toms by pitch (high → low)</button></Tip>
         <button type="button" className="btn-primary" onClick={save} disabled={saveSlots.isPending || !dirty}>Save kit</button>
         {dirty && <span className="text-sm text-warn">● unsaved changes</span>}
         {saveSlots.isSuccess && <Message kind="ok">Kit saved.</Message>}

@@ -5,6 +5,7 @@ import { useRouter } from "next/navigation";
 import { Field, FormError } from "@/components/form-bits";
 import { useCreateLayout } from "@/components/data/layouts";
 import { TEMPLATE_LABELS } from "@/components/kit/create-kit";
+import { Select } from "@/components/ui/select";
 
 export function CreateLayoutForm({ studioId }: { studioId: string }) {
   const router = useRouter();
@@ -26,11 +27,11 @@ export function CreateLayoutForm({ studioId }: { studioId: string }) {
       <Field label="Layout name" id="layout-name" value={name} onChange={(e) => setName(e.target.value)} required maxLength={160} />
       <div>
         <label className="label" htmlFor="layout-kind">Start from</label>
-        <select id="layout-kind" className="field" value={kind} onChange={(e) => setKind(e.target.value)}>
+        <Select id="layout-kind" className="field" value={kind} onChange={(e) => setKind(e.target.value)}>
           <option value="grid">A blank grid</option>
           <option value="zones">A blank list of trigger zones</option>
           {Object.entries(TEMPLATE_LABELS).map(([k, v]) => <option key={k} value={k}>Template: {v}</option>)}
-        </select>
+        </Select>
       </div>
       {kind === "grid" && (
         <div className="grid grid-cols-2 gap-3">

@@ -15,6 +15,7 @@ import { PedalEditor } from "./pedal-editor";
 import { ReadOnlyValue, ViewOnlyNote } from "@/components/view-only";
 import type { MiddleC } from "@/components/midi/note-name";
 import { PadGrid, type CellProps } from "@/components/pad-chart/pad-grid";
+import { Select } from "@/components/ui/select";
 
 export interface KitSlotsChoice { id: string; name: string; slots: LayoutSlot[] }
 
@@ -107,7 +108,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
       <button key={p.id} type="button" onClick={() => setSelected(p.id)} aria-pressed={isSel} data-testid="layout-pad" data-pad-id={p.id} {...cell}
         className={`flex h-full min-h-20 w-full flex-col items-start gap-0.5 rounded-md border p-1 text-left text-[11px] sm:p-2 sm:text-xs ${isSel ? "border-brand bg-brand-soft ring-2 ring-brand" : "border-line bg-card hover:bg-paper"}`}>
         <span className="min-w-0 font-medium [overflow-wrap:anywhere]">{p.label || "(no label)"}</span>
-        <span className="num">{p.note} · {noteName(p.note, middleC)} · ch {p.channel}{shared && <span title="Several pads send this note" aria-label="shared note"> ⧉</span>}</span>
+        <span className="num">{p.note} · {noteName(p.note, middleC)} · ch {p.channel}{shared && <> <SharedNoteMark /></>}</span>
         <span className="text-muted">{p.target ? `${s?.name ?? p.target.slotId}: ${p.target.articulation}` : "→ no target"}</span>
         {lastVelocity[p.id] !== undefined && <span className="num text-muted">vel {lastVelocity[p.id]}</span>}
       </button>
@@ -118,7 +119,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
   const fam: Family | undefined = pad?.target ? slotOf(pad.target.slotId)?.family : undefined;
 
   return (
-    <div className="grid gap-6 xl:grid-cols-[1fr_360px]">
+    <div className="grid grid-cols-1 gap-6 xl:grid-cols-[minmax(0,1fr)_360px]">
       <div className="space-y-4">
         {!canWrite && <ViewOnlyNote what="this layout" />}
         <section className="card space-y-3">
@@ -198,25 +199,25 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
                   <input id="pad-channel" type="number" min={1} max={16} className="field num" value={pad.channel} onChange={(e) => patchPad(pad.id, { channel: Math.max(1, Math.min(16, Math.round(Number(e.target.value) || 1))) })} />
                 </div>
               </div>
-              {(noteUse.get(`${pad.note}/${pad.channel}`) ?? 0) > 1 && <p className="text-xs text-muted">⧉ Other pads send this note too (fine when they aim at the same target; the audit flags two different targets).</p>}
+              {(noteUse.get(`${pad.note}/${pad.channel}`) ?? 0) > 1 && <p className="text-xs text-muted"><SharedNoteMark /> Other pads send this note too (fine when they aim at the same target; the audit flags two different targets).</p>}
               <div>
                 <label className="label" htmlFor="pad-slot">Target slot</label>
-                <select id="pad-slot" className="field" value={pad.target?.slotId ?? ""} onChange={(e) => {
+                <Select id="pad-slot" className="field" value={pad.target?.slotId ?? ""} onChange={(e) => {
                   const s = slots.find((x) => x.id === e.target.value);
                   patchPad(pad.id, { target: s ? { slotId: s.id, articulation: pad.target && FAMILY_ARTICULATIONS[s.family].includes(pad.target.articulation) ? pad.target.articulation : FAMILY_ARTICULATIONS[s.family][0]! } : null });
                 }}>
                   <option value="">— no target —</option>
                   {slots.map((s) => <option key={s.id} value={s.id}>{s.name} ({s.family})</option>)}
-                </select>
+                </Select>
                 {slots.length === 0 && <p className="mt-1 text-xs text-muted">Take the slot list from a kit below, or add a slot.</p>}
               </div>
               {pad.target && (
                 <div>
                   <label className="label" htmlFor="pad-art">Articulation</label>
-                  <select id="pad-art" className="field" value={pad.target.articulation} onChange={(e) => patchPad(pad.id, { target: { slotId: pad.target!.slotId, articulation: e.target.value as Articulation } })}>
+                  <Select id="pad-art" className="field" value={pad.target.articulation} onChange={(e) => patchPad(pad.id, { target: { slotId: pad.target!.slotId, articulation: e.target.value as Articulation } })}>
                     {fam && <optgroup label={`${fam} articulations`}>{FAMILY_ARTICULATIONS[fam].map((a) => <option key={a} value={a}>{a}</option>)}</optgroup>}
                     <optgroup label="other articulations">{ARTICULATIONS.filter((a) => !fam || !FAMILY_ARTICULATIONS[fam].includes(a)).map((a) => <option key={a} value={a}>{a}</option>)}</optgroup>
-                  </select>
+                  </Select>
                 </div>
               )}
               {lastVelocity[pad.id] !== undefined && <p className="text-xs text-muted">Last learned velocity: <span className="num">{lastVelocity[pad.id]}</span></p>}
@@ -229,12 +230,12 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
           <h2>Slots the pads aim at</h2>
           {canWrite && <div>
             <label className="label" htmlFor="slots-from-kit">Take slots from a kit</label>
-            <select id="slots-from-kit" className="field" value={kitForSlots} onChange={(e) => { setKitForSlots(e.target.value); const k = kits.find((x) => x.id === e.target.value); if (k) update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], k.slots) })); }}>
+            <Select id="slots-from-kit" className="field" value={kitForSlots} onChange={(e) => { setKitForSlots(e.target.value); const k = kits.find((x) => x.id === e.target.value); if (k) update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], k.slots) })); }}>
               <option value="">—</option>
               {kits.map((k) => <option key={k.id} value={k.id}>{k.name} ({k.slots.length} slots)</option>)}
-            </select>
+            </Select>
           </div>}
-          <ul className="flex max-h-48 flex-wrap gap-1 overflow-y-auto text-xs" data-testid="layout-slots">{slots.map((s) => <li key={s.id} className="tag border-line">{s.name} <span className="ml-1 text-muted">{s.family}</span></li>)}</ul>
+          <ul className="flex max-h-48 flex-wrap gap-1 overflow-y-auto text-xs" data-testid="layout-slots" tabIndex={0} aria-label="Slots of this layout">{slots.map((s) => <li key={s.id} className="tag border-line">{s.name} <span className="ml-1 text-muted">{s.family}</span></li>)}</ul>
           {canWrite && <AddSlot onAdd={(s) => update((l) => ({ ...l, slots: mergeSlots(l.slots ?? [], [s]) }))} taken={new Set(slots.map((s) => s.id))} />}
         </section>
 
@@ -269,9 +270,9 @@ function AddSlot({ onAdd, taken }: { onAdd: (s: LayoutSlot) => void; taken: Set<
         <label className="label" htmlFor="new-slot-name">New slot</label>
         <input id="new-slot-name" className="field" value={name} onChange={(e) => setName(e.target.value)} placeholder="Snare B" />
       </div>
-      <select aria-label="Family the slot expects" className="field w-auto" value={family} onChange={(e) => setFamily(e.target.value as Family)}>
+      <Select aria-label="Family the slot expects" className="field w-auto" value={family} onChange={(e) => setFamily(e.target.value as Family)}>
         {FAMILIES.map((f) => <option key={f} value={f}>{f}</option>)}
-      </select>
+      </Select>
       <button type="button" className="btn-quiet" disabled={!name.trim()} onClick={() => {
         let id = name.trim().toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "") || "slot";
         while (taken.has(id)) id += "-2";
@@ -292,5 +293,16 @@ function PadView({ pad, grid, slot, middleC, shared }: { pad: Pad; grid: boolean
       <ReadOnlyValue label="Channel"><span className="num">{pad.channel}</span></ReadOnlyValue>
       <div className="col-span-2"><ReadOnlyValue label="Plays">{pad.target ? `${slot?.name ?? pad.target.slotId}${slot ? ` (${slot.family})` : ""}: ${pad.target.articulation}` : "nothing: no target"}</ReadOnlyValue></div>
     </dl>
+  );
+}
+
+/** Two overlapping squares: several pads send this note (drawn, so it never depends on a font having the glyph). */
+function SharedNoteMark() {
+  return (
+    <svg viewBox="0 0 12 12" className="inline h-3 w-3 align-[-1px]" fill="none" stroke="currentColor" strokeWidth="1.3" role="img" aria-label="shared note">
+      <title>Several pads send this note</title>
+      <rect x="1" y="1" width="7" height="7" rx="1" />
+      <rect x="4" y="4" width="7" height="7" rx="1" />
+    </svg>
   );
 }

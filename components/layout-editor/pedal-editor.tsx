@@ -6,6 +6,7 @@ import type { HiHatPedal, LayoutSlot } from "@/lib/audit/types";
 import { noteName, type MiddleC } from "@/components/midi/note-name";
 import { PedalZonesBar } from "@/components/audit/pedal-bar";
 import { ReadOnlyValue } from "@/components/view-only";
+import { Select } from "@/components/ui/select";
 
 const OPENNESS: Articulation[] = ["closed", "quarter-open", "half-open", "open", "foot-splash"];
 
@@ -35,7 +36,7 @@ export function PedalEditor({ pedal, slots, canWrite, middleC, onChange }: { ped
       </div>
       {!pedal ? <p className="text-sm text-muted">No pedal on this layout.</p> : !canWrite ? <PedalView pedal={pedal} slots={slots} middleC={middleC} /> : (
         <fieldset className="space-y-3">
-          <div className="grid gap-3 sm:grid-cols-4">
+          <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
             <div>
               <label className="label" htmlFor="pedal-cc">Controller (CC)</label>
               <input id="pedal-cc" type="number" min={0} max={119} className="field num" value={pedal.controller} onChange={(e) => onChange({ ...pedal, controller: int(e.target.value, 0, 119) })} />
@@ -45,12 +46,12 @@ export function PedalEditor({ pedal, slots, canWrite, middleC, onChange }: { ped
               <label className="label" htmlFor="pedal-ch">Channel</label>
               <input id="pedal-ch" type="number" min={1} max={16} className="field num" value={pedal.channel} onChange={(e) => onChange({ ...pedal, channel: int(e.target.value, 1, 16) })} />
             </div>
-            <div>
+            <div className="col-span-2">
               <label className="label" htmlFor="pedal-closed">Closed at</label>
-              <select id="pedal-closed" className="field" value={pedal.closedAt} onChange={(e) => onChange({ ...pedal, closedAt: e.target.value as "low" | "high" })}>
+              <Select id="pedal-closed" className="field" value={pedal.closedAt} onChange={(e) => onChange({ ...pedal, closedAt: e.target.value as "low" | "high" })}>
                 <option value="high">high values (127 = closed)</option>
                 <option value="low">low values (0 = closed)</option>
-              </select>
+              </Select>
             </div>
             <div>
               <label className="label" htmlFor="pedal-chick">Chick note</label>
@@ -60,13 +61,13 @@ export function PedalEditor({ pedal, slots, canWrite, middleC, onChange }: { ped
           </div>
           <div>
             <label className="label" htmlFor="pedal-slot">Slot</label>
-            <select id="pedal-slot" className="field" value={pedal.slotId} onChange={(e) => onChange({ ...pedal, slotId: e.target.value })}>
+            <Select id="pedal-slot" className="field" value={pedal.slotId} onChange={(e) => onChange({ ...pedal, slotId: e.target.value })}>
               {!slots.some((s) => s.id === pedal.slotId) && <option value={pedal.slotId}>{pedal.slotId}</option>}
               {slots.map((s) => <option key={s.id} value={s.id}>{s.name} ({s.family})</option>)}
-            </select>
+            </Select>
           </div>
           <PedalZonesBar zones={pedal.zones.map((z) => ({ low: z.low, high: z.high, text: z.articulation, mark: "none" as const }))} closedAt={pedal.closedAt} />
-          <table className="w-full text-sm">
+          <div className="table-scroll"><table className="w-full text-sm">
             <thead className="text-left text-muted"><tr><th className="py-1 font-medium">From</th><th className="font-medium">To</th><th className="font-medium">Openness</th><th /></tr></thead>
             <tbody>
               {pedal.zones.map((z, i) => (
@@ -74,15 +75,15 @@ export function PedalEditor({ pedal, slots, canWrite, middleC, onChange }: { ped
                   <td className="py-1 pr-2"><input aria-label={`Zone ${i + 1} from`} type="number" min={0} max={127} className="field num" value={z.low} onChange={(e) => onChange({ ...pedal, zones: pedal.zones.map((x, j) => (j === i ? { ...x, low: int(e.target.value, 0, 127) } : x)) })} /></td>
                   <td className="pr-2"><input aria-label={`Zone ${i + 1} to`} type="number" min={0} max={127} className="field num" value={z.high} onChange={(e) => onChange({ ...pedal, zones: pedal.zones.map((x, j) => (j === i ? { ...x, high: int(e.target.value, 0, 127) } : x)) })} /></td>
                   <td className="pr-2">
-                    <select aria-label={`Zone ${i + 1} openness`} className="field" value={z.articulation} onChange={(e) => onChange({ ...pedal, zones: pedal.zones.map((x, j) => (j === i ? { ...x, articulation: e.target.value as Articulation } : x)) })}>
+                    <Select aria-label={`Zone ${i + 1} openness`} className="field" value={z.articulation} onChange={(e) => onChange({ ...pedal, zones: pedal.zones.map((x, j) => (j === i ? { ...x, articulation: e.target.value as Articulation } : x)) })}>
                       {[...OPENNESS, ...(OPENNESS.includes(z.articulation) ? [] : [z.articulation])].map((a) => <option key={a} value={a}>{a}</option>)}
-                    </select>
+                    </Select>
                   </td>
                   <td><button type="button" className="btn-quiet py-1" disabled={pedal.zones.length <= 1} onClick={() => onChange({ ...pedal, zones: pedal.zones.filter((_, j) => j !== i) })}>Remove</button></td>
                 </tr>
               ))}
             </tbody>
-          </table>
+          </table></div>
           <button type="button" className="btn-quiet py-1" disabled={pedal.zones.length >= 16} onClick={() => onChange({ ...pedal, zones: [...pedal.zones, { low: 0, high: 127, articulation: "closed" }] })}>Add zone</button>
         </fieldset>
       )}

@@ -6,6 +6,7 @@ import { FormError, Message } from "../form-bits";
 import { useMergeInstruments, useRenameInstrument } from "../data/instruments";
 import { ViewOnlyNote } from "../view-only";
 import type { InstrumentRow } from "@/lib/api-types/instruments";
+import { Select } from "@/components/ui/select";
 
 export function InstrumentsList({ studioId, libraryId, instruments, canWrite }: { studioId: string; libraryId: string; instruments: InstrumentRow[]; canWrite: boolean }) {
   const router = useRouter();
@@ -29,10 +30,10 @@ export function InstrumentsList({ studioId, libraryId, instruments, canWrite }: 
           <span className="pb-2"><span className="num">{picked.size}</span> selected</span>
           <div>
             <label className="label" htmlFor="merge-target">Merge the selected into</label>
-            <select id="merge-target" className="field w-64" value={target} onChange={(e) => setTarget(e.target.value)}>
+            <Select id="merge-target" className="field w-64" value={target} onChange={(e) => setTarget(e.target.value)}>
               <option value="">choose an instrument</option>
               {instruments.filter((i) => picked.has(i.id)).map((i) => <option key={i.id} value={i.id}>{i.name}</option>)}
-            </select>
+            </Select>
           </div>
           <button type="button" className="btn-primary" disabled={picked.size < 2 || !target || merge.isPending} onClick={mergePicked}>Merge</button>
           {merge.isSuccess && <Message kind="ok">{`Moved ${merge.data.moved} samples; the library is being catalogued again.`}</Message>}

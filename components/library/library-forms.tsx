@@ -6,6 +6,7 @@ import { Field, FormError, Message, useFieldCheck } from "../form-bits";
 import { useCreateLibrary, useDeleteLibrary, useUpdateLibrary } from "../data/libraries";
 import { createLibrarySchema, updateLibrarySchema, type VelocityCurveName } from "@/lib/validation/library";
 import { VELOCITY_CURVE_WORDS } from "./curve-words";
+import { Select } from "@/components/ui/select";
 
 export function CreateLibraryForm({ studioId }: { studioId: string }) {
   const router = useRouter();
@@ -74,9 +75,9 @@ export function LibrarySettings({ studioId, libraryId, name, description, veloci
         </div>
         <div>
           <label htmlFor="lib-curve" className="label">Velocity curve</label>
-          <select id="lib-curve" name="velocityCurve" defaultValue={velocityCurve} className="field">
+          <Select id="lib-curve" name="velocityCurve" defaultValue={velocityCurve} className="field">
             {(Object.keys(VELOCITY_CURVE_WORDS) as VelocityCurveName[]).map((c) => <option key={c} value={c}>{VELOCITY_CURVE_WORDS[c]}</option>)}
-          </select>
+          </Select>
           <p className="mt-1 text-xs text-muted">How the layers&apos; loudness maps to MIDI velocities. Changing it sorts the library again.</p>
         </div>
         <FormError error={save.error} />

@@ -6,11 +6,18 @@
 import { useMemo, useState } from "react";
 import { CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis } from "recharts";
 import type { FeaturePoint, LadderGroup } from "@/lib/api-types/libraries";
+import { Select } from "@/components/ui/select";
 
 const SHAPES = ["circle", "square", "triangle", "diamond", "cross", "star", "wye"] as const;
 const hz = (v: number) => (v >= 1000 ? `${(v / 1000).toFixed(v >= 10_000 ? 0 : 1)} kHz` : `${Math.round(v)} Hz`);
 const sec = (v: number) => (v >= 1 ? `${v.toFixed(1)} s` : `${Math.round(v * 1000)} ms`);
-const COLOURS = ["#1f5f5b", "#a2271d", "#9a5b00", "#3b4a9c", "#2f6b1f", "#7a2f7a", "#4b4f56", "#b0457a", "#0f7a94", "#6b5a1f", "#5b3a8c", "#8c3a1f", "#3a8c5b"];
+// categorical colours from the theme (app/globals.css --color-chart-N, each with a dark value)
+const COLOURS = Array.from({ length: 13 }, (_, i) => `var(--color-chart-${i + 1})`);
+// axis, grid, tooltip and legend drawn with the theme's tokens so both themes read
+const AXIS = { stroke: "var(--color-line-strong)", tick: { fill: "var(--color-muted)", fontSize: 12 } };
+const AXIS_LABEL = { fill: "var(--color-muted)", fontSize: 12 };
+const TOOLTIP = { contentStyle: { background: "var(--color-card)", border: "1px solid var(--color-line)", color: "var(--color-ink)", borderRadius: 6 }, itemStyle: { color: "var(--color-ink)" }, labelStyle: { color: "var(--color-muted)" } };
+const legendText = (v: string) => <span className="text-ink">{v}</span>;
 
 export function LoudnessLadder({ groups }: { groups: LadderGroup[] }) {
   const [key, setKey] = useState(groups.find((g) => g.layers.length > 1)?.key ?? groups[0]?.key ?? "");
@@ -30,25 +37,25 @@ export function LoudnessLadder({ groups }: { groups: LadderGroup[] }) {
     <section className="card space-y-3" data-testid="ladder">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <h3 className="font-semibold">Loudness ladder</h3>
-        <div>
+        <div className="w-full sm:w-auto">
           <label htmlFor="ladder-group" className="label">Instrument / articulation / mic</label>
-          <select id="ladder-group" className="field w-80" value={key} onChange={(e) => setKey(e.target.value)}>
+          <Select id="ladder-group" className="field w-full sm:w-80" value={key} onChange={(e) => setKey(e.target.value)}>
             {groups.map((x) => <option key={x.key} value={x.key}>{x.label} ({x.layers.length} layers)</option>)}
-          </select>
+          </Select>
         </div>
       </div>
       {g && (
         <>
           <div className="h-72" role="img" aria-label={`Loudness ladder of ${g.label}: ${g.layers.map((l) => `layer ${l.index + 1} at ${l.meanStrikeLufs.toFixed(1)} LUFS, velocity ${l.velocityLow}-${l.velocityHigh}, ${l.members.length} round robins`).join("; ")}`}>
             <ResponsiveContainer width="100%" height="100%">
-              <ComposedChart margin={{ top: 10, right: 20, bottom: 20, left: 20 }}>
-                <CartesianGrid strokeDasharray="3 3" stroke="#dcd8cf" />
-                <XAxis type="number" dataKey="v" domain={[1, 127]} ticks={[1, 16, 32, 48, 64, 80, 96, 112, 127]} label={{ value: "MIDI velocity", position: "insideBottom", offset: -10 }} />
-                <YAxis type="number" dataKey="lufs" domain={[(m: number) => Math.floor(m - 3), (m: number) => Math.ceil(m + 3)]} width={70} label={{ value: "strike loudness (LUFS)", angle: -90, position: "insideLeft", dy: 70 }} />
-                <Tooltip formatter={(v) => (typeof v === "number" ? v.toFixed(1) : String(v))} />
-                <Legend verticalAlign="top" />
-                <Line data={steps} dataKey="lufs" name="layer (mean, over its velocity range)" stroke="#1f5f5b" strokeWidth={3} dot={false} connectNulls={false} isAnimationActive={false} />
-                <Scatter data={dots} dataKey="lufs" name="round robins" fill="#9a5b00" shape="diamond" isAnimationActive={false} />
+              <ComposedChart margin={{ top: 10, right: 16, bottom: 20, left: 24 }}>
+                <CartesianGrid strokeDasharray="3 3" stroke="var(--color-line)" />
+                <XAxis type="number" dataKey="v" domain={[1, 127]} ticks={[1, 16, 32, 48, 64, 80, 96, 112, 127]} {...AXIS} label={{ value: "MIDI velocity", position: "insideBottom", offset: -10, ...AXIS_LABEL }} />
+                <YAxis type="number" dataKey="lufs" domain={[(m: number) => Math.floor(m - 3), (m: number) => Math.ceil(m + 3)]} width={48} {...AXIS} label={{ value: "strike loudness (LUFS)", angle: -90, position: "left", offset: 4, style: { textAnchor: "middle" }, ...AXIS_LABEL }} />
+                <Tooltip {...TOOLTIP} formatter={(v) => (typeof v === "number" ? v.toFixed(1) : String(v))} />
+                <Legend verticalAlign="top" formatter={legendText} />
+                <Line data={steps} dataKey="lufs" name="layer (mean, over its velocity range)" stroke="var(--color-chart-1)" strokeWidth={3} dot={false} connectNulls={false} isAnimationActive={false} />
+                <Scatter data={dots} dataKey="lufs" name="round robins" fill="var(--color-chart-3)" shape="diamond" isAnimationActive={false} />
               </ComposedChart>
             </ResponsiveContainer>
           </div>
@@ -93,27 +100,27 @@ export function FeatureMap({ points, colourBy }: { points: FeaturePoint[]; colou
     <section className="card space-y-3" data-testid="feature-map">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <h3 className="font-semibold">Feature map: brightness against decay</h3>
-        <div>
+        <div className="w-full sm:w-auto">
           <label htmlFor="fm-by" className="label">Colour and shape by</label>
-          <select id="fm-by" className="field w-40" value={by} onChange={(e) => setBy(e.target.value as "family" | "articulation")}>
+          <Select id="fm-by" className="field w-full sm:w-40" value={by} onChange={(e) => setBy(e.target.value as "family" | "articulation")}>
             <option value="family">family</option>
             <option value="articulation">articulation</option>
-          </select>
+          </Select>
         </div>
       </div>
       <div className="h-96" role="img" aria-label={`Feature map of ${points.length} samples in ${series.length} groups; ${flagged.length} flagged for review`}>
         <ResponsiveContainer width="100%" height="100%">
-          <ScatterChart margin={{ top: 10, right: 20, bottom: 20, left: 20 }}>
-            <CartesianGrid strokeDasharray="3 3" stroke="#dcd8cf" />
-            <XAxis type="number" dataKey="centroidHz" name="centroid" scale="log" domain={xAxis.domain} ticks={xAxis.ticks} allowDataOverflow tickFormatter={hz} label={{ value: "spectral centroid of the strike (log scale)", position: "insideBottom", offset: -10 }} />
-            <YAxis type="number" dataKey="decaySec" name="decay" scale="log" domain={yAxis.domain} ticks={yAxis.ticks} allowDataOverflow tickFormatter={sec} width={70} label={{ value: "decay (log scale)", angle: -90, position: "insideLeft", offset: 0, dy: 60 }} />
+          <ScatterChart margin={{ top: 10, right: 16, bottom: 20, left: 24 }}>
+            <CartesianGrid strokeDasharray="3 3" stroke="var(--color-line)" />
+            <XAxis type="number" dataKey="centroidHz" name="centroid" scale="log" domain={xAxis.domain} ticks={xAxis.ticks} allowDataOverflow tickFormatter={hz} {...AXIS} label={{ value: "spectral centroid of the strike (log scale)", position: "insideBottom", offset: -10, ...AXIS_LABEL }} />
+            <YAxis type="number" dataKey="decaySec" name="decay" scale="log" domain={yAxis.domain} ticks={yAxis.ticks} allowDataOverflow tickFormatter={sec} width={66} {...AXIS} label={{ value: "decay (log scale)", angle: -90, position: "left", offset: 4, style: { textAnchor: "middle" }, ...AXIS_LABEL }} />
             <ZAxis range={[36, 36]} />
-            <Tooltip cursor={{ strokeDasharray: "3 3" }} formatter={(v) => (typeof v === "number" ? v.toFixed(2) : String(v))} />
-            <Legend verticalAlign="top" />
+            <Tooltip {...TOOLTIP} cursor={{ strokeDasharray: "3 3" }} formatter={(v) => (typeof v === "number" ? v.toFixed(2) : String(v))} />
+            <Legend verticalAlign="top" formatter={legendText} />
             {series.map(([name, pts], i) => (
               <Scatter key={name} name={name} data={pts} fill={COLOURS[i % COLOURS.length]} shape={SHAPES[i % SHAPES.length]} isAnimationActive={false} />
             ))}
-            {flagged.length > 0 && <Scatter name="⚑ flagged: name and sound disagree" data={flagged} fill="none" stroke="#a2271d" strokeWidth={2} shape="circle" isAnimationActive={false} />}
+            {flagged.length > 0 && <Scatter name="⚑ flagged: name and sound disagree" data={flagged} fill="none" stroke="var(--color-bad)" strokeWidth={2} shape="circle" isAnimationActive={false} />}
           </ScatterChart>
         </ResponsiveContainer>
       </div>

@@ -14,6 +14,8 @@ import { MIC_POSITIONS } from "@/lib/catalogue/names";
 import { formatConfidence } from "@/lib/catalogue/confidence";
 import type { RelabelBody, SampleRow } from "@/lib/api-types/samples";
 import { SAMPLE_STATES } from "@/lib/validation/library";
+import { Select as UiSelect } from "@/components/ui/select";
+import { Tip } from "@/components/ui/tooltip";
 
 type Inst = { key: string; name: string; family: string };
 
@@ -104,7 +106,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
       { id: "truePeak", header: "True peak dBTP", cell: ({ row }) => <span className={`num ${row.original.truePeakDbtp !== null && row.original.truePeakDbtp > 0 ? "font-semibold text-bad" : ""}`}>{fmt(row.original.truePeakDbtp)}{row.original.truePeakDbtp !== null && row.original.truePeakDbtp > 0 ? " ▲" : ""}</span> },
       { id: "duration", header: "Length s", cell: ({ row }) => <span className="num">{fmt(row.original.durationSec, 2)}</span> },
       { id: "confidence", header: "Confidence", cell: ({ row }) => <span className="num" title="How sure Kitwright is of the family and articulation">{row.original.confidence === null ? "–" : formatConfidence(row.original.confidence)}</span> },
-      { id: "flags", header: "Review", cell: ({ row }) => (row.original.conflict === "strong" ? <span className="tag border-warn/40 bg-warn-soft text-warn" title="The name and the sound disagree: check this sample">⚑ name ≠ sound</span> : row.original.conflict === "mild" ? <span className="text-xs text-muted" title="The sound only partly fits the name">~ check</span> : null) },
+      { id: "flags", header: "Review", cell: ({ row }) => (row.original.conflict === "strong" ? <Tip focusable content="The name and the sound disagree: check this sample"><span className="tag border-warn/40 bg-warn-soft text-warn">⚑ name ≠ sound</span></Tip> : row.original.conflict === "mild" ? <span className="text-xs text-muted" title="The sound only partly fits the name">~ check</span> : null) },
     );
     return cols;
     // eslint-disable-next-line react-hooks/exhaustive-deps
@@ -136,7 +138,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
       {canWrite && <BulkBar studioId={studioId} libraryId={libraryId} selected={[...selected]} instruments={instruments} onDone={() => setSelected(new Set())} onSelectPage={() => setSelected(new Set(allOnPage))} onClear={() => setSelected(new Set())} />}
 
       <div className={openId ? "grid items-start gap-3 xl:grid-cols-[minmax(0,1fr)_380px]" : ""}>
-        <div className="card overflow-x-auto p-0">
+        <div className="card table-scroll min-w-0 p-0">
           <table className="w-full text-sm" data-testid="samples-table">
             <caption className="sr-only">Samples of the library</caption>
             <thead className="text-left text-xs text-muted">
@@ -146,10 +148,10 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
                     const key = SORTABLE[h.column.id];
                     const active = key === sort;
                     return (
-                      <th key={h.id} className="whitespace-nowrap px-2 py-2 font-medium" aria-sort={active ? (dir === "asc" ? "ascending" : "descending") : undefined}>
+                      <th key={h.id} className="whitespace-nowrap px-2 py-2 font-medium" aria-sort={active ? (dir === "asc" ? "ascending" : "descending") : key ? "none" : undefined}>
                         {key ? (
-                          <button type="button" className="hover:text-ink" onClick={() => setParams({ sort: key, dir: active && dir === "asc" ? "desc" : "asc" })}>
-                            {flexRender(h.column.columnDef.header, h.getContext())} {active ? (dir === "asc" ? "▲" : "▼") : ""}
+                          <button type="button" className="inline-flex items-center gap-1 hover:text-ink" onClick={() => setParams({ sort: key, dir: active && dir === "asc" ? "desc" : "asc" })}>
+                            {flexRender(h.column.columnDef.header, h.getContext())} <span aria-hidden className={active ? "" : "text-line-strong"}>{active ? (dir === "asc" ? "▲" : "▼") : "↕"}</span>
                           </button>
                         ) : (
                           flexRender(h.column.columnDef.header, h.getContext())
@@ -183,9 +185,9 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
               <button type="button" className="btn-quiet px-2 py-1" disabled={page <= 1} onClick={() => setParams({ page: String(page - 1) }, false)}>← Previous</button>
               <span>page <span className="num">{page}</span> of <span className="num">{pages}</span></span>
               <button type="button" className="btn-quiet px-2 py-1" disabled={page >= pages} onClick={() => setParams({ page: String(page + 1) }, false)}>Next →</button>
-              <select aria-label="Rows per page" className="field w-auto py-1" value={pageSize} onChange={(e) => setParams({ pageSize: e.target.value })}>
+              <UiSelect aria-label="Rows per page" className="field w-auto py-1" value={pageSize} onChange={(e) => setParams({ pageSize: e.target.value })}>
                 {[25, 50, 100, 200].map((n) => <option key={n} value={n}>{n} per page</option>)}
-              </select>
+              </UiSelect>
             </span>
           </div>
         </div>
@@ -200,10 +202,10 @@ function Select({ id, label, value, options, labels, onChange }: { id: string; l
   return (
     <div>
       <label className="label" htmlFor={id}>{label}</label>
-      <select id={id} className="field w-40" value={value ?? ""} onChange={(e) => onChange(e.target.value || null)}>
+      <UiSelect id={id} className="field w-40" value={value ?? ""} onChange={(e) => onChange(e.target.value || null)}>
         <option value="">any</option>
         {options.map((o) => <option key={o} value={o}>{labels?.[o] ?? o}</option>)}
-      </select>
+      </UiSelect>
     </div>
   );
 }

@@ -135,9 +135,9 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
           <div className="h-2 w-full overflow-hidden rounded bg-paper" role="progressbar" aria-label="Batch upload" aria-valuemin={0} aria-valuemax={100} aria-valuenow={total ? Math.round((loaded / total) * 100) : 0}>
             <div className="h-full bg-brand" style={{ width: `${total ? (loaded / total) * 100 : 0}%` }} />
           </div>
-          <ul className="max-h-40 space-y-1 overflow-y-auto text-xs" data-testid="upload-files">
+          <ul className="max-h-40 space-y-1 overflow-y-auto text-xs" data-testid="upload-files" tabIndex={0} aria-label="Files of this upload">
             {items.slice(0, 300).map((i) => (
-              <li key={i.id} className="grid grid-cols-[1fr_90px_70px] items-center gap-2">
+              <li key={i.id} className="grid grid-cols-[minmax(0,1fr)_90px_70px] items-center gap-2">
                 <span className="truncate" title={i.path}>{i.path}</span>
                 <span className="h-1.5 overflow-hidden rounded bg-paper" role="progressbar" aria-label={`Upload of ${i.path}`} aria-valuenow={i.file.size ? Math.round((Math.min(i.loaded, i.file.size) / i.file.size) * 100) : 100}>
                   <span className="block h-full bg-brand" style={{ width: `${i.state === "done" || i.state === "failed" ? 100 : i.file.size ? (i.loaded / i.file.size) * 100 : 0}%` }} />
@@ -162,7 +162,7 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
             </div>
           )}
           {refused.length > 0 && (
-            <ul className="max-h-32 list-disc overflow-y-auto pl-5 text-xs" data-testid="refused-list">
+            <ul className="max-h-32 list-disc overflow-y-auto pl-5 text-xs" data-testid="refused-list" tabIndex={0} aria-label="Refused files">
               {refused.slice(0, 200).map((r, k) => <li key={k}><span className="font-medium">{r.name}</span>: {r.reason}</li>)}
             </ul>
           )}

@@ -41,7 +41,7 @@ export function MidiMonitor({ events, middleC }: { events: MidiEvent[]; middleC:
       {events.length === 0 ? (
         <p className="mt-1 text-xs text-muted">Nothing received yet. Hit a pad or move the pedal.</p>
       ) : (
-        <ol className="num mt-1 max-h-48 overflow-y-auto text-xs" data-testid="midi-monitor" aria-live="polite">
+        <ol className="num mt-1 max-h-48 overflow-y-auto text-xs" data-testid="midi-monitor" aria-live="polite" tabIndex={0} aria-label="MIDI messages received">
           {events.map((e, i) => (
             <li key={`${e.at}-${i}`} className="border-t border-line py-0.5">
               {e.kind === "cc" ? (

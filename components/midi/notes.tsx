@@ -3,6 +3,7 @@
 // (localStorage), read by every page that shows note names.
 import { useCallback, useEffect, useState } from "react";
 import type { MiddleC } from "./note-name";
+import { Select } from "@/components/ui/select";
 export { noteName, type MiddleC } from "./note-name";
 
 const KEY = "kw.middleC";
@@ -24,10 +25,10 @@ export function MiddleCSetting({ value, onChange }: { value: MiddleC; onChange: 
   return (
     <label className="inline-flex items-center gap-2 text-sm">
       <span className="text-muted">Note names: middle C (note 60) is</span>
-      <select className="field w-auto py-1" value={value} onChange={(e) => onChange(e.target.value as MiddleC)} aria-label="Octave convention">
+      <Select className="field w-auto py-1" value={value} onChange={(e) => onChange(e.target.value as MiddleC)} aria-label="Octave convention">
         <option value="C3">C3</option>
         <option value="C4">C4</option>
-      </select>
+      </Select>
     </label>
   );
 }

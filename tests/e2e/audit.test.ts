@@ -10,7 +10,7 @@
 import fs from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { BASE, launch, screenshot, signIn } from "./browser";
+import { BASE, choose, chosen, launch, screenshot, signIn } from "./browser";
 import { db } from "@/lib/server/db";
 import { makeStudioWithRoles } from "../integration/helpers";
 import { addInstrument, addLayerGroup, evenLayers, makeLibrary } from "../integration/audit/helpers";
@@ -55,22 +55,22 @@ describe("audit flow in Chromium", () => {
     // a kit filled from the catalogue for the General MIDI slots
     await page.goto(`${BASE}/s/${s.studio.id}/kits`);
     await page.getByLabel("Kit name").fill(`Pier kit ${tag}`);
-    await page.getByLabel("Kit template").selectOption("gm-percussion");
+    await choose(page.getByLabel("Kit template"), "gm-percussion");
     await page.getByRole("button", { name: "Create kit" }).click();
     await page.waitForURL(/\/kits\/[0-9a-f-]{36}$/);
     await page.getByTestId("kit-slots").waitFor();
-    await expect(page.getByLabel("Instrument").first().inputValue()).resolves.not.toBe("");
+    await expect(chosen(page.getByLabel("Instrument").first())).resolves.not.toBe("");
     await screenshot(page, "audit-01-kit");
 
     // a blank 1 x 3 grid
     await page.goto(`${BASE}/s/${s.studio.id}/layouts`);
     await page.getByLabel("Layout name").fill(`Pad strip ${tag}`);
-    await page.getByLabel("Start from").selectOption("grid");
+    await choose(page.getByLabel("Start from"), "grid");
     await page.getByLabel("Rows").fill("1");
     await page.getByLabel("Columns").fill("3");
     await page.getByRole("button", { name: "Create layout" }).click();
     await page.waitForURL(/\/layouts\/[0-9a-f-]{36}$/);
-    await page.getByLabel("Take slots from a kit").selectOption({ label: `Pier kit ${tag} (39 slots)` });
+    await choose(page.getByLabel("Take slots from a kit"), { label: `Pier kit ${tag} (39 slots)` });
 
     // MIDI learn: connect, learn pads, hit three pads on the (fake) controller
     await page.getByRole("button", { name: "Connect MIDI controller" }).click();
@@ -87,16 +87,16 @@ describe("audit flow in Chromium", () => {
     await expect(pads.nth(0).textContent()).resolves.toContain("vel 101");
 
     // middle C convention: C3 names note 36 "C1"
-    await page.getByLabel("Octave convention").first().selectOption("C3");
+    await choose(page.getByLabel("Octave convention").first(), "C3");
     await expect(pads.nth(0).textContent()).resolves.toContain("36 · C1");
-    await page.getByLabel("Octave convention").first().selectOption("C4");
+    await choose(page.getByLabel("Octave convention").first(), "C4");
 
     // aim the pads: label, slot, articulation (the slot family's own articulations come first)
     const aim = async (i: number, label: string, slot: string, art: string) => {
       await pads.nth(i).click();
       await page.getByLabel("Label", { exact: true }).fill(label);
-      await page.getByLabel("Target slot").selectOption({ label: slot });
-      await expect(page.getByLabel("Articulation").inputValue()).resolves.toBe(art);
+      await choose(page.getByLabel("Target slot"), { label: slot });
+      await expect(chosen(page.getByLabel("Articulation"))).resolves.toBe(art);
     };
     await aim(0, "Kick", "Kick (kick)", "centre");
     await aim(1, "Snare", "Snare A (snare)", "centre");
@@ -116,8 +116,8 @@ describe("audit flow in Chromium", () => {
 
     // run the audit
     await page.goto(`${BASE}/s/${s.studio.id}/audits`);
-    await page.getByLabel("Layout", { exact: true }).selectOption({ label: `Pad strip ${tag}` });
-    await page.getByLabel("Kit", { exact: true }).selectOption({ label: `Pier kit ${tag}` });
+    await choose(page.getByLabel("Layout", { exact: true }), { label: `Pad strip ${tag}` });
+    await choose(page.getByLabel("Kit", { exact: true }), { label: `Pier kit ${tag}` });
     await page.getByRole("button", { name: "Run audit" }).click();
     await page.waitForURL(/\/audits\/[0-9a-f-]{36}$/);
     const firstUrl = page.url();

@@ -3,7 +3,7 @@
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { chromium, type Browser, type Page } from "playwright-core";
+import { chromium, type Browser, type Locator, type Page } from "playwright-core";
 
 export const BASE = process.env.KW_APP_URL ?? "http://localhost:3100";
 const MAIL_DIR = process.env.KW_MAIL_FAKE_DIR ?? "";
@@ -47,4 +47,24 @@ export async function waitForMailLink(to: string, pattern: RegExp, timeoutMs = 1
     await new Promise((r) => setTimeout(r, 250));
   }
   throw new Error(`no mail to ${to} with a link matching ${pattern}`);
+}
+
+/**
+ * Choose in one of the app's selects (components/ui/select: a button that opens a listbox): by value, by the
+ * option's visible label, or by position (the same order as the options in the markup).
+ */
+export async function choose(control: Locator, option: string | { label: string } | { index: number }): Promise<void> {
+  await control.click();
+  const list = control.page().getByRole("listbox");
+  const item =
+    typeof option === "string" ? list.locator(`[role="option"][data-value="${option}"]`)
+    : "label" in option ? list.getByRole("option", { name: option.label, exact: true })
+    : list.getByRole("option").nth(option.index);
+  await item.click();
+  await list.waitFor({ state: "detached" });
+}
+
+/** The value chosen in one of the app's selects ("" for none), as a native select's inputValue() gives it. */
+export async function chosen(control: Locator): Promise<string> {
+  return (await control.getAttribute("data-value")) ?? "";
 }

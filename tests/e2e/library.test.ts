@@ -6,7 +6,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import type { Browser, Page } from "playwright-core";
-import { BASE, launch, screenshot, signIn } from "./browser";
+import { BASE, choose, launch, screenshot, signIn } from "./browser";
 import { db, closeDb } from "@/lib/server/db";
 import { addMember, createStudio, createUser } from "@/db/factories";
 import { encodeWav } from "@/lib/audio/encode";
@@ -92,10 +92,10 @@ describe("library in the browser", () => {
     await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(12);
 
     // bulk relabel: the snares become rim shots (sorted by path: the 6 snares come after the 6 kicks)
-    await page.getByLabel("Family", { exact: true }).selectOption("snare");
+    await choose(page.getByLabel("Family", { exact: true }), "snare");
     await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(6);
     await page.getByRole("button", { name: "select this page" }).click();
-    await page.getByLabel("Set articulation").selectOption("rim-shot");
+    await choose(page.getByLabel("Set articulation"), "rim-shot");
     await page.getByRole("button", { name: /^Relabel 6/ }).click();
     await page.getByText("Relabelled 6 samples").waitFor();
     await expect.poll(async () => (await page.getByTestId("samples-table").textContent())?.match(/rim-shot/g)?.length ?? 0, { timeout: 20_000 }).toBe(6);

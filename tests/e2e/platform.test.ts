@@ -4,7 +4,7 @@
 import http from "node:http";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { BASE, launch, screenshot, signIn, waitForMailLink } from "./browser";
+import { BASE, choose, launch, screenshot, signIn, waitForMailLink } from "./browser";
 
 const tag = Math.random().toString(36).slice(2, 8);
 const owner = { name: "Ines Varga", email: `ines-${tag}@example.test`, password: "owner-pass-123" };
@@ -85,7 +85,7 @@ describe("platform flow in Chromium", () => {
 
     await page.getByRole("link", { name: "Members" }).click();
     await page.getByLabel("E-mail").fill(guest.email);
-    await page.getByLabel("Role", { exact: true }).selectOption("viewer");
+    await choose(page.getByLabel("Role", { exact: true }), "viewer");
     await page.getByRole("button", { name: "Send invitation" }).click();
     await page.getByText(`Invitation sent to ${guest.email}`).waitFor();
     await page.getByTestId("invitations").getByText(guest.email).waitFor();
@@ -99,7 +99,7 @@ describe("platform flow in Chromium", () => {
     otherStudioUrl = page.url();
     await page.getByRole("link", { name: "Members" }).click();
     await page.waitForURL(/\/members$/);
-    await page.getByLabel("Switch studio").selectOption({ label: studioName });
+    await choose(page.getByLabel("Switch studio"), { label: studioName });
     await page.waitForURL(`${studioUrl}/members`);
     await page.getByTestId("invitations").getByText(guest.email).waitFor();
 

@@ -10,7 +10,7 @@ export default async function StudiosPage() {
   const user = await requireUser("/studios");
   const studios = await listStudiosForUser(user.id);
   return (
-    <div className="grid gap-8 md:grid-cols-[1fr_320px]">
+    <div className="grid grid-cols-1 gap-8 md:grid-cols-[minmax(0,1fr)_320px]">
       <section className="space-y-4">
         <h1>Your studios</h1>
         {studios.length === 0 ? (

@@ -27,20 +27,20 @@ export default async function StudioOverview({ params }: { params: Promise<{ stu
         {o.libraries.length === 0 ? (
           <p className="text-sm text-muted">No library yet.{can(studio.role, "studio:write") ? " Create one and drop your WAV files or a zipped pack on it." : ""}</p>
         ) : (
-          <table className="w-full text-sm">
-            <thead className="text-left text-muted"><tr><th className="py-1 font-medium">Name</th><th className="py-1 text-right font-medium">Samples</th><th className="py-1 text-right font-medium">Catalogued</th><th className="py-1 text-right font-medium">Waiting</th><th className="py-1 text-right font-medium">Refused</th></tr></thead>
+          <div className="table-scroll"><table className="w-full text-sm">
+            <thead className="text-left text-muted"><tr><th className="py-1 font-medium">Name</th><th className="py-1 pl-3 text-right font-medium">Samples</th><th className="py-1 pl-3 text-right font-medium">Catalogued</th><th className="py-1 pl-3 text-right font-medium">Waiting</th><th className="py-1 pl-3 text-right font-medium">Refused</th></tr></thead>
             <tbody>
               {o.libraries.map((l) => (
                 <tr key={l.id} className="border-t border-line">
                   <td className="py-1.5"><Link href={`${base}/libraries/${l.id}`}>{l.name}</Link></td>
-                  <td className="num py-1.5 text-right">{l.total}</td>
-                  <td className="num py-1.5 text-right">{l.catalogued}</td>
-                  <td className="num py-1.5 text-right">{l.pending}</td>
-                  <td className="num py-1.5 text-right">{l.rejected}</td>
+                  <td className="num py-1.5 pl-3 text-right">{l.total}</td>
+                  <td className="num py-1.5 pl-3 text-right">{l.catalogued}</td>
+                  <td className="num py-1.5 pl-3 text-right">{l.pending}</td>
+                  <td className="num py-1.5 pl-3 text-right">{l.rejected}</td>
                 </tr>
               ))}
             </tbody>
-          </table>
+          </table></div>
         )}
       </section>
 

@@ -21,8 +21,8 @@ export default async function AuditsPage({ params, searchParams }: { params: Pro
   const write = can(studio.role, "studio:write");
   const layoutName = layoutId ? layouts.find((l) => l.id === layoutId)?.name : undefined;
   return (
-    <div className="grid gap-6 lg:grid-cols-[1fr_340px]">
-      <section className="card p-0">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_340px]">
+      <section className="card table-scroll p-0">
         <table className="w-full text-sm" data-testid="audits-table">
           <caption className="px-5 pt-4 text-left font-semibold">
             {layoutName ? <>Audits of “{layoutName}” <Link className="ml-2 text-xs font-normal" href={`/s/${studio.id}/audits`}>show all</Link></> : "Audits, newest first"}

@@ -17,8 +17,8 @@ export default async function LayoutsPage({ params }: { params: Promise<{ studio
   return (
     <>
     <NextStepSlot studio={studio} />
-    <div className="grid gap-6 lg:grid-cols-[1fr_340px]">
-      <section className="card p-0">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_340px]">
+      <section className="card table-scroll p-0">
         <table className="w-full text-sm" data-testid="layouts-table">
           <caption className="px-5 pt-4 text-left font-semibold">Layouts (controllers)</caption>
           <thead className="text-left text-muted"><tr><th className="px-5 py-2 font-medium">Name</th><th className="px-2 py-2 font-medium">Surface</th><th className="px-2 py-2 font-medium">Pads</th><th className="px-2 py-2 font-medium">Pedal</th><th className="px-5 py-2 font-medium">Audits</th></tr></thead>

@@ -17,7 +17,7 @@ export default async function LibrariesPage({ params }: { params: Promise<{ stud
   return (
     <>
     <NextStepSlot studio={studio} />
-    <div className="grid gap-6 lg:grid-cols-[1fr_340px]">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_340px]">
       <section className="space-y-3" data-testid="libraries">
         {libraries.length === 0 && (
           <div className="card">

@@ -15,11 +15,11 @@ export default async function MembersPage({ params }: { params: Promise<{ studio
   const manage = can(studio.role, "members:manage");
   const [members, invitations] = await Promise.all([listMembers({ studioId: studio.id }), manage ? listInvitations({ studioId: studio.id }) : Promise.resolve([])]);
   return (
-    <div className="grid gap-6 lg:grid-cols-[1fr_340px]">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_340px]">
       <section className="space-y-6">
         {!manage && <ViewOnlyNote what="roles or invite people" permission="members:manage" />}
-        <div className="card overflow-x-auto p-0">
-          <table className="w-full text-sm" data-testid="members-table">
+        <div className="card table-scroll p-0">
+          <table className="table-stack w-full text-sm" data-testid="members-table">
             <caption className="px-5 pt-4 text-left font-semibold">Members</caption>
             <thead className="text-left text-muted">
               <tr><th className="px-5 py-2 font-medium">Name</th><th className="px-2 py-2 font-medium">E-mail</th><th className="px-2 py-2 font-medium">Since</th><th className="px-5 py-2 text-right font-medium">Role</th></tr>
@@ -27,10 +27,10 @@ export default async function MembersPage({ params }: { params: Promise<{ studio
             <tbody>
               {members.map((m) => (
                 <tr key={m.userId} className="border-t border-line">
-                  <td className="px-5 py-2">{m.name}{m.userId === user.id && <span className="ml-2 text-xs text-muted">(you)</span>}</td>
-                  <td className="px-2 py-2">{m.email}</td>
-                  <td className="num px-2 py-2">{fmt(m.since)}</td>
-                  <td className="px-5 py-2 text-right">
+                  <td className="px-5 py-2 font-medium sm:font-normal">{m.name}{m.userId === user.id && <span className="ml-2 text-xs text-muted">(you)</span>}</td>
+                  <td className="break-all px-5 py-2 sm:px-2">{m.email}</td>
+                  <td className="num px-5 py-2 sm:px-2" data-label="since">{fmt(m.since)}</td>
+                  <td className="px-5 py-2 sm:text-right">
                     {manage ? <MemberControls studioId={studio.id} userId={m.userId} role={m.role} name={m.name} /> : <span className="tag border-line">{m.role}</span>}
                   </td>
                 </tr>

@@ -9,6 +9,7 @@ import { LibrarySettings } from "@/components/library/library-forms";
 import { LibraryTabs } from "@/components/library/library-tabs";
 import { ReadOnlyValue, ViewOnlyNote } from "@/components/view-only";
 import { VELOCITY_CURVE_WORDS } from "@/components/library/curve-words";
+import { Dialog } from "@/components/ui/dialog";
 
 export default async function LibraryLayout({ children, params }: { children: React.ReactNode; params: Promise<{ studioId: string; libraryId: string }> }) {
   const { studioId, libraryId } = await params;
@@ -29,18 +30,17 @@ export default async function LibraryLayout({ children, params }: { children: Re
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-start justify-between gap-3">
-        <div>
+        <div className="min-w-0">
           <p className="text-sm"><Link href={`/s/${studio.id}/libraries`}>Libraries</Link> /</p>
           <h2 className="text-xl" data-testid="library-name">{lib.name}</h2>
           {lib.description && <p className="max-w-3xl text-sm text-muted">{lib.description}</p>}
         </div>
         {can(studio.role, "studio:write") && (
-          <details className="card w-full max-w-md p-3 text-sm sm:w-auto">
-            <summary className="cursor-pointer font-medium">Library settings</summary>
-            <div className="mt-3">
+          <Dialog title="Library settings" trigger={<button type="button" className="btn-quiet">Library settings</button>}>
+            <div className="text-sm">
               <LibrarySettings studioId={studio.id} libraryId={lib.id} name={lib.name} description={lib.description} velocityCurve={lib.velocityCurve} canDelete={can(studio.role, "studio:manage")} />
             </div>
-          </details>
+          </Dialog>
         )}
         {!can(studio.role, "studio:write") && (
           <div className="card w-full max-w-md space-y-2 p-3 text-sm sm:w-auto" data-testid="library-settings-view">

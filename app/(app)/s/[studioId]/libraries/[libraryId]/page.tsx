@@ -21,7 +21,7 @@ export default async function LibraryPage({ params }: { params: Promise<{ studio
     <>
     <NextStepSlot studio={studio} />
     <div className="space-y-4">
-      <div className={write ? "grid items-start gap-4 lg:grid-cols-[1fr_1fr]" : ""}>
+      <div className={write ? "grid grid-cols-1 items-start gap-4 lg:grid-cols-2" : ""}>
         <LibraryProgress studioId={studio.id} libraryId={lib.id} initial={progress} />
         {write && <Uploader studioId={studio.id} libraryId={lib.id} />}
       </div>
