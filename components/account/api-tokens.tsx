@@ -7,6 +7,7 @@ import { useApiTokens, useCreateApiToken, useRevokeApiToken } from "../data/toke
 import { createTokenSchema, TOKEN_LIFETIMES_DAYS } from "@/lib/validation/token";
 import { ROLES, roleWithin, type Role } from "@/lib/permissions";
 import type { ApiTokenSummary } from "@/lib/api-types/tokens";
+import { Select } from "@/components/ui/select";
 
 const day = (iso: string | null) => (iso ? iso.slice(0, 10) : "");
 const when = (iso: string | null) => (iso ? iso.replace("T", " ").slice(0, 16) : "");
@@ -53,23 +54,23 @@ function CreateTokenForm({ studios }: { studios: { id: string; name: string; rol
         <Field label="Name" name="name" required maxLength={120} placeholder="e.g. nightly build" error={fields.name} />
         <div>
           <label htmlFor="token-studio" className="label">Studio</label>
-          <select id="token-studio" name="studioId" className="field" value={studioId} onChange={(e) => setStudioId(e.target.value)}>
+          <Select id="token-studio" name="studioId" className="field" value={studioId} onChange={(e) => setStudioId(e.target.value)}>
             {studios.map((s) => <option key={s.id} value={s.id}>{s.name} (you: {s.role})</option>)}
-          </select>
+          </Select>
         </div>
         <div>
           <label htmlFor="token-role" className="label">Role of the token</label>
-          <select id="token-role" name="role" className="field" key={studioId} defaultValue={roles.includes("editor") ? "editor" : roles[roles.length - 1]}>
+          <Select id="token-role" name="role" className="field" key={studioId} defaultValue={roles.includes("editor") ? "editor" : roles[roles.length - 1]}>
             {roles.map((r) => <option key={r} value={r}>{r}</option>)}
-          </select>
+          </Select>
           {fields.role && <p className="mt-1 text-xs text-bad">{fields.role}</p>}
         </div>
         <div>
           <label htmlFor="token-lifetime" className="label">Works for</label>
-          <select id="token-lifetime" name="expiresInDays" className="field" defaultValue="90">
+          <Select id="token-lifetime" name="expiresInDays" className="field" defaultValue="90">
             {TOKEN_LIFETIMES_DAYS.map((d) => <option key={d} value={d}>{d} days</option>)}
             <option value="never">until revoked</option>
-          </select>
+          </Select>
         </div>
       </div>
       <FormError error={m.error} />

@@ -53,10 +53,10 @@ export function CreateKitForm({ studioId, libraries, library }: { studioId: stri
       {template && (
         <div>
           <label className="label" htmlFor="kit-library">Take the instruments from</label>
-          <select id="kit-library" className="field" value={libraryId} onChange={(e) => setLibraryId(e.target.value)}>
+          <Select id="kit-library" className="field" value={libraryId} onChange={(e) => setLibraryId(e.target.value)}>
             {libraries.map((l) => <option key={l.id} value={l.id} disabled={l.instruments === 0}>{l.name} ({l.instruments === 0 ? "no instruments yet" : `${l.instruments} instrument${l.instruments === 1 ? "" : "s"}`})</option>)}
             <option value="">Every library of the studio</option>
-          </select>
+          </Select>
         </div>
       )}
       <button className="btn-primary" disabled={busy}>Create kit</button>

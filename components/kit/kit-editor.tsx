@@ -99,10 +99,10 @@ function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; i
       {libraries.length > 1 && (
         <div className="flex flex-wrap items-center gap-2 text-sm">
           <label htmlFor="kit-library-filter" className="font-medium">Offer instruments from</label>
-          <select id="kit-library-filter" className="field w-auto" value={libraryId} onChange={(e) => setLibraryId(e.target.value)}>
+          <Select id="kit-library-filter" className="field w-auto" value={libraryId} onChange={(e) => setLibraryId(e.target.value)}>
             {libraries.map(([id, name]) => <option key={id} value={id}>{name}</option>)}
             <option value="">every library</option>
-          </select>
+          </Select>
         </div>
       )}
       <div className="hidden grid-cols-[2rem_1fr_9rem_2fr_auto] gap-2 px-3 text-xs font-medium text-muted md:grid" aria-hidden><span>#</span><span>Slot</span><span>Expects</span><span>Instrument (family · library · samples)</span><span /></div>

@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { FormError } from "@/components/form-bits";
 import { useImportShared } from "@/components/data/layouts";
+import { Select } from "@/components/ui/select";
 
 export function ImportShared({ token, studios }: { token: string; studios: { id: string; name: string }[] }) {
   const router = useRouter();
@@ -14,9 +15,9 @@ export function ImportShared({ token, studios }: { token: string; studios: { id:
     <form className="flex flex-wrap items-end gap-2" onSubmit={(e) => { e.preventDefault(); imp.mutate({ studioId, token }, { onSuccess: (l) => router.push(`/s/${studioId}/layouts/${l.id}`) }); }}>
       <div>
         <label className="label" htmlFor="import-studio">Into the studio</label>
-        <select id="import-studio" className="field" value={studioId} onChange={(e) => setStudioId(e.target.value)}>
+        <Select id="import-studio" className="field" value={studioId} onChange={(e) => setStudioId(e.target.value)}>
           {studios.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}
-        </select>
+        </Select>
       </div>
       <button className="btn-primary" disabled={imp.isPending || imp.isSuccess}>Import into my studio</button>
       <FormError error={imp.error} />

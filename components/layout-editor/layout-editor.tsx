@@ -12,7 +12,8 @@ import { MiddleCSetting, noteName, useMiddleC } from "@/components/midi/notes";
 import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalogue/taxonomy";
 import type { HiHatPedal, Layout, LayoutSlot, Pad } from "@/lib/audit/types";
 import { PedalEditor } from "./pedal-editor";
-import { ReadOnlyValue, ViewOnlyNote } from "@/components/view-only";
+import { ViewOnlyNote } from "@/components/view-only";
+import { PadView, SharedNoteMark } from "./pad-view";
 import type { MiddleC } from "@/components/midi/note-name";
 import { PadGrid, type CellProps } from "@/components/pad-chart/pad-grid";
 import { Select } from "@/components/ui/select";
@@ -280,29 +281,5 @@ function AddSlot({ onAdd, taken }: { onAdd: (s: LayoutSlot) => void; taken: Set<
         setName("");
       }}>Add</button>
     </div>
-  );
-}
-
-/** The selected pad's settings as text, for members who may not change the layout. */
-function PadView({ pad, grid, slot, middleC, shared }: { pad: Pad; grid: boolean; slot: LayoutSlot | undefined; middleC: MiddleC; shared: boolean }) {
-  return (
-    <dl className="grid grid-cols-2 gap-3" data-testid="pad-view">
-      <div className="col-span-2"><ReadOnlyValue label="Label" testId="pad-view-label">{pad.label || "(no label)"}</ReadOnlyValue></div>
-      {!grid && <div className="col-span-2"><ReadOnlyValue label="Trigger zone">{pad.zone ?? "–"}</ReadOnlyValue></div>}
-      <ReadOnlyValue label="MIDI note"><span className="num">{pad.note}</span> · {noteName(pad.note, middleC)}{shared ? " · other pads send it too" : ""}</ReadOnlyValue>
-      <ReadOnlyValue label="Channel"><span className="num">{pad.channel}</span></ReadOnlyValue>
-      <div className="col-span-2"><ReadOnlyValue label="Plays">{pad.target ? `${slot?.name ?? pad.target.slotId}${slot ? ` (${slot.family})` : ""}: ${pad.target.articulation}` : "nothing: no target"}</ReadOnlyValue></div>
-    </dl>
-  );
-}
-
-/** Two overlapping squares: several pads send this note (drawn, so it never depends on a font having the glyph). */
-function SharedNoteMark() {
-  return (
-    <svg viewBox="0 0 12 12" className="inline h-3 w-3 align-[-1px]" fill="none" stroke="currentColor" strokeWidth="1.3" role="img" aria-label="shared note">
-      <title>Several pads send this note</title>
-      <rect x="1" y="1" width="7" height="7" rx="1" />
-      <rect x="4" y="4" width="7" height="7" rx="1" />
-    </svg>
   );
 }

@@ -8,6 +8,7 @@ import { useImportLayout, useSuggestLayout } from "@/components/data/layouts";
 import type { SuggestLayoutAnswer } from "@/lib/api-types/layouts";
 import { LAYOUT_SCHEMA } from "@/lib/audit/schema";
 import { LayoutPreview } from "./layout-preview";
+import { Select } from "@/components/ui/select";
 
 type KitChoice = { id: string; name: string; filled: number };
 
@@ -45,9 +46,9 @@ export function SuggestLayout({ studioId, kits, canSave }: { studioId: string; k
       }}>
         <div>
           <label className="label" htmlFor="suggest-kit">Kit</label>
-          <select id="suggest-kit" className="field" value={kitId} onChange={(e) => setKitId(e.target.value)}>
+          <Select id="suggest-kit" className="field" value={kitId} onChange={(e) => setKitId(e.target.value)}>
             {kits.map((k) => <option key={k.id} value={k.id}>{k.name} ({k.filled} filled slots)</option>)}
-          </select>
+          </Select>
         </div>
         <fieldset>
           <legend className="label">Controller</legend>

@@ -5,6 +5,7 @@
 import { useState } from "react";
 import { CartesianGrid, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from "recharts";
 import type { MicSeries } from "@/lib/catalogue/mic-consistency";
+import { Select } from "@/components/ui/select";
 
 export function MicOffsets({ series }: { series: MicSeries[] }) {
   const [i, setI] = useState(() => Math.max(0, series.findIndex((s) => s.takes.some((t) => Math.abs(t.offsetMs - s.medianOffsetMs) > 0.25 || t.polarity === -1))));
@@ -19,9 +20,9 @@ export function MicOffsets({ series }: { series: MicSeries[] }) {
         <h3 className="font-semibold">Microphone offsets, take by take</h3>
         <div className="min-w-0">
           <label htmlFor="mic-series" className="label">Instrument / stroke, microphone</label>
-          <select id="mic-series" className="field w-full sm:w-96" value={i} onChange={(e) => setI(Number(e.target.value))}>
+          <Select id="mic-series" className="field w-full sm:w-96" value={i} onChange={(e) => setI(Number(e.target.value))}>
             {series.map((x, j) => <option key={j} value={j}>{x.group}, {x.mic} ({x.takes.length} takes)</option>)}
-          </select>
+          </Select>
         </div>
       </div>
       <div className="h-64" role="img" aria-label={`${s.mic} against the close microphone for ${s.group}: usually ${s.medianOffsetMs.toFixed(2)} ms later; ${points.map((p) => `${p.take} ${p.offset.toFixed(2)} ms${p.polarity === -1 ? " inverted" : ""}`).join(", ")}`}>

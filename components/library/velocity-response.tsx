@@ -9,6 +9,7 @@ import type { VelocityResponseView } from "@/lib/api-types/libraries";
 import { useVelocityResponse } from "@/components/data/libraries";
 import { loadSampleAudio } from "@/components/data/samples";
 import { paths } from "@/components/data/paths";
+import { Select } from "@/components/ui/select";
 
 const CAUTION_KEY = "kw.hearing-caution.v1";
 const dB = (v: number) => `${v > 0 ? "+" : ""}${v.toFixed(1)} dB`;
@@ -122,10 +123,10 @@ export function VelocityResponse({ studioId, libraryId, initial }: { studioId: s
         <div className="flex flex-wrap items-end gap-4">
           <div>
             <label className="label" htmlFor="vr-curve">Velocity curve</label>
-            <select id="vr-curve" className="field" value={curve} onChange={(e) => setCurve(e.target.value as "dls" | "dannenberg")}>
+            <Select id="vr-curve" className="field" value={curve} onChange={(e) => setCurve(e.target.value as "dls" | "dannenberg")}>
               <option value="dls">Square law (DLS Level 1)</option>
               <option value="dannenberg">Dannenberg, with a dynamic range</option>
-            </select>
+            </Select>
           </div>
           {curve === "dannenberg" && (
             <div>
@@ -135,9 +136,9 @@ export function VelocityResponse({ studioId, libraryId, initial }: { studioId: s
           )}
           <div className="min-w-0 flex-1">
             <label className="label" htmlFor="vr-group">Instrument / stroke / mic</label>
-            <select id="vr-group" className="field w-full" value={g?.key} onChange={(e) => setKey(e.target.value)}>
+            <Select id="vr-group" className="field w-full" value={g?.key} onChange={(e) => setKey(e.target.value)}>
               {view.groups.map((x) => <option key={x.key} value={x.key}>{x.instrument} — {x.articulation}{x.mic ? ` (${x.mic})` : ""}: {x.response.layers.length} layers, off by {x.response.rmsBeforeDb.toFixed(1)} dB</option>)}
-            </select>
+            </Select>
           </div>
           <div className="flex gap-2 text-sm"><a className="btn-quiet" href={exportUrl("csv")} download>Trims as CSV</a><a className="btn-quiet" href={exportUrl("json")} download>as JSON</a></div>
         </div>

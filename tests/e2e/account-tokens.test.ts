@@ -36,7 +36,10 @@ describe("personal API tokens on the account page", () => {
     await page.waitForURL(/\/account$/);
     await expect(page.getByTestId("tokens-none").textContent()).resolves.toContain("no API tokens");
     // an editor may give a token the editor's role or less, never the owner's
-    const roles = await page.locator("#token-role option").evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value));
+    await page.locator("#token-role").click();
+    const roles = await page.getByRole("listbox").locator('[role="option"]').evaluateAll((os) => os.map((o) => o.getAttribute("data-value")));
+    await page.keyboard.press("Escape");
+    await page.getByRole("listbox").waitFor({ state: "detached" });
     expect(roles).toEqual(["editor", "viewer"]);
 
     await page.getByLabel("Name").fill("Nightly build");

@@ -3,7 +3,7 @@
 // Screenshots at 1440 and 390 px, light and dark.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { BASE, launch, screenshot, signIn } from "./browser";
+import { BASE, launch, screenshot, signIn, choose } from "./browser";
 import { db } from "@/lib/server/db";
 import { call, makeStudioWithRoles } from "../integration/helpers";
 import { addInstrument, makeLibrary } from "../integration/audit/helpers";
@@ -48,7 +48,7 @@ describe("suggest a layout in Chromium", () => {
     await page.goto(`${BASE}/s/${s.studio.id}/layouts`);
     await page.getByTestId("suggest-link").click();
     await page.waitForURL(/\/layouts\/suggest$/);
-    await page.getByLabel("Kit", { exact: true }).selectOption({ label: `Loft kit ${tag} (6 filled slots)` });
+    await choose(page.getByLabel("Kit", { exact: true }), { label: `Loft kit ${tag} (6 filled slots)` });
     await page.getByLabel("Rows").fill("3");
     await page.getByLabel("Columns").fill("5");
     await page.getByRole("button", { name: "Suggest", exact: true }).click();

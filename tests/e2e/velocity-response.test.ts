@@ -4,7 +4,7 @@
 // trims (after the hearing-safety caution) and downloads the trims as CSV. Screenshots at 1440 and 390 px.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { BASE, launch, screenshot, signIn } from "./browser";
+import { BASE, launch, screenshot, signIn, choose } from "./browser";
 import { db, closeDb } from "@/lib/server/db";
 import { createStudio, createUser } from "@/db/factories";
 import { encodeWav } from "@/lib/audio/encode";
@@ -79,7 +79,7 @@ describe("velocity response", () => {
     trims.forEach((t, i) => expect(t).toBeCloseTo(dlsTargets[i]! - measured[i]!, 0));
     await screenshot(page, "velocity-1440-light");
 
-    await page.locator("#vr-curve").selectOption("dannenberg");
+    await choose(page.locator("#vr-curve"), "dannenberg");
     await page.getByLabel("Dynamic range (dB)").fill("30");
     await expect.poll(async () => (await cells(4))[0], { timeout: 10_000 }).not.toBe(dlsTargets[0]);
 
