@@ -13,9 +13,9 @@ export function ViewOnlyNote({ what, permission = "studio:write", className = ""
 }
 
 /** A read-only value with its label, laid out like a form field's label and value. */
-export function ReadOnlyValue({ label, children, testId }: { label: string; children: ReactNode; testId?: string }) {
+export function ReadOnlyValue({ label, children, testId, className }: { label: string; children: ReactNode; testId?: string; className?: string }) {
   return (
-    <div>
+    <div className={className}>
       <dt className="label text-muted">{label}</dt>
       <dd className="text-sm" data-testid={testId}>{children}</dd>
     </div>

@@ -93,7 +93,7 @@ export function AuditAttention({ result: r, kitHref }: { result: AuditResult; ki
               </li>
             ))}
           </ul>
-          <p className="text-xs text-muted">Each is silent and counted once. Fill the slots in the kit{kitHref ? <> (<Link href={kitHref}>edit the kit</Link>)</> : null}, or leave them: a small kit plays what it has.</p>
+          <p className="text-xs text-muted">Each is silent and counted once. Fill the slots in the kit{kitHref ? <> (<Link href={kitHref} className="underline">edit the kit</Link>)</> : null}, or leave them: a small kit plays what it has.</p>
         </div>
       )}
 

@@ -8,11 +8,11 @@ import { ReadOnlyValue } from "@/components/view-only";
 export function PadView({ pad, grid, slot, middleC, shared }: { pad: Pad; grid: boolean; slot: LayoutSlot | undefined; middleC: MiddleC; shared: boolean }) {
   return (
     <dl className="grid grid-cols-2 gap-3" data-testid="pad-view">
-      <div className="col-span-2"><ReadOnlyValue label="Label" testId="pad-view-label">{pad.label || "(no label)"}</ReadOnlyValue></div>
-      {!grid && <div className="col-span-2"><ReadOnlyValue label="Trigger zone">{pad.zone ?? "–"}</ReadOnlyValue></div>}
+      <ReadOnlyValue className="col-span-2" label="Label" testId="pad-view-label">{pad.label || "(no label)"}</ReadOnlyValue>
+      {!grid && <ReadOnlyValue className="col-span-2" label="Trigger zone">{pad.zone ?? "–"}</ReadOnlyValue>}
       <ReadOnlyValue label="MIDI note"><span className="num">{pad.note}</span> · {noteName(pad.note, middleC)}{shared ? " · other pads send it too" : ""}</ReadOnlyValue>
       <ReadOnlyValue label="Channel"><span className="num">{pad.channel}</span></ReadOnlyValue>
-      <div className="col-span-2"><ReadOnlyValue label="Plays">{pad.target ? `${slot?.name ?? pad.target.slotId}${slot ? ` (${slot.family})` : ""}: ${pad.target.articulation}` : "nothing: no target"}</ReadOnlyValue></div>
+      <ReadOnlyValue className="col-span-2" label="Plays">{pad.target ? `${slot?.name ?? pad.target.slotId}${slot ? ` (${slot.family})` : ""}: ${pad.target.articulation}` : "nothing: no target"}</ReadOnlyValue>
     </dl>
   );
 }

@@ -101,7 +101,7 @@ function PedalView({ pedal, slots, middleC }: { pedal: HiHatPedal; slots: Layout
         <ReadOnlyValue label="Channel"><span className="num">{pedal.channel}</span></ReadOnlyValue>
         <ReadOnlyValue label="Closed at">{pedal.closedAt === "high" ? "high values (127 = closed)" : "low values (0 = closed)"}</ReadOnlyValue>
         <ReadOnlyValue label="Chick note">{pedal.chickNote === null ? "none" : <><span className="num">{pedal.chickNote}</span> · {noteName(pedal.chickNote, middleC)}</>}</ReadOnlyValue>
-        <div className="sm:col-span-4"><ReadOnlyValue label="Slot">{slot ? `${slot.name} (${slot.family})` : pedal.slotId}</ReadOnlyValue></div>
+        <ReadOnlyValue className="sm:col-span-4" label="Slot">{slot ? `${slot.name} (${slot.family})` : pedal.slotId}</ReadOnlyValue>
       </dl>
       <PedalZonesBar zones={pedal.zones.map((z) => ({ low: z.low, high: z.high, text: z.articulation, mark: "none" as const }))} closedAt={pedal.closedAt} />
       <ul className="space-y-1 text-sm">

@@ -38,8 +38,8 @@ export function SuggestLayout({ studioId, kits, canSave }: { studioId: string; k
   const tooMany = kind === "grid" && rows * cols > 64;
   const num = (v: string) => Math.min(64, Math.max(1, Number(v) || 1));
   return (
-    <div className="grid gap-6 lg:grid-cols-[320px_1fr]">
-      <form className="card space-y-3 self-start" onSubmit={(e) => {
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[320px_minmax(0,1fr)]">
+      <form className="card min-w-0 space-y-3 self-start" onSubmit={(e) => {
         e.preventDefault();
         const surface = kind === "grid" ? { kind, rows, cols } : { kind, zones: zones.split("\n").map((z) => z.trim()).filter(Boolean) };
         suggest.mutate({ kitId, surface, standIns });
@@ -76,7 +76,7 @@ export function SuggestLayout({ studioId, kits, canSave }: { studioId: string; k
         <FormError error={suggest.error} />
       </form>
 
-      <section className="space-y-4" aria-live="polite">
+      <section className="min-w-0 space-y-4" aria-live="polite">
         {!s ? (
           <p className="card text-sm text-muted">The suggestion appears here, with the reason for every pad.</p>
         ) : (

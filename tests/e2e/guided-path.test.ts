@@ -105,7 +105,7 @@ describe("the guided path", () => {
     await stepIs(page, "kit", 180_000);
     // the first sorted samples already make a kit possible; the rest arrive as the page refreshes itself
     const instrumentsNamed = async () => Number((await page.getByTestId("next-step").textContent())?.match(/has (\d+) instruments?/)?.[1] ?? 0);
-    await expect.poll(() => page.getByTestId("progress-status").textContent(), { timeout: 120_000, interval: 1000 }).toBe("all measured");
+    await expect.poll(() => page.getByTestId("progress-status").textContent(), { timeout: 120_000, interval: 1000 }).toBe("all catalogued");
     // the four drums of the folder (names and sound may part one more, never fewer)
     await expect.poll(instrumentsNamed, { timeout: 60_000, interval: 1000 }).toBeGreaterThanOrEqual(4);
     const found = await instrumentsNamed();
@@ -140,7 +140,7 @@ describe("the guided path", () => {
     await page.getByLabel("Kit name").fill(`Harbour kit ${tag}`);
     expect(await chosen(page.getByLabel("Kit template"))).toBe("trigger-five");
     expect(await page.getByTestId("kit-template-slots").textContent()).toBe("Kick, Snare A, Tom 1, Tom 2, Tom 3, Hi-hat, Crash 1, Ride 1.");
-    expect(await page.getByLabel("Take the instruments from").locator("option:checked").textContent()).toBe(`Harbour room ${tag} (${found} instruments)`);
+    expect(await page.getByLabel("Take the instruments from").textContent()).toContain(`Harbour room ${tag} (${found} instruments)`);
     await page.getByRole("button", { name: "Create kit" }).click();
     await page.waitForURL(/\/kits\/[0-9a-f-]{36}$/);
     const names = await page.locator('[data-testid="kit-slot"] input[id^="slot-name-"]').evaluateAll((els) => els.map((e) => (e as HTMLInputElement).value));

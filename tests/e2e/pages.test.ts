@@ -78,7 +78,7 @@ beforeAll(async () => {
   await page.getByTestId("file-input").setInputFiles(files);
   await page.getByTestId("upload-summary").waitFor({ timeout: 60_000 });
   await until(async () => (await page.getByTestId("count-catalogued").locator("dd").textContent()) === String(files.length), 120_000, "all files catalogued");
-  await until(async () => (await page.getByTestId("progress-status").textContent()) === "all measured", 60_000, "the library sorted");
+  await until(async () => (await page.getByTestId("progress-status").textContent()) === "all catalogued", 60_000, "the library sorted");
   ids.kit = (await api<{ kit: { id: string } }>(page, "POST", `${base}/kits`, { name: `Quay kit ${tag}`, template: "gm-percussion" })).kit.id;
   ids.layout = (await api<{ layout: { id: string } }>(page, "POST", `${base}/layouts`, { name: `GM map ${tag}`, template: "gm-percussion" })).layout.id;
   ids.auditA = (await api<{ audit: { id: string } }>(page, "POST", `${base}/audits`, { layoutId: ids.layout, kitId: ids.kit })).audit.id;

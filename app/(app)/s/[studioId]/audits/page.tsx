@@ -22,7 +22,8 @@ export default async function AuditsPage({ params, searchParams }: { params: Pro
   const layoutName = layoutId ? layouts.find((l) => l.id === layoutId)?.name : undefined;
   return (
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_340px]">
-      <section className="card table-scroll p-0">
+      <section className="card min-w-0 p-0">
+        <div className="table-scroll">
         <table className="w-full text-sm" data-testid="audits-table">
           <caption className="px-5 pt-4 text-left font-semibold">
             {layoutName ? <>Audits of “{layoutName}” <Link className="ml-2 text-xs font-normal" href={`/s/${studio.id}/audits`}>show all</Link></> : "Audits, newest first"}
@@ -44,6 +45,7 @@ export default async function AuditsPage({ params, searchParams }: { params: Pro
             {audits.length === 0 && <tr><td colSpan={8} className="px-5 py-4 text-muted">No audits yet.</td></tr>}
           </tbody>
         </table>
+        </div>
       </section>
       {write && (
         <aside className="card space-y-3">
