@@ -48,7 +48,7 @@ export default async function AuditsPage({ params, searchParams }: { params: Pro
         </div>
       </section>
       {write && (
-        <aside className="card space-y-3">
+        <aside className="card min-w-0 space-y-3 overflow-hidden">
           <h2>Run an audit</h2>
           <p className="text-sm text-muted">Checks every pad and pedal zone of a layout against a kit and the studio’s catalogue as it is now.</p>
           <RunAuditForm studioId={studio.id} layouts={layouts} kits={kits} layoutId={layoutId} kitId={rawKit && kits.some((k) => k.id === rawKit) ? rawKit : undefined} lastKits={lastKitByLayout(all)} />
