@@ -2,19 +2,23 @@
 // each pad with its label, note and channel, and what it aims at in the trade's words (slot, stroke). Used by the
 // suggestion and the shared-layout page.
 import type { Layout } from "@/lib/audit/types";
+import { strokeName } from "@/components/audit/words";
 
-const words = (a: string) => (a === "crash-hit" ? "crash" : a === "open-tone" ? "open tone" : a.replace(/^rim-(shot|click)$/, "rim $1"));
+type PadOf = Layout["pads"][number];
+
+function PreviewPad({ p, aim, note, standIn }: { p: PadOf; aim: string; note?: string; standIn: boolean }) {
+  return (
+    <div className={`min-h-20 rounded-md border bg-card p-2 text-xs ${standIn ? "border-dashed border-warn/60" : "border-line"}`} title={note} data-testid="suggested-pad" data-pad-id={p.id}>
+      <div className="flex justify-between gap-1"><span className="font-medium">{p.label}</span><span className="num text-muted">{p.note}{p.channel !== 10 ? ` ch${p.channel}` : ""}</span></div>
+      <div className="mt-1 text-muted">{aim}</div>
+      {standIn && <div className="mt-1 text-warn">stand-in</div>}
+    </div>
+  );
+}
 
 export function LayoutPreview({ layout, note, standIn, slotFamily }: { layout: Layout; note?: (padId: string) => string | undefined; standIn?: (padId: string) => boolean; slotFamily?: boolean }) {
   const slotName = new Map((layout.slots ?? []).map((s) => [s.id, slotFamily ? s.family : s.name] as const));
-  const aim = (p: Layout["pads"][number]) => (p.target ? `${slotName.get(p.target.slotId) ?? p.target.slotId} · ${words(p.target.articulation)}` : "not aimed");
-  const Pad = ({ p }: { p: Layout["pads"][number] }) => (
-    <div className={`min-h-20 rounded-md border bg-card p-2 text-xs ${standIn?.(p.id) ? "border-dashed border-warn/60" : "border-line"}`} title={note?.(p.id)} data-testid="suggested-pad" data-pad-id={p.id}>
-      <div className="flex justify-between gap-1"><span className="font-medium">{p.label}</span><span className="num text-muted">{p.note}{p.channel !== 10 ? ` ch${p.channel}` : ""}</span></div>
-      <div className="mt-1 text-muted">{aim(p)}</div>
-      {standIn?.(p.id) && <div className="mt-1 text-warn">stand-in</div>}
-    </div>
-  );
+  const aim = (p: PadOf) => (p.target ? `${slotName.get(p.target.slotId) ?? p.target.slotId} · ${strokeName(null, p.target.articulation)}` : "not aimed");
   const surface = layout.surface;
   if (surface.kind === "grid") {
     return (
@@ -24,7 +28,7 @@ export function LayoutPreview({ layout, note, standIn, slotFamily }: { layout: L
             const row = Math.floor(i / surface.cols) + 1;
             const col = (i % surface.cols) + 1;
             const pad = layout.pads.find((p) => p.row === row && p.col === col);
-            return pad ? <Pad key={i} p={pad} /> : <div key={i} className="min-h-20 rounded-md border border-dashed border-line p-2 text-xs text-muted">free</div>;
+            return pad ? <PreviewPad key={i} p={pad} aim={aim(pad)} note={note?.(pad.id)} standIn={!!standIn?.(pad.id)} /> : <div key={i} className="min-h-20 rounded-md border border-dashed border-line p-2 text-xs text-muted">free</div>;
           })}
         </div>
       </div>
@@ -32,7 +36,7 @@ export function LayoutPreview({ layout, note, standIn, slotFamily }: { layout: L
   }
   return (
     <ul className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3" data-testid="suggested-zones">
-      {layout.pads.map((p) => <li key={p.id}><Pad p={p} /></li>)}
+      {layout.pads.map((p) => <li key={p.id}><PreviewPad p={p} aim={aim(p)} note={note?.(p.id)} standIn={!!standIn?.(p.id)} /></li>)}
     </ul>
   );
 }

@@ -11,6 +11,7 @@
 // out of order; two neighbouring layers closer than `closeDb` (1 dB: about the smallest level step a listener
 // tells apart) are too close to tell apart; a boost above 6 dB also raises the layer's noise floor by as much.
 
+import { csvField } from "../audit/export";
 import { curveAttenuationDb, type VelocityCurve } from "./velocity";
 
 export interface ResponseLayer {
@@ -102,14 +103,6 @@ export interface ResponseGroup {
   articulation: string;
   mic: string | null;
   response: GroupResponse;
-}
-
-/** RFC 4180 field (quoted when needed; text starting like a formula is prefixed with '). */
-function csvField(v: string | number | null): string {
-  if (v === null) return "";
-  let s = String(v);
-  if (typeof v !== "number" && /^[=+\-@\t\r]/.test(s)) s = `'${s}`;
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
 function layerFlags(r: GroupResponse, index: number): string {

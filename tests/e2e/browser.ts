@@ -4,6 +4,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { chromium, type Browser, type Locator, type Page } from "playwright-core";
+import { encodeWav } from "@/lib/audio/encode";
 
 export const BASE = process.env.KW_APP_URL ?? "http://localhost:3100";
 const MAIL_DIR = process.env.KW_MAIL_FAKE_DIR ?? "";
@@ -67,4 +68,17 @@ export async function choose(control: Locator, option: string | { label: string 
 /** The value chosen in one of the app's selects ("" for none), as a native select's inputValue() gives it. */
 export async function chosen(control: Locator): Promise<string> {
   return (await control.getAttribute("data-value")) ?? "";
+}
+
+/** A damped 60 Hz kick-like tone with a click (0.5 s, 48 kHz, 16-bit) scaled by `gain`: a file to upload (invented). */
+export function kickWav(gain: number, seed: number): Uint8Array {
+  const n = 24_000;
+  const x = new Float32Array(n);
+  let s = seed;
+  for (let i = 0; i < n; i++) {
+    s = (s * 1664525 + 1013904223) >>> 0;
+    const t = i / 48_000;
+    x[i] = gain * (Math.exp(-t * 9) * Math.sin(2 * Math.PI * 60 * t) + 0.2 * Math.exp(-t * 300) * ((s / 2 ** 32) * 2 - 1));
+  }
+  return encodeWav([x], { sampleRate: 48_000, bits: 16 });
 }

@@ -4,28 +4,14 @@
 // trims (after the hearing-safety caution) and downloads the trims as CSV. Screenshots at 1440 and 390 px.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { BASE, launch, screenshot, signIn, choose } from "./browser";
+import { BASE, choose, kickWav as kick, launch, screenshot, signIn } from "./browser";
 import { db, closeDb } from "@/lib/server/db";
 import { createStudio, createUser } from "@/db/factories";
-import { encodeWav } from "@/lib/audio/encode";
 
 const tag = Math.random().toString(36).slice(2, 8);
 const owner = { email: `velocity-${tag}@example.test`, name: "Velocity Owner", password: "correct-horse-9" };
 let browser: Browser;
 let studioId: string;
-
-/** A damped 60 Hz kick-like tone with a click (0.5 s, 48 kHz, 16-bit), scaled by `gain`. */
-function kick(gain: number, seed: number): Uint8Array {
-  const n = 24_000;
-  const x = new Float32Array(n);
-  let s = seed;
-  for (let i = 0; i < n; i++) {
-    s = (s * 1664525 + 1013904223) >>> 0;
-    const t = i / 48_000;
-    x[i] = gain * (Math.exp(-t * 9) * Math.sin(2 * Math.PI * 60 * t) + 0.2 * Math.exp(-t * 300) * ((s / 2 ** 32) * 2 - 1));
-  }
-  return encodeWav([x], { sampleRate: 48_000, bits: 16 });
-}
 
 beforeAll(async () => {
   const o = await createUser(db(), owner);
