@@ -80,7 +80,7 @@ describe("kitwright catalogue and audit on a generated folder", () => {
     const r = await kitwright("audit", "--layout", "trigger-five", "--catalogue", lib, "--json");
     expect(r.code).toBe(1);
     const audit = JSON.parse(r.stdout) as { schema: string; pads: { outcome: string }[] };
-    expect(audit.schema).toBe("kitwright.audit/v2");
+    expect(audit.schema).toBe("kitwright.audit/v3");
     const outcomes = new Set(audit.pads.map((p) => p.outcome));
     expect(outcomes.has("silent")).toBe(true);
     expect(outcomes.has("direct")).toBe(true);

@@ -1,20 +1,20 @@
 // The audit's findings in a drummer's words: what a pad plays ("plays the closed hat instead — the nearest
 // recorded stroke"), why a pad is silent, conflicts by name, and the short detail for a tooltip (where the
 // closeness steps and the score's weights are named). Pure: findings in, strings out.
-import type { Articulation, Family } from "@/lib/catalogue/taxonomy";
+import type { Stroke, Family } from "@/lib/catalogue/taxonomy";
 import type { Conflict, ConflictKind, PlayFinding } from "@/lib/audit/types";
 import { playWeight, velocityCoverage } from "@/lib/audit/audit-score";
 
-const STROKE: Partial<Record<Articulation, string>> = {
+const STROKE: Partial<Record<Stroke, string>> = {
   centre: "centre hit", "half-edge": "half-edge hit", edge: "edge hit", "rim-shot": "rim shot", "rim-click": "rim click",
   buzz: "buzz roll", mute: "muted hit", "open-tone": "open tone", "crash-hit": "crash hit", pedal: "foot chick",
   "foot-splash": "foot splash",
 };
 const CYMBALS: ReadonlySet<Family> = new Set(["crash", "ride", "china", "splash", "stack"]);
-const HAT_OPENNESS: ReadonlySet<Articulation> = new Set(["closed", "quarter-open", "half-open", "open"]);
+const HAT_OPENNESS: ReadonlySet<Stroke> = new Set(["closed", "quarter-open", "half-open", "open"]);
 
 /** A stroke in words: "closed hat", "rim shot", "ride bell", "centre hit". */
-export function strokeName(family: Family | null, a: Articulation | null): string {
+export function strokeName(family: Family | null, a: Stroke | null): string {
   if (!a) return "nothing";
   if (family === "hi-hat") {
     if (HAT_OPENNESS.has(a)) return `${a} hat`;

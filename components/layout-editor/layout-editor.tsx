@@ -205,7 +205,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
                 <label className="label" htmlFor="pad-slot">Target slot</label>
                 <Select id="pad-slot" className="field" value={pad.target?.slotId ?? ""} onChange={(e) => {
                   const s = slots.find((x) => x.id === e.target.value);
-                  patchPad(pad.id, { target: s ? { slotId: s.id, articulation: pad.target && FAMILY_ARTICULATIONS[s.family].includes(pad.target.articulation) ? pad.target.articulation : FAMILY_ARTICULATIONS[s.family][0]! } : null });
+                  patchPad(pad.id, { target: s ? { slotId: s.id, articulation: pad.target && (FAMILY_ARTICULATIONS[s.family] as readonly string[]).includes(pad.target.articulation) ? pad.target.articulation : FAMILY_ARTICULATIONS[s.family][0]! } : null });
                 }}>
                   <option value="">— no target —</option>
                   {slots.map((s) => <option key={s.id} value={s.id}>{s.name} ({s.family})</option>)}

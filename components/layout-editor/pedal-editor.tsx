@@ -76,7 +76,7 @@ export function PedalEditor({ pedal, slots, canWrite, middleC, onChange }: { ped
                   <td className="pr-2"><input aria-label={`Zone ${i + 1} to`} type="number" min={0} max={127} className="field num" value={z.high} onChange={(e) => onChange({ ...pedal, zones: pedal.zones.map((x, j) => (j === i ? { ...x, high: int(e.target.value, 0, 127) } : x)) })} /></td>
                   <td className="pr-2">
                     <Select aria-label={`Zone ${i + 1} openness`} className="field" value={z.articulation} onChange={(e) => onChange({ ...pedal, zones: pedal.zones.map((x, j) => (j === i ? { ...x, articulation: e.target.value as Articulation } : x)) })}>
-                      {[...OPENNESS, ...(OPENNESS.includes(z.articulation) ? [] : [z.articulation])].map((a) => <option key={a} value={a}>{a}</option>)}
+                      {[...OPENNESS, ...((OPENNESS as readonly string[]).includes(z.articulation) ? [] : [z.articulation])].map((a) => <option key={a} value={a}>{a}</option>)}
                     </Select>
                   </td>
                   <td><button type="button" className="btn-quiet py-1" disabled={pedal.zones.length <= 1} onClick={() => onChange({ ...pedal, zones: pedal.zones.filter((_, j) => j !== i) })}>Remove</button></td>

@@ -2,10 +2,11 @@
 // the fallback graph or a slot's override, or nothing), with the layers, velocity gaps and round robins of
 // what plays, and the finding of each pad of a layout. Pure.
 
+import { isKnownStroke, type StrokeList } from "../catalogue/strokes";
 import { resolveArticulation } from "./fallback";
 import { isInt, type ConflictLog } from "./audit-conflicts";
 import type {
-  Articulation,
+  Stroke,
   Catalogue,
   CatalogueArticulation,
   CatalogueInstrument,
@@ -48,8 +49,8 @@ export function indexCatalogue(catalogue: Catalogue | ReadonlyMap<string, Catalo
   return m;
 }
 
-function recordedEntries(inst: CatalogueInstrument): Map<Articulation, CatalogueArticulation[]> {
-  const m = new Map<Articulation, CatalogueArticulation[]>();
+function recordedEntries(inst: CatalogueInstrument): Map<Stroke, CatalogueArticulation[]> {
+  const m = new Map<Stroke, CatalogueArticulation[]>();
   for (const a of inst.articulations) {
     if (!a.layers.some((l) => l.sampleIds.length > 0)) continue;
     const list = m.get(a.articulation);
@@ -85,20 +86,20 @@ function emptyPlay(partial: Partial<PlayFinding>): PlayFinding {
 export const clonePlay = (p: PlayFinding): PlayFinding => Object.assign({}, p, { notes: p.notes.slice() });
 
 /** What `slotId` plays when asked for `requested` by `askerId` (a pad id or a pedal zone, named `askerLabel`). */
-export type Play = (slotId: string, requested: Articulation, askerId: string, askerLabel: string) => PlayFinding;
+export type Play = (slotId: string, requested: Stroke, askerId: string, askerLabel: string) => PlayFinding;
 
 /**
  * The resolver of one audit: answers are cached per slot and articulation, problems of a slot go to the log
  * (once per slot, naming every asker), and so does an empty slot (a silent pad, reported once per slot). A slot holding an instrument of another family is answered by that
  * instrument's own family graph.
  */
-export function slotResolver(kit: Kit, instruments: ReadonlyMap<string, CatalogueInstrument>, log: ConflictLog): Play {
+export function slotResolver(kit: Kit, instruments: ReadonlyMap<string, CatalogueInstrument>, log: ConflictLog, strokes?: StrokeList | null): Play {
   const slots = new Map<string, KitSlot>();
   for (const s of kit.slots) if (!slots.has(s.id)) slots.set(s.id, s);
-  const recordedCache = new Map<string, Map<Articulation, CatalogueArticulation[]>>();
+  const recordedCache = new Map<string, Map<Stroke, CatalogueArticulation[]>>();
   const playCache = new Map<string, PlayFinding>();
 
-  return function play(slotId: string, requested: Articulation, askerId: string, askerLabel: string): PlayFinding {
+  return function play(slotId: string, requested: Stroke, askerId: string, askerLabel: string): PlayFinding {
     const slot = slots.get(slotId);
     if (!slot) {
       const reason = `no slot "${slotId}" in kit "${kit.name}"`;
@@ -126,11 +127,19 @@ export function slotResolver(kit: Kit, instruments: ReadonlyMap<string, Catalogu
       recordedCache.set(inst.id, rec);
     }
     const notes: string[] = [];
+    const mapped = slot.standIns !== undefined && Object.keys(slot.standIns).length > 0;
     if (inst.family !== slot.family) {
-      notes.push(`slot "${slot.name}" expects ${slot.family} and holds a ${inst.family}: the ${inst.family}'s own articulations answer`);
+      notes.push(
+        mapped
+          ? `slot "${slot.name}" expects ${slot.family} and holds a ${inst.family}: the kit's stroke map says which ${inst.family} stroke answers each ${slot.family} stroke`
+          : `slot "${slot.name}" expects ${slot.family} and holds a ${inst.family}: the ${inst.family}'s own articulations answer`,
+      );
     }
-    const r = resolveArticulation(inst.family, requested, rec.keys(), slot.standIns);
-    if (r.overrideIgnored) notes.push(`override to ${r.overrideIgnored} ignored: ${r.overrideIgnored} is not recorded`);
+    if (!isKnownStroke(requested, strokes)) notes.push(`"${requested}" is neither a built-in stroke nor one of the studio's`);
+    const r = resolveArticulation(inst.family, requested, rec.keys(), slot.standIns, strokes);
+    if (r.source === "override") notes.push(`played through the kit's stroke map: ${requested} → ${r.plays}`);
+    if (r.overrideIgnored) notes.push(`stroke map to ${r.overrideIgnored} ignored: ${r.overrideIgnored} is not recorded`);
+    if (r.edges.some((e) => e.owner === "studio")) notes.push(`the stand-in uses the studio's own edge${r.edges.filter((e) => e.owner === "studio").length > 1 ? "s" : ""} ${r.edges.filter((e) => e.owner === "studio").map((e) => `${e.from}–${e.to}`).join(", ")}`);
     const common = Object.assign({ instrumentId: inst.id, instrumentName: inst.name, family: inst.family, notes }, base);
     let f: PlayFinding;
     if (r.plays === null) {
@@ -153,7 +162,7 @@ export function slotResolver(kit: Kit, instruments: ReadonlyMap<string, Catalogu
       f = emptyPlay(Object.assign({}, common, {
         outcome: r.outcome,
         plays: r.plays,
-        standIn: r.outcome === "stand-in" ? { path: r.path, cost: r.cost, source: r.source === "override" ? "override" : "graph" } : null,
+        standIn: r.outcome === "stand-in" ? { path: r.path, cost: r.cost, source: r.source === "override" ? "override" : "graph", edges: r.edges } : null,
         mic: entry.mic ?? null,
         layers,
         velocityGaps: uncoveredRanges(

@@ -121,7 +121,7 @@ describe("audits of the earlier version (kitwright.audit/v1)", () => {
   it("read back in today's shape: empty slots grouped, the score computed again from the findings", () => {
     expect(currentAuditResult(v1)).toEqual(now);
     expect(parseAuditJson({ schema: "kitwright.audit/v1", ...v1 })).toEqual(now);
-    expect(AUDIT_SCHEMA).toBe("kitwright.audit/v2");
+    expect(AUDIT_SCHEMA).toBe("kitwright.audit/v3");
   });
 
   it("a result of today's shape is read as it is", () => {

@@ -2,18 +2,31 @@
 // reported a pad aimed at an empty slot twice (a silent pad and an "empty-slot" conflict) and took 5 points per
 // conflict off its score. Reading one: its empty-slot conflicts become `emptySlots` groups (the pads named, their
 // slot taken from the pad findings) and its score is computed again from its findings by today's formula. The
-// findings themselves are kept as they were. Pure.
+// findings themselves are kept as they were. Version 2 (kitwright.audit/v2) had no studio strokes: reading one
+// adds an empty `strokes` list and, on every stand-in, an empty `edges` list (v2 did not record which edges a
+// path used; its path is kept). Pure.
 
 import { scoreAudit, summarizeAudit } from "./audit-score";
-import type { AuditResult, Conflict, EmptySlotGroup } from "./types";
+import type { AuditResult, Conflict, EmptySlotGroup, PlayFinding } from "./types";
 
-/** The version of the audit result shape this code writes (kitwright.audit/v2). */
-export const AUDIT_RESULT_VERSION = 2;
+/** The version of the audit result shape this code writes (kitwright.audit/v3). */
+export const AUDIT_RESULT_VERSION = 3;
 
 /** True when `r` already has today's shape. */
 export function isCurrentAudit(r: unknown): boolean {
   const x = r as Partial<AuditResult> | null;
-  return !!x && Array.isArray(x.emptySlots) && x.score?.outOf === 100;
+  return !!x && Array.isArray(x.emptySlots) && x.score?.outOf === 100 && Array.isArray(x.strokes);
+}
+
+/** v2 -> v3: the studio strokes met (none were possible) and the edges of each stand-in (not recorded then). */
+function withStrokes(r: AuditResult): AuditResult {
+  const edgesOn = <T extends PlayFinding>(f: T): T => (f.standIn && !Array.isArray(f.standIn.edges) ? { ...f, standIn: { ...f.standIn, edges: [] } } : f);
+  return {
+    ...r,
+    strokes: Array.isArray(r.strokes) ? r.strokes : [],
+    pads: r.pads.map(edgesOn),
+    pedal: r.pedal ? { ...r.pedal, zones: r.pedal.zones.map(edgesOn), chick: r.pedal.chick ? edgesOn(r.pedal.chick) : null } : null,
+  };
 }
 
 /** An audit result of any version in today's shape (a copy; the input is not changed). */
@@ -23,6 +36,7 @@ export function currentAuditResult(raw: unknown): AuditResult {
     throw new Error("not an audit result: pads and conflicts are required");
   }
   if (isCurrentAudit(r)) return r;
+  if (Array.isArray(r.emptySlots) && r.score?.outOf === 100) return withStrokes(r);
   const old = r.conflicts as Array<Conflict | (Omit<Conflict, "kind"> & { kind: "empty-slot" })>;
   const findings = new Map<string, { slotId: string | null; slotName: string | null; label: string }>();
   for (const p of r.pads) findings.set(p.padId, { slotId: p.slotId, slotName: p.slotName, label: p.label });
@@ -41,11 +55,11 @@ export function currentAuditResult(raw: unknown): AuditResult {
       labels: c.padIds.map((id) => findings.get(id)?.label ?? id),
     });
   }
-  return {
+  return withStrokes({
     ...r,
     conflicts,
     emptySlots,
     summary: summarizeAudit(r.pads, r.pedal, conflicts.length),
     score: scoreAudit(r.pads, r.pedal, conflicts, emptySlots),
-  };
+  });
 }

@@ -71,9 +71,9 @@ describe("audit of the generated kit against each template (expected findings wo
       ["Kick left", "direct", "centre"], ["Kick right", "direct", "centre"], ["Hat closed", "direct", "closed"], ["Hat half-open", "stand-in", "open"], ["Hat open", "direct", "open"], ["Hat pedal", "direct", "pedal"],
     ]);
     const pad = (label: string) => r.pads.find((p) => p.label === label)!;
-    expect(pad("Snare half-edge").standIn).toEqual({ path: ["half-edge", "centre"], cost: 1, source: "graph" });
-    expect(pad("Tom 2 rim").standIn).toEqual({ path: ["rim-shot", "centre"], cost: 2, source: "graph" });
-    expect(pad("Hat half-open").standIn).toEqual({ path: ["half-open", "open"], cost: 1.5, source: "graph" });
+    expect(pad("Snare half-edge").standIn).toEqual({ path: ["half-edge", "centre"], cost: 1, source: "graph", edges: [{ from: "half-edge", to: "centre", cost: 1, owner: "built-in" }] });
+    expect(pad("Tom 2 rim").standIn).toEqual({ path: ["rim-shot", "centre"], cost: 2, source: "graph", edges: [{ from: "rim-shot", to: "centre", cost: 2, owner: "built-in" }] });
+    expect(pad("Hat half-open").standIn).toEqual({ path: ["half-open", "open"], cost: 1.5, source: "graph", edges: [{ from: "half-open", to: "open", cost: 1.5, owner: "built-in" }] });
     expect(pad("Splash").reason).toBe('slot "Splash" is empty');
     // the snare edge was recorded at 1-60 and 80-127: velocities 61-79 find no layer
     expect(pad("Snare edge").velocityGaps).toEqual([{ low: 61, high: 79 }]);
@@ -114,7 +114,7 @@ describe("audit of the generated kit against each template (expected findings wo
       ["tom3-head", "direct", "centre"], ["tom3-rim", "stand-in", "centre"], ["hat-bow", "direct", "closed"], ["hat-edge", "stand-in", "closed"],
       ["crash-edge", "direct", "crash-hit"], ["crash-bow", "stand-in", "crash-hit"], ["ride-bow", "direct", "bow"], ["ride-bell", "direct", "bell"], ["ride-edge", "stand-in", "bow"],
     ]);
-    expect(r.pads.find((p) => p.padId === "ride-edge")!.standIn).toEqual({ path: ["edge", "bow"], cost: 1.5, source: "graph" });
+    expect(r.pads.find((p) => p.padId === "ride-edge")!.standIn).toEqual({ path: ["edge", "bow"], cost: 1.5, source: "graph", edges: [{ from: "edge", to: "bow", cost: 1.5, owner: "built-in" }] });
     expect(r.pedal!.zones.map((z) => [z.low, z.high, z.requested, z.recorded, z.plays, z.standIn?.cost ?? 0])).toEqual([
       [0, 31, "open", true, "open", 0],
       [32, 63, "half-open", false, "open", 1.5],
@@ -258,8 +258,8 @@ describe("helpers", () => {
   });
   it("itemScore follows the stated formula", () => {
     expect(itemScore({ outcome: "direct", standIn: null, velocityGaps: [] })).toBe(1);
-    expect(itemScore({ outcome: "stand-in", standIn: { path: [], cost: 3, source: "graph" }, velocityGaps: [] })).toBeCloseTo(0.7, 12);
-    expect(itemScore({ outcome: "stand-in", standIn: { path: [], cost: 9, source: "graph" }, velocityGaps: [] })).toBe(0.5);
+    expect(itemScore({ outcome: "stand-in", standIn: { path: [], cost: 3, source: "graph", edges: [] }, velocityGaps: [] })).toBeCloseTo(0.7, 12);
+    expect(itemScore({ outcome: "stand-in", standIn: { path: [], cost: 9, source: "graph", edges: [] }, velocityGaps: [] })).toBe(0.5);
     expect(itemScore({ outcome: "direct", standIn: null, velocityGaps: [{ low: 1, high: 27 }] })).toBeCloseTo(100 / 127, 12);
   });
 });

@@ -7,7 +7,7 @@ import { checkNotesAndChannels, ConflictLog } from "./audit-conflicts";
 import { auditPads, indexCatalogue, slotResolver } from "./audit-pads";
 import { auditPedal } from "./audit-pedal";
 import { scoreAudit, summarizeAudit } from "./audit-score";
-import type { AuditResult, Catalogue, CatalogueInstrument, Kit, Layout } from "./types";
+import type { AuditResult, Catalogue, CatalogueInstrument, Kit, Layout, PedalFinding, PlayFinding, StrokeList, StudioStroke } from "./types";
 
 export { CONFLICT_ORDER } from "./audit-conflicts";
 export { indexCatalogue, uncoveredRanges } from "./audit-pads";
@@ -21,9 +21,11 @@ export function runAudit(
   layout: Layout,
   kit: Kit,
   catalogue: Catalogue | ReadonlyMap<string, CatalogueInstrument>,
+  opts: AuditOptions = {},
 ): AuditResult {
   const log = new ConflictLog();
-  const play = slotResolver(kit, indexCatalogue(catalogue), log);
+  const strokes = opts.strokes ?? null;
+  const play = slotResolver(kit, indexCatalogue(catalogue), log, strokes);
   const pads = auditPads(layout, play, log);
   const pedal = layout.hiHatPedal ? auditPedal(layout.hiHatPedal, play, log) : null;
   checkNotesAndChannels([...pads, ...(pedal?.chick ? [pedal.chick] : [])], log);
@@ -40,7 +42,25 @@ export function runAudit(
     score: scoreAudit(pads, pedal, conflicts, emptySlots),
     pads,
     pedal,
+    strokes: strokesMet(strokes, pads, pedal),
   };
+}
+
+export interface AuditOptions {
+  /** The studio's own strokes (lib/catalogue/strokes.ts): their edges join the fallback graphs. */
+  strokes?: StrokeList | null;
+}
+
+/** The studio strokes the findings name (asked for, played, or on a stand-in's path), in the studio's order. */
+function strokesMet(strokes: StrokeList | null, pads: readonly PlayFinding[], pedal: PedalFinding | null): StudioStroke[] {
+  if (!strokes?.length) return [];
+  const named = new Set<string>();
+  for (const f of [...pads, ...(pedal?.zones ?? []), ...(pedal?.chick ? [pedal.chick] : [])]) {
+    if (f.requested) named.add(f.requested);
+    if (f.plays) named.add(f.plays);
+    for (const a of f.standIn?.path ?? []) named.add(a);
+  }
+  return strokes.filter((s) => named.has(s.id)).map((s) => ({ ...s, families: [...s.families], words: [...s.words], neighbours: s.neighbours.map((e) => ({ ...e })) }));
 }
 
 /** True when any pad (or the pedal chick note, or a pedal zone) would play nothing. */

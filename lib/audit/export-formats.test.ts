@@ -31,10 +31,10 @@ describe("export formats", () => {
     expect(lines.length - 2).toBe(audit.conflicts.length + audit.emptySlots.length + audit.pads.length + (audit.pedal ? audit.pedal.zones.length + (audit.pedal.chick ? 1 : 0) : 0));
   });
 
-  it("JSON: kitwright.audit/v2 that reads back to the same audit", () => {
+  it("JSON: kitwright.audit/v3 that reads back to the same audit", () => {
     const text = exportFormat("json").serialize(audit) as string;
     expect(parseAuditJson(text)).toEqual(audit);
-    expect(text.startsWith('{\n  "schema": "kitwright.audit/v2"')).toBe(true);
+    expect(text.startsWith('{\n  "schema": "kitwright.audit/v3"')).toBe(true);
   });
 
   it("MIDI: a Standard MIDI File (MThd, header length 6, format 1, two tracks)", () => {

@@ -78,7 +78,7 @@ describe("CSV export (RFC 4180 quoting)", () => {
   });
 });
 
-describe("JSON export (kitwright.audit/v2)", () => {
+describe("JSON export (kitwright.audit/v3)", () => {
   it("round-trips through JSON text", () => {
     const j = auditToJson(audit);
     expect(j.schema).toBe(AUDIT_SCHEMA);

@@ -1,13 +1,13 @@
 // Exports of an audit: CSV (one row per conflict, empty slot, pad, pedal zone), JSON in the versioned schema
-// kitwright.audit/v2 (see SCHEMA.md; v1 documents are still read), and the difference between two audits of the
+// kitwright.audit/v3 (see SCHEMA.md; v1 and v2 documents are still read), and the difference between two audits of the
 // same layout.
 
 import { currentAuditResult } from "./audit-version";
 import type { AuditResult, Conflict, EmptySlotGroup, PadFinding, PedalZoneFinding, PlayFinding } from "./types";
 
-export const AUDIT_SCHEMA = "kitwright.audit/v2";
+export const AUDIT_SCHEMA = "kitwright.audit/v3";
 /** Earlier audit schemas that parseAuditJson still reads (brought to today's shape by currentAuditResult). */
-export const OLDER_AUDIT_SCHEMAS = ["kitwright.audit/v1"] as const;
+export const OLDER_AUDIT_SCHEMAS = ["kitwright.audit/v1", "kitwright.audit/v2"] as const;
 
 export const CSV_COLUMNS = [
   "kind",
@@ -90,12 +90,12 @@ export interface AuditFile extends AuditResult {
   schema: typeof AUDIT_SCHEMA;
 }
 
-/** The audit as a kitwright.audit/v2 object (plain JSON; Infinity never appears). */
+/** The audit as a kitwright.audit/v3 object (plain JSON; Infinity never appears). */
 export function auditToJson(result: AuditResult): AuditFile {
   return { schema: AUDIT_SCHEMA, ...structuredClone(result) };
 }
 
-/** Read back a kitwright.audit/v2 (or v1) object: checks the schema tag and the main fields; v1 is upgraded. */
+/** Read back a kitwright.audit/v3 (or v2, v1) object: checks the schema tag and the main fields; older ones are upgraded. */
 export function parseAuditJson(input: unknown): AuditResult {
   const data = typeof input === "string" ? JSON.parse(input) : input;
   const tag = data && typeof data === "object" ? (data as { schema?: unknown }).schema : undefined;

@@ -15,11 +15,17 @@
 // position in FAMILY_ARTICULATIONS[family], then the position in ARTICULATIONS for words outside the
 // family's list. The same order decides between equal-cost predecessors, so paths are deterministic.
 //
-// Kit overrides: a slot may name, per requested articulation, the articulation to play instead. An override
-// is used when the articulation it names is recorded; its path is [requested, played] and its cost
+// Kit overrides (a slot's stroke map): a slot may name, per requested stroke, the stroke to play instead. An
+// override is used when the stroke it names is recorded; its path is [requested, played] and its cost
 // OVERRIDE_COST. When it names something not recorded, the graph decides and the result says so.
+//
+// A studio's own strokes (lib/catalogue/strokes.ts) join the graphs of their families with the edges the studio
+// gave them (on top of the built-in edges; a studio edge between two built-ins replaces the built-in one). Every
+// stand-in names the edges its path used and whose they are (built-in or the studio's). Studio strokes come after
+// the built-ins in the tie-break order, in the order of the studio's list.
 
-import { ARTICULATIONS, FAMILY_ARTICULATIONS, type Articulation, type Family } from "../catalogue/taxonomy";
+import { ARTICULATIONS, FAMILY_ARTICULATIONS, type Articulation, type Family, type Stroke } from "../catalogue/taxonomy";
+import { studioEdges, strokeListSignature, type StrokeList } from "../catalogue/strokes";
 
 /** One edge of a family graph: two articulations and how far apart they sound (lower is closer). */
 export type ArticulationEdge = readonly [Articulation, Articulation, number];
@@ -43,6 +49,10 @@ const STICK_DRUM: ArticulationEdge[] = [
   ["buzz", "centre", 2],
   ["roll", "centre", 3],
   ["mute", "centre", 2],
+  // brushes: a brush tap is nearest a soft centre hit; a sweep is a sustained sound, nearest a roll
+  ["brush", "centre", 2],
+  ["sweep", "brush", 2],
+  ["sweep", "roll", 2.5],
 ];
 
 // Cymbals (crash, ride, china, splash, stack): every cymbal articulation is a node of every cymbal graph,
@@ -118,6 +128,12 @@ export const FAMILY_GRAPHS: Record<Family, readonly ArticulationEdge[]> = {
     ["hit", "mute", 1],
     ["bell", "hit", 1],
     ["open-tone", "mute", 2],
+    // the tip strikes the open end (bright, ringing), the shank the closed neck (dry, lower)
+    ["tip", "hit", 1],
+    ["tip", "open-tone", 1],
+    ["shank", "hit", 1],
+    ["shank", "mute", 1.5],
+    ["tip", "shank", 2],
   ],
   "hand-drum": [
     ["open-tone", "centre", 1.5],
@@ -129,6 +145,16 @@ export const FAMILY_GRAPHS: Record<Family, readonly ArticulationEdge[]> = {
     ["heel", "centre", 1.5],
     ["toe", "edge", 1.5],
     ["open-tone", "hit", 0.5],
+    // the bass stroke (palm in the middle) is the low, open sound; finger strokes are soft open tones; a rim stroke
+    // is a sharp, high click at the edge
+    ["bass", "open-tone", 2],
+    ["bass", "heel", 1.5],
+    ["bass", "centre", 1],
+    ["finger", "open-tone", 1.5],
+    ["finger", "edge", 1],
+    ["rim", "edge", 1],
+    ["rim", "slap", 2],
+    ["rim", "finger", 2],
   ],
   shaker: [["hit", "roll", 2]],
   other: [
@@ -139,78 +165,110 @@ export const FAMILY_GRAPHS: Record<Family, readonly ArticulationEdge[]> = {
   ],
 };
 
-/** A kit slot's overrides: for a requested articulation, the articulation to play instead. */
-export type StandInOverrides = Partial<Record<Articulation, Articulation>>;
+/** A kit slot's overrides (its stroke map): for a requested stroke, the stroke to play instead. */
+export type StandInOverrides = Partial<Record<Stroke, Stroke>>;
+
+/** One step of a stand-in's path: the edge it used, its cost and whose edge it is. */
+export interface StrokeEdgeUsed {
+  from: Stroke;
+  to: Stroke;
+  cost: number;
+  owner: "built-in" | "studio";
+}
 
 export interface Resolution {
-  requested: Articulation;
-  /** The articulation that plays, or null when nothing recorded is reachable. */
-  plays: Articulation | null;
+  requested: Stroke;
+  /** The stroke that plays, or null when nothing recorded is reachable. */
+  plays: Stroke | null;
   outcome: "direct" | "stand-in" | "silent";
-  /** Articulations from the requested one to the one that plays (both included); [requested] when direct. */
-  path: Articulation[];
+  /** Strokes from the requested one to the one that plays (both included); [requested] when direct. */
+  path: Stroke[];
+  /** The edges the path used, in order (empty when direct or played through the stroke map). */
+  edges: StrokeEdgeUsed[];
   cost: number;
   source: "recorded" | "graph" | "override" | "none";
-  /** Set when an override was given but could not be used (the articulation it names is not recorded). */
-  overrideIgnored?: Articulation;
+  /** Set when an override was given but could not be used (the stroke it names is not recorded). */
+  overrideIgnored?: Stroke;
 }
 
 interface Graph {
-  nodes: Articulation[]; // in tie-break order
-  rank: Map<Articulation, number>;
-  adj: Map<Articulation, Array<[Articulation, number]>>;
-  main: Articulation;
+  nodes: Stroke[]; // in tie-break order
+  rank: Map<Stroke, number>;
+  adj: Map<Stroke, Array<[Stroke, number]>>;
+  /** Whose each edge is, by the key edgeKey(a, b). */
+  owner: Map<string, "built-in" | "studio">;
+  main: Stroke;
 }
 
-const graphs = new Map<Family, Graph>();
+const graphs = new Map<string, Graph>();
+const edgeKey = (a: Stroke, b: Stroke) => (a < b ? `${a}|${b}` : `${b}|${a}`);
 
-function buildGraph(family: Family): Graph {
-  const familyList = FAMILY_ARTICULATIONS[family];
-  const nodeSet = new Set<Articulation>(familyList);
+function buildGraph(family: Family, strokes: StrokeList | null | undefined): Graph {
+  const familyList: readonly Stroke[] = FAMILY_ARTICULATIONS[family];
+  const nodeSet = new Set<Stroke>(familyList);
   const weights = new Map<string, number>();
-  for (const [a, b, w] of FAMILY_GRAPHS[family]) {
+  const owner = new Map<string, "built-in" | "studio">();
+  const add = (a: Stroke, b: Stroke, w: number, who: "built-in" | "studio") => {
     if (!(w > 0) || !Number.isFinite(w)) throw new Error(`fallback graph of ${family}: bad weight ${w} on ${a}-${b}`);
     nodeSet.add(a);
     nodeSet.add(b);
-    weights.set(a < b ? `${a}|${b}` : `${b}|${a}`, w);
-  }
-  const order = (x: Articulation) => {
+    weights.set(edgeKey(a, b), w);
+    owner.set(edgeKey(a, b), who);
+  };
+  for (const [a, b, w] of FAMILY_GRAPHS[family]) add(a, b, w, "built-in");
+  const builtInNodes = new Set(nodeSet);
+  const own = (strokes ?? []).filter((s) => s.families.includes(family)).map((s) => s.id);
+  for (const id of own) nodeSet.add(id);
+  for (const [a, b, w] of studioEdges(family, strokes, (x) => builtInNodes.has(x))) add(a, b, w, "studio");
+  const order = (x: Stroke) => {
     const i = familyList.indexOf(x);
-    return i >= 0 ? i : familyList.length + ARTICULATIONS.indexOf(x);
+    if (i >= 0) return i;
+    const j = (ARTICULATIONS as readonly string[]).indexOf(x);
+    return j >= 0 ? familyList.length + j : familyList.length + ARTICULATIONS.length + own.indexOf(x);
   };
   const nodes = [...nodeSet].sort((x, y) => order(x) - order(y));
   const rank = new Map(nodes.map((n, i) => [n, i] as const));
-  const adj = new Map<Articulation, Array<[Articulation, number]>>(nodes.map((n) => [n, []]));
+  const adj = new Map<Stroke, Array<[Stroke, number]>>(nodes.map((n) => [n, []]));
   for (const [key, w] of weights) {
-    const [a, b] = key.split("|") as [Articulation, Articulation];
+    const [a, b] = key.split("|") as [Stroke, Stroke];
     adj.get(a)!.push([b, w]);
     adj.get(b)!.push([a, w]);
   }
-  return { nodes, rank, adj, main: familyList[0] ?? nodes[0]! };
+  return { nodes, rank, adj, owner, main: familyList[0] ?? nodes[0]! };
 }
 
-function graphOf(family: Family): Graph {
-  let g = graphs.get(family);
+function graphOf(family: Family, strokes?: StrokeList | null): Graph {
+  const key = `${family}\u0000${strokeListSignature(strokes)}`;
+  let g = graphs.get(key);
   if (!g) {
-    g = buildGraph(family);
-    graphs.set(family, g);
+    if (graphs.size > 500) graphs.clear();
+    g = buildGraph(family, strokes);
+    graphs.set(key, g);
   }
   return g;
 }
 
-/** The articulations the graph of a family holds, in tie-break order. */
-export function graphNodes(family: Family): Articulation[] {
-  return [...graphOf(family).nodes];
+/** The strokes the graph of a family holds (with the studio's own), in tie-break order. */
+export function graphNodes(family: Family, strokes?: StrokeList | null): Stroke[] {
+  return [...graphOf(family, strokes).nodes];
+}
+
+/** The edges of a family's graph (with the studio's), each once, with its owner. */
+export function graphEdges(family: Family, strokes?: StrokeList | null): StrokeEdgeUsed[] {
+  const g = graphOf(family, strokes);
+  const out: StrokeEdgeUsed[] = [];
+  for (const [a, list] of g.adj) for (const [b, w] of list) if (a < b) out.push({ from: a, to: b, cost: w, owner: g.owner.get(edgeKey(a, b))! });
+  return out;
 }
 
 /** Cheapest distance from `from` to every node of the family graph, with predecessors (deterministic). */
-function dijkstra(g: Graph, from: Articulation): { dist: Map<Articulation, number>; prev: Map<Articulation, Articulation> } {
-  const dist = new Map<Articulation, number>([[from, 0]]);
-  const prev = new Map<Articulation, Articulation>();
-  const done = new Set<Articulation>();
-  // The graphs have at most ~20 nodes: a linear scan for the minimum is simplest and fast.
+function dijkstra(g: Graph, from: Stroke): { dist: Map<Stroke, number>; prev: Map<Stroke, Stroke> } {
+  const dist = new Map<Stroke, number>([[from, 0]]);
+  const prev = new Map<Stroke, Stroke>();
+  const done = new Set<Stroke>();
+  // The graphs have a few dozen nodes at most: a linear scan for the minimum is simplest and fast.
   for (;;) {
-    let u: Articulation | null = null;
+    let u: Stroke | null = null;
     let du = Infinity;
     for (const [n, d] of dist) {
       if (done.has(n)) continue;
@@ -237,51 +295,52 @@ function dijkstra(g: Graph, from: Articulation): { dist: Map<Articulation, numbe
 const cache = new Map<string, Resolution>();
 
 /**
- * Resolve a requested articulation against what one instrument of `family` has recorded.
- * Pure and deterministic; results are memoised by (family, requested, recorded set, override).
+ * Resolve a requested stroke against what one instrument of `family` has recorded, in the family's graph with
+ * the studio's own strokes and edges (`strokes`). Pure and deterministic; results are memoised by (family,
+ * requested, recorded set, override, stroke list).
  */
 export function resolveArticulation(
   family: Family,
-  requested: Articulation,
-  recorded: Iterable<Articulation>,
+  requested: Stroke,
+  recorded: Iterable<Stroke>,
   overrides?: StandInOverrides | null,
+  strokes?: StrokeList | null,
 ): Resolution {
   const rec = new Set(recorded);
   const override = overrides?.[requested];
-  const key = `${family}|${requested}|${[...rec].sort().join(",")}|${override ?? ""}`;
+  const key = `${family}|${requested}|${[...rec].sort().join(",")}|${override ?? ""}|${strokeListSignature(strokes)}`;
   const hit = cache.get(key);
   if (hit) return cloneResolution(hit);
-  const r = resolveUncached(family, requested, rec, override);
+  const r = resolveUncached(graphOf(family, strokes), requested, rec, override);
   if (cache.size > 50_000) cache.clear();
   cache.set(key, r);
   return cloneResolution(r);
 }
 
 function cloneResolution(r: Resolution): Resolution {
-  return Object.assign({}, r, { path: r.path.slice() });
+  return Object.assign({}, r, { path: r.path.slice(), edges: r.edges.map((e) => Object.assign({}, e)) });
 }
 
-function resolveUncached(family: Family, requested: Articulation, rec: Set<Articulation>, override: Articulation | undefined): Resolution {
+function resolveUncached(g: Graph, requested: Stroke, rec: Set<Stroke>, override: Stroke | undefined): Resolution {
   if (rec.has(requested)) {
-    return { requested, plays: requested, outcome: "direct", path: [requested], cost: 0, source: "recorded" };
+    return { requested, plays: requested, outcome: "direct", path: [requested], edges: [], cost: 0, source: "recorded" };
   }
   if (override !== undefined && rec.has(override)) {
-    return { requested, plays: override, outcome: "stand-in", path: [requested, override], cost: OVERRIDE_COST, source: "override" };
+    return { requested, plays: override, outcome: "stand-in", path: [requested, override], edges: [], cost: OVERRIDE_COST, source: "override" };
   }
-  const g = graphOf(family);
-  let start: Articulation = requested;
+  let start: Stroke = requested;
   let entryCost = 0;
-  const prefix: Articulation[] = [];
+  const prefix: Stroke[] = [];
   if (!g.rank.has(requested)) {
     start = g.main;
     entryCost = FOREIGN_ENTRY_COST;
     prefix.push(requested);
     if (rec.has(start)) {
-      return withOverride({ requested, plays: start, outcome: "stand-in", path: [requested, start], cost: entryCost, source: "graph" }, override);
+      return withOverride({ requested, plays: start, outcome: "stand-in", path: [requested, start], edges: [], cost: entryCost, source: "graph" }, override);
     }
   }
   const { dist, prev } = dijkstra(g, start);
-  let best: Articulation | null = null;
+  let best: Stroke | null = null;
   let bestD = Infinity;
   for (const n of g.nodes) {
     // g.nodes is in tie-break order, so the first of equal cost wins
@@ -294,20 +353,26 @@ function resolveUncached(family: Family, requested: Articulation, rec: Set<Artic
     }
   }
   if (best === null) {
-    return withOverride({ requested, plays: null, outcome: "silent", path: [], cost: Infinity, source: "none" }, override);
+    return withOverride({ requested, plays: null, outcome: "silent", path: [], edges: [], cost: Infinity, source: "none" }, override);
   }
-  const path: Articulation[] = [best];
+  const path: Stroke[] = [best];
   for (let n = best; n !== start; ) {
     n = prev.get(n)!;
     path.unshift(n);
   }
+  const edges: StrokeEdgeUsed[] = [];
+  for (let i = 1; i < path.length; i++) {
+    const a = path[i - 1]!, b = path[i]!;
+    const w = g.adj.get(a)!.find(([x]) => x === b)![1];
+    edges.push({ from: a, to: b, cost: w, owner: g.owner.get(edgeKey(a, b))! });
+  }
   return withOverride(
-    { requested, plays: best, outcome: "stand-in", path: [...prefix, ...path], cost: round6(bestD + entryCost), source: "graph" },
+    { requested, plays: best, outcome: "stand-in", path: [...prefix, ...path], edges, cost: round6(bestD + entryCost), source: "graph" },
     override,
   );
 }
 
-function withOverride(r: Resolution, override: Articulation | undefined): Resolution {
+function withOverride(r: Resolution, override: Stroke | undefined): Resolution {
   return override !== undefined ? Object.assign({}, r, { overrideIgnored: override }) : r;
 }
 

@@ -1,15 +1,23 @@
 // JSON import/export of layouts, kits and catalogues in Kitwright's own versioned schemas (see SCHEMA.md).
-//   kitwright.layout/v1    { schema, layout }
-//   kitwright.kit/v1       { schema, kit }
+//   kitwright.layout/v2    { schema, layout }       (v1 still read: built-in strokes only, no `strokes`)
+//   kitwright.kit/v2       { schema, kit }          (v1 still read)
 //   kitwright.catalogue/v1 { schema, instruments }
+// v2 documents name strokes by id, built-in or a studio's own, and carry the definitions of the studio's own
+// strokes they use (`strokes`), so another studio or the command line can read them.
 // Parsing returns the plain types of types.ts or throws SchemaError with every problem, path by path.
 
 import { z } from "zod";
-import { ARTICULATIONS, FAMILIES } from "../catalogue/taxonomy";
+import { FAMILIES } from "../catalogue/taxonomy";
+import { findStroke, isKnownStroke, strokeIdSchema, strokeListProblems, studioStrokeSchema, tidyStroke, type StrokeList, type StudioStroke } from "../catalogue/strokes";
 import type { CatalogueInstrument, Kit, Layout } from "./types";
 
-export const LAYOUT_SCHEMA = "kitwright.layout/v1";
-export const KIT_SCHEMA = "kitwright.kit/v1";
+export const LAYOUT_SCHEMA = "kitwright.layout/v2";
+export const KIT_SCHEMA = "kitwright.kit/v2";
+/** Earlier tags still read (their strokes are built-ins; they carry no `strokes`). */
+export const OLDER_LAYOUT_SCHEMAS = ["kitwright.layout/v1"] as const;
+export const OLDER_KIT_SCHEMAS = ["kitwright.kit/v1"] as const;
+export const LAYOUT_SCHEMAS = [LAYOUT_SCHEMA, ...OLDER_LAYOUT_SCHEMAS] as const;
+export const KIT_SCHEMAS = [KIT_SCHEMA, ...OLDER_KIT_SCHEMAS] as const;
 export const CATALOGUE_SCHEMA = "kitwright.catalogue/v1";
 
 export const MAX_GRID_PADS = 64;
@@ -18,7 +26,8 @@ export const MAX_ZONE_PADS = 128;
 
 const id = z.string().min(1).max(128);
 const name = z.string().min(1).max(200);
-const articulation = z.enum(ARTICULATIONS);
+const articulation = strokeIdSchema;
+const strokesField = z.array(studioStrokeSchema).max(200).optional();
 const family = z.enum(FAMILIES);
 const midi7 = z.number().int().min(0).max(127);
 const channel = z.number().int().min(1).max(16);
@@ -58,6 +67,7 @@ export const layoutBodySchema = z
     pads: z.array(padSchema).min(1).max(MAX_ZONE_PADS),
     hiHatPedal: pedalSchema.nullable().default(null),
     slots: z.array(z.object({ id, name, family })).optional(),
+    strokes: strokesField,
   })
   .superRefine((l, ctx) => {
     if (l.surface.kind === "grid") {
@@ -82,7 +92,7 @@ export const layoutBodySchema = z
     });
   });
 
-export const layoutFileSchema = z.object({ schema: z.literal(LAYOUT_SCHEMA), layout: layoutBodySchema });
+export const layoutFileSchema = z.object({ schema: z.enum(LAYOUT_SCHEMAS), layout: layoutBodySchema });
 
 export const kitBodySchema = z
   .object({
@@ -95,10 +105,11 @@ export const kitBodySchema = z
           name,
           family,
           instrumentId: id.nullable(),
-          standIns: z.partialRecord(articulation, articulation).optional(),
+          standIns: z.record(articulation, articulation).optional(),
         }),
       )
       .max(256),
+    strokes: strokesField,
   })
   .superRefine((k, ctx) => {
     const ids = new Set<string>();
@@ -108,7 +119,7 @@ export const kitBodySchema = z
     });
   });
 
-export const kitFileSchema = z.object({ schema: z.literal(KIT_SCHEMA), kit: kitBodySchema });
+export const kitFileSchema = z.object({ schema: z.enum(KIT_SCHEMAS), kit: kitBodySchema });
 
 const layerSchema = z.object({
   index: z.number().int().min(0),
@@ -158,15 +169,86 @@ function fromText(input: unknown, what: string): unknown {
   }
 }
 
-/** Parse a layout file (JSON text or parsed value) of schema kitwright.layout/v1. */
-export function parseLayoutFile(input: unknown): Layout {
-  const data = parseWith(layoutFileSchema, `${LAYOUT_SCHEMA} file`, fromText(input, `${LAYOUT_SCHEMA} file`));
-  return data.layout as Layout;
+/** Where a reader looks a stroke up: the document's own `strokes`, then the studio's (or the --strokes file). */
+export interface StrokeContext {
+  strokes?: StrokeList | null;
 }
 
-/** Parse a kit file (JSON text or parsed value) of schema kitwright.kit/v1. */
-export function parseKitFile(input: unknown): Kit {
-  return parseWith(kitFileSchema, `${KIT_SCHEMA} file`, fromText(input, `${KIT_SCHEMA} file`)).kit as Kit;
+/** Every stroke a layout names (pads and pedal zones), with where. */
+export function layoutStrokeUses(l: Pick<Layout, "pads" | "hiHatPedal">): { stroke: string; path: (string | number)[] }[] {
+  const out: { stroke: string; path: (string | number)[] }[] = [];
+  l.pads.forEach((p, i) => p.target && out.push({ stroke: p.target.articulation, path: ["pads", i, "target", "articulation"] }));
+  l.hiHatPedal?.zones.forEach((z, i) => out.push({ stroke: z.articulation, path: ["hiHatPedal", "zones", i, "articulation"] }));
+  return out;
+}
+
+/** Every stroke a kit's stroke maps name, with where. */
+export function kitStrokeUses(k: Pick<Kit, "slots">): { stroke: string; path: (string | number)[] }[] {
+  const out: { stroke: string; path: (string | number)[] }[] = [];
+  k.slots.forEach((s, i) => {
+    for (const [req, play] of Object.entries(s.standIns ?? {})) {
+      out.push({ stroke: req, path: ["slots", i, "standIns", req] });
+      if (play) out.push({ stroke: play, path: ["slots", i, "standIns", req] });
+    }
+  });
+  return out;
+}
+
+/** The strokes a document may name: its own list (checked as a list) over the context's. */
+function knownStrokes(what: string, tag: string, own: StudioStroke[] | undefined, ctx: StrokeContext): StudioStroke[] {
+  if (own?.length && tag !== LAYOUT_SCHEMA && tag !== KIT_SCHEMA) throw new SchemaError(what, [`strokes: ${tag} documents carry no strokes (use the v2 schema)`]);
+  const problems = strokeListProblems(own ?? []);
+  if (problems.length) throw new SchemaError(what, problems.map((p) => `strokes.${p.path.join(".")}: ${p.message}`));
+  const merged = [...(own ?? []).map(tidyStroke)];
+  for (const s of ctx.strokes ?? []) if (!findStroke(merged, s.id)) merged.push(s);
+  return merged;
+}
+
+function checkUses(what: string, uses: { stroke: string; path: (string | number)[] }[], known: StrokeList): void {
+  const bad = uses.filter((u) => !isKnownStroke(u.stroke, known));
+  if (bad.length) throw new SchemaError(what, bad.map((u) => `${u.path.join(".")}: no stroke "${u.stroke}" (neither built-in nor among the file's or the studio's strokes)`));
+}
+
+/**
+ * Parse a layout file (JSON text or parsed value) of schema kitwright.layout/v2 (or v1). Every stroke it names
+ * must be built-in, one of the file's own `strokes` or one of `ctx.strokes`; the layout keeps the file's own list.
+ */
+export function parseLayoutFile(input: unknown, ctx: StrokeContext = {}): Layout {
+  const what = `${LAYOUT_SCHEMA} file`;
+  const data = parseWith(layoutFileSchema, what, fromText(input, what));
+  const known = knownStrokes(what, data.schema, data.layout.strokes, ctx);
+  checkUses(what, layoutStrokeUses(data.layout as Layout), known);
+  const layout = data.layout as Layout;
+  if (layout.strokes) layout.strokes = layout.strokes.map(tidyStroke);
+  return layout;
+}
+
+/** Parse a kit file (JSON text or parsed value) of schema kitwright.kit/v2 (or v1); strokes checked as for layouts. */
+export function parseKitFile(input: unknown, ctx: StrokeContext = {}): Kit {
+  const what = `${KIT_SCHEMA} file`;
+  const data = parseWith(kitFileSchema, what, fromText(input, what));
+  const known = knownStrokes(what, data.schema, data.kit.strokes, ctx);
+  checkUses(what, kitStrokeUses(data.kit as Kit), known);
+  const kit = data.kit as Kit;
+  if (kit.strokes) kit.strokes = kit.strokes.map(tidyStroke);
+  return kit;
+}
+
+/**
+ * The studio strokes a document must carry: those it names and, through their neighbours, every studio stroke
+ * they lean on (so the file's list passes strokeListProblems on its own).
+ */
+export function strokesToCarry(named: Iterable<string>, list: StrokeList | null | undefined): StudioStroke[] {
+  if (!list?.length) return [];
+  const want = new Set<string>();
+  const queue = [...named].filter((id) => findStroke(list, id));
+  while (queue.length) {
+    const id = queue.pop()!;
+    if (want.has(id)) continue;
+    want.add(id);
+    for (const e of findStroke(list, id)?.neighbours ?? []) if (findStroke(list, e.to) && !want.has(e.to)) queue.push(e.to);
+  }
+  return list.filter((s) => want.has(s.id)).map(tidyStroke);
 }
 
 /** Parse a catalogue file (JSON text or parsed value) of schema kitwright.catalogue/v1. */
@@ -174,11 +256,17 @@ export function parseCatalogueFile(input: unknown): CatalogueInstrument[] {
   return parseWith(catalogueFileSchema, `${CATALOGUE_SCHEMA} file`, fromText(input, `${CATALOGUE_SCHEMA} file`)).instruments as CatalogueInstrument[];
 }
 
-export function layoutToFile(layout: Layout): { schema: typeof LAYOUT_SCHEMA; layout: Layout } {
-  return { schema: LAYOUT_SCHEMA, layout };
+/** A layout file; with the studio's strokes, it carries the ones the layout names (strokesToCarry). */
+export function layoutToFile(layout: Layout, strokes?: StrokeList | null): { schema: typeof LAYOUT_SCHEMA; layout: Layout } {
+  const { strokes: _own, ...rest } = layout;
+  const carry = strokesToCarry(layoutStrokeUses(layout).map((u) => u.stroke), strokes ?? layout.strokes);
+  return { schema: LAYOUT_SCHEMA, layout: carry.length ? { ...rest, strokes: carry } : rest };
 }
-export function kitToFile(kit: Kit): { schema: typeof KIT_SCHEMA; kit: Kit } {
-  return { schema: KIT_SCHEMA, kit };
+/** A kit file; with the studio's strokes, it carries the ones its stroke maps name. */
+export function kitToFile(kit: Kit, strokes?: StrokeList | null): { schema: typeof KIT_SCHEMA; kit: Kit } {
+  const { strokes: _own, ...rest } = kit;
+  const carry = strokesToCarry(kitStrokeUses(kit).map((u) => u.stroke), strokes ?? kit.strokes);
+  return { schema: KIT_SCHEMA, kit: carry.length ? { ...rest, strokes: carry } : rest };
 }
 export function catalogueToFile(instruments: readonly CatalogueInstrument[]): { schema: typeof CATALOGUE_SCHEMA; instruments: CatalogueInstrument[] } {
   return { schema: CATALOGUE_SCHEMA, instruments: [...instruments] };

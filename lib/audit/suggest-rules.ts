@@ -2,12 +2,12 @@
 // percussion key map where it names the stroke (templates.ts GM_PERCUSSION), Kitwright's EXTRA_NOTES for
 // strokes it does not name, then the first free note from 96 up. Pads that play the same stroke share a note.
 
-import { FAMILY_ARTICULATIONS, type Articulation, type Family } from "../catalogue/taxonomy";
+import { FAMILY_ARTICULATIONS, type Articulation, type Family, type Stroke } from "../catalogue/taxonomy";
 import { EXTRA_NOTES } from "./templates";
-import type { Stroke } from "./suggest";
+import type { OfferedStroke } from "./suggest";
 
 /** A stroke in a drummer's words ("rim shot", "crash"). */
-export function strokeWords(a: Articulation): string {
+export function strokeWords(a: Stroke): string {
   if (a === "crash-hit") return "crash";
   if (a === "open-tone") return "open tone";
   if (a === "rim-shot" || a === "rim-click") return a.replace("-", " ");
@@ -20,8 +20,8 @@ export function mainStrike(family: Family): Articulation {
 }
 
 /** Order of strokes within a family (its list order; strokes outside it last). */
-export function strokeRank(family: Family, a: Articulation): number {
-  const i = FAMILY_ARTICULATIONS[family].indexOf(a);
+export function strokeRank(family: Family, a: Stroke): number {
+  const i = (FAMILY_ARTICULATIONS[family] as readonly Stroke[]).indexOf(a);
   return i >= 0 ? i : 100;
 }
 
@@ -30,7 +30,7 @@ const GM_TOMS: Record<number, number[]> = {
   1: [47], 2: [50, 45], 3: [50, 47, 43], 4: [50, 48, 45, 43], 5: [50, 48, 47, 45, 43], 6: [50, 48, 47, 45, 43, 41],
 };
 
-function preferredNote(s: Stroke): number | null {
+function preferredNote(s: OfferedStroke): number | null {
   const f = s.slot.family;
   const a = s.articulation;
   const first = s.ordinal === 0;
@@ -39,16 +39,16 @@ function preferredNote(s: Stroke): number | null {
   if (f === "snare") {
     if (a === "centre") return first ? 38 : 40;
     if (!first) return null;
-    return ({ "cross-stick": 37, "rim-shot": X.snareRimShot, "half-edge": X.snareHalfEdge, edge: X.snareEdge, flam: X.snareFlam } as Partial<Record<Articulation, number>>)[a] ?? null;
+    return ({ "cross-stick": 37, "rim-shot": X.snareRimShot, "half-edge": X.snareHalfEdge, edge: X.snareEdge, flam: X.snareFlam } as Partial<Record<Stroke, number>>)[a] ?? null;
   }
   if (f === "tom") {
     if (a === "centre") return GM_TOMS[s.ofFamily]?.[s.ordinal] ?? null;
     if (a === "rim-shot") return [X.tom1Rim, X.tom2Rim, X.tom3Rim][s.ordinal] ?? null;
     return null;
   }
-  if (f === "hi-hat") return ({ closed: 42, pedal: 44, open: 46, "half-open": X.hiHatHalfOpen, shank: X.hiHatShank } as Partial<Record<Articulation, number>>)[a] ?? null;
+  if (f === "hi-hat") return ({ closed: 42, pedal: 44, open: 46, "half-open": X.hiHatHalfOpen, shank: X.hiHatShank } as Partial<Record<Stroke, number>>)[a] ?? null;
   if (f === "crash") return a === "crash-hit" ? (first ? 49 : s.ordinal === 1 ? 57 : null) : a === "bow" && first ? X.crashBow : null;
-  if (f === "ride") return first ? (({ bow: 51, bell: 53, edge: X.rideEdge } as Partial<Record<Articulation, number>>)[a] ?? null) : a === "bow" && s.ordinal === 1 ? 59 : null;
+  if (f === "ride") return first ? (({ bow: 51, bell: 53, edge: X.rideEdge } as Partial<Record<Stroke, number>>)[a] ?? null) : a === "bow" && s.ordinal === 1 ? 59 : null;
   if (f === "china" && a === "crash-hit" && first) return 52;
   if (f === "splash" && a === "crash-hit" && first) return 55;
   if (f === "cowbell" && a === "hit" && first) return 56;
@@ -56,7 +56,7 @@ function preferredNote(s: Stroke): number | null {
 }
 
 /** The note of a stroke: its preferred note when still free, else the first free note from 96 up (then 0 up). */
-export function noteFor(s: Stroke, used: ReadonlySet<number>): number {
+export function noteFor(s: OfferedStroke, used: ReadonlySet<number>): number {
   const p = preferredNote(s);
   if (p !== null && !used.has(p)) return p;
   for (let n = 96; n < 128; n++) if (!used.has(n)) return n;
@@ -65,12 +65,12 @@ export function noteFor(s: Stroke, used: ReadonlySet<number>): number {
 }
 
 /** A pad's label: the slot's name, and the stroke unless it is the main strike ("Snare A rim shot"). */
-export function padLabel(s: Stroke): string {
+export function padLabel(s: OfferedStroke): string {
   return s.articulation === mainStrike(s.slot.family) ? s.slot.name : `${s.slot.name} ${strokeWords(s.articulation)}`;
 }
 
 /** Why a stroke sits where it does, in a sentence (common practice, as the module comment says). */
-export function reasonFor(s: Stroke, rows: number, beside = true): string {
+export function reasonFor(s: OfferedStroke, rows: number, beside = true): string {
   const main = strokeWords(mainStrike(s.slot.family));
   let why: string;
   switch (s.role) {

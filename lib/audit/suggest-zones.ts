@@ -7,16 +7,16 @@
 
 import munkres from "munkres-js";
 import { parseName } from "../catalogue/names";
-import type { Articulation, Family } from "../catalogue/taxonomy";
+import type { Stroke, Family } from "../catalogue/taxonomy";
 import { resolveArticulation } from "./fallback";
 import { mainStrike, noteFor, strokeWords } from "./suggest-rules";
-import type { Placement, Stroke, Suggestion } from "./suggest";
+import type { OfferedStroke, Placement, Suggestion } from "./suggest";
 import type { Catalogue, Kit, Pad } from "./types";
 
 interface ZoneReading {
   zone: string;
   family: Family | null;
-  articulation: Articulation | null;
+  articulation: Stroke | null;
   /** The drum's number in its family (1-based), 1000+ for a floor tom, 0 when the name has none. */
   number: number;
 }
@@ -40,7 +40,7 @@ export function suggestForZones(
   zones: readonly string[],
   kit: Kit,
   catalogue: Catalogue,
-  strokes: Stroke[],
+  strokes: OfferedStroke[],
   channel: number,
 ): { pads: Pad[]; placements: Placement[]; leftOut: Suggestion["leftOut"] } {
   const readings = zones.map(readZone);
@@ -63,7 +63,7 @@ export function suggestForZones(
   const BIG = 1e6;
   const costs = drumList.map((d) => slots.map((s) => (s.slot.family === d[0]!.family ? Math.abs(rankOf.get(d)! - s.ordinal) : BIG)));
   const pairs = drumList.length && slots.length ? (munkres(costs) as [number, number][]) : [];
-  const slotOf = new Map<ZoneReading[], Stroke>();
+  const slotOf = new Map<ZoneReading[], OfferedStroke>();
   for (const [di, si] of pairs) if (costs[di]![si]! < BIG) slotOf.set(drumList[di]!, slots[si]!);
 
   const byId = new Map(catalogue.map((i) => [i.id, i] as const));
@@ -86,7 +86,7 @@ export function suggestForZones(
     const recorded = inst.articulations.map((a) => a.articulation);
     const res = resolveArticulation(inst.family, r.articulation, recorded, owner.slot.standIns);
     const key = `${owner.slot.id}|${r.articulation}`;
-    const stroke: Stroke = { ...owner, articulation: r.articulation, standInFor: res.outcome === "stand-in" ? res.plays : null };
+    const stroke: OfferedStroke = { ...owner, articulation: r.articulation, standInFor: res.outcome === "stand-in" ? res.plays : null };
     if (!notes.has(key)) notes.set(key, noteFor(stroke, new Set(notes.values())));
     let id = slug(r.zone);
     for (let n = 2; ids.has(id); n++) id = `${slug(r.zone)}-${n}`;

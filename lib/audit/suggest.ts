@@ -13,7 +13,7 @@
 // placed too, marked as a stand-in for the recording that plays instead (the fallback graph's choice).
 
 import munkres from "munkres-js";
-import type { Articulation } from "../catalogue/taxonomy";
+import type { Stroke } from "../catalogue/taxonomy";
 import { resolveArticulation } from "./fallback";
 import { orderTomsByPitch } from "./kits";
 import { mainStrike, noteFor, padLabel, reasonFor, strokeRank } from "./suggest-rules";
@@ -32,13 +32,13 @@ export interface SuggestOptions {
 }
 
 /** One stroke the suggestion places, or could not place. */
-export interface Stroke {
+export interface OfferedStroke {
   slot: KitSlot;
   instrument: CatalogueInstrument;
   /** What the pad asks the slot for. */
-  articulation: Articulation;
+  articulation: Stroke;
   /** The recording that plays when `articulation` was never recorded (a stand-in), else null. */
-  standInFor: Articulation | null;
+  standInFor: Stroke | null;
   role: Role;
   /** Lower is placed first; strokes that do not fit are dropped from the highest number down. */
   priority: number;
@@ -54,7 +54,7 @@ export type Role = "snare" | "kick" | "hat" | "tom" | "cymbal" | "second-snare" 
 export interface Placement {
   padId: string;
   slotId: string;
-  articulation: Articulation;
+  articulation: Stroke;
   standIn: boolean;
   reason: string;
 }
@@ -63,11 +63,11 @@ export interface Suggestion {
   layout: Layout;
   placements: Placement[];
   /** Strokes that did not fit, with why. */
-  leftOut: { slotId: string; articulation: Articulation; reason: string }[];
+  leftOut: { slotId: string; articulation: Stroke; reason: string }[];
 }
 
 /** The strokes a kit offers: per filled slot, every recorded articulation, main strike first. */
-export function kitStrokes(kit: Kit, catalogue: Catalogue, opts: SuggestOptions = {}): Stroke[] {
+export function kitStrokes(kit: Kit, catalogue: Catalogue, opts: SuggestOptions = {}): OfferedStroke[] {
   const byId = new Map(catalogue.map((i) => [i.id, i] as const));
   const filled = kit.slots.flatMap((slot) => {
     const instrument = slot.instrumentId ? byId.get(slot.instrumentId) : undefined;
@@ -79,7 +79,7 @@ export function kitStrokes(kit: Kit, catalogue: Catalogue, opts: SuggestOptions 
   let cymbals = 0;
   const seen = new Map<string, number>();
   const count = (f: string) => filled.filter((x) => x.slot.family === f).length;
-  const out: Stroke[] = [];
+  const out: OfferedStroke[] = [];
   for (const { slot, instrument } of filled) {
     const ordinal = slot.family === "tom" ? (tomOrder.get(slot.id) ?? 0) : (seen.get(slot.family) ?? 0);
     seen.set(slot.family, (seen.get(slot.family) ?? 0) + 1);
@@ -87,7 +87,7 @@ export function kitStrokes(kit: Kit, catalogue: Catalogue, opts: SuggestOptions 
       (a, b) => strokeRank(slot.family, a) - strokeRank(slot.family, b),
     );
     const main = mainStrike(slot.family);
-    const strokes: { articulation: Articulation; standInFor: Articulation | null }[] = recorded.map((a) => ({ articulation: a, standInFor: null }));
+    const strokes: { articulation: Stroke; standInFor: Stroke | null }[] = recorded.map((a) => ({ articulation: a, standInFor: null }));
     if (!recorded.includes(main) && opts.standIns) {
       const r = resolveArticulation(instrument.family, main, recorded, slot.standIns);
       if (r.plays) strokes.unshift({ articulation: main, standInFor: r.plays });
@@ -133,7 +133,7 @@ function assign(costs: number[][]): number[] {
 }
 
 /** Where each main strike wants to be on a rows x cols grid (row 1 is the top), given the snare's cell. */
-function mainTargetCost(s: Stroke, cell: Cell, g: { rows: number; cols: number; snare: Cell; tomRank: number; tomCount: number }): number {
+function mainTargetCost(s: OfferedStroke, cell: Cell, g: { rows: number; cols: number; snare: Cell; tomRank: number; tomCount: number }): number {
   const { rows, cols, snare } = g;
   switch (s.role) {
     case "snare":
@@ -165,7 +165,7 @@ function mainTargetCost(s: Stroke, cell: Cell, g: { rows: number; cols: number; 
   }
 }
 
-function suggestForGrid(rows: number, cols: number, strokes: Stroke[], opts: SuggestOptions): { pads: Pad[]; placements: Placement[]; leftOut: Suggestion["leftOut"] } {
+function suggestForGrid(rows: number, cols: number, strokes: OfferedStroke[], opts: SuggestOptions): { pads: Pad[]; placements: Placement[]; leftOut: Suggestion["leftOut"] } {
   const cells: Cell[] = [];
   for (let r = 1; r <= rows; r++) for (let c = 1; c <= cols; c++) cells.push({ row: r, col: c });
   const sorted = [...strokes].sort((a, b) => a.priority - b.priority);
@@ -182,7 +182,7 @@ function suggestForGrid(rows: number, cols: number, strokes: Stroke[], opts: Sug
   const toms = mains.filter((s) => s.role === "tom");
   const tomRank = new Map(toms.map((t, i) => [t, i] as const));
   const costs1 = mains.map((s) => cells.map((cell) => mainTargetCost(s, cell, { rows, cols, snare, tomRank: tomRank.get(s) ?? 0, tomCount: toms.length })));
-  const at = new Map<Stroke, Cell>();
+  const at = new Map<OfferedStroke, Cell>();
   assign(costs1).forEach((ci, i) => at.set(mains[i]!, cells[ci]!));
   // toms high to low from left to right, whatever cells the round gave them
   const tomCells = toms.map((t) => at.get(t)!).sort((a, b) => a.col - b.col || a.row - b.row);
@@ -190,7 +190,7 @@ function suggestForGrid(rows: number, cols: number, strokes: Stroke[], opts: Sug
   // round two: secondary strokes next to their own main strike, in the cells left
   const used = new Set([...at.values()].map((c) => `${c.row}:${c.col}`));
   const free = cells.filter((c) => !used.has(`${c.row}:${c.col}`));
-  const mainOf = (s: Stroke) => mains.find((m) => m.slot.id === s.slot.id && m.copy === 0);
+  const mainOf = (s: OfferedStroke) => mains.find((m) => m.slot.id === s.slot.id && m.copy === 0);
   const anchors = seconds.map((s) => {
     const m = mainOf(s);
     // the open hat and the pedal sit beside the right-hand copy of the closed hat
@@ -198,7 +198,7 @@ function suggestForGrid(rows: number, cols: number, strokes: Stroke[], opts: Sug
     return hatRight ? at.get(hatRight)! : m ? at.get(m)! : snare;
   });
   const costs2 = seconds.map((s, i) => free.map((cell) => dist(cell, anchors[i]!, 1.5) * (10 - s.priority)));
-  const far = new Set<Stroke>();
+  const far = new Set<OfferedStroke>();
   assign(costs2).forEach((ci, i) => {
     if (ci < 0) return;
     at.set(seconds[i]!, free[ci]!);
@@ -210,7 +210,7 @@ function suggestForGrid(rows: number, cols: number, strokes: Stroke[], opts: Sug
   if (kick && left.length) {
     const target = { row: rows, col: snare.col - 1 };
     const cell = left.reduce((b, c) => (dist(c, target) < dist(b, target) ? c : b));
-    const copy: Stroke = { ...kick, copy: 1 };
+    const copy: OfferedStroke = { ...kick, copy: 1 };
     fit.push(copy);
     at.set(copy, cell);
   }
@@ -233,7 +233,7 @@ function suggestForGrid(rows: number, cols: number, strokes: Stroke[], opts: Sug
 }
 
 /** The hi-hat pedal for the kit's hi-hat: its recorded openness strokes spread over the controller, and its chick. */
-export function suggestPedal(strokes: Stroke[], pads: Pad[], channel: number): HiHatPedal | null {
+export function suggestPedal(strokes: OfferedStroke[], pads: Pad[], channel: number): HiHatPedal | null {
   const hat = strokes.find((s) => s.slot.family === "hi-hat");
   if (!hat) return null;
   const recorded = new Set(hat.instrument.articulations.map((a) => a.articulation));

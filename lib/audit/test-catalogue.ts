@@ -1,8 +1,8 @@
 // A generated catalogue for the audit tests (invented data: a scenario of our own, not a measurement).
-import type { Articulation, CatalogueArticulation, CatalogueInstrument, Family } from "./types";
+import type { CatalogueArticulation, CatalogueInstrument, Family, Stroke } from "./types";
 
 /** Layers splitting 1-127 evenly, each with `rr` round robins. */
-export function evenLayers(instrumentId: string, articulation: Articulation, count: number, rr: number): CatalogueArticulation {
+export function evenLayers(instrumentId: string, articulation: Stroke, count: number, rr: number): CatalogueArticulation {
   const layers = [];
   for (let i = 0; i < count; i++) {
     const low = Math.floor((i * 127) / count) + 1;
@@ -22,7 +22,7 @@ export function instrument(
   id: string,
   name: string,
   family: Family,
-  arts: Array<[Articulation, number, number]>,
+  arts: Array<[Stroke, number, number]>,
   pitchHz: number | null = null,
 ): CatalogueInstrument {
   return { id, name, family, pitchHz, articulations: arts.map(([a, n, rr]) => evenLayers(id, a, n, rr)) };

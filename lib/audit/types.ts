@@ -1,17 +1,18 @@
 // The data the auditor reads (layouts, kits, the catalogue) and the findings it writes.
 // Plain objects only; the JSON schemas in schema.ts describe the same shapes for import/export.
 
-import type { Articulation, Family } from "../catalogue/taxonomy";
-import type { StandInOverrides } from "./fallback";
+import type { Articulation, Family, Stroke } from "../catalogue/taxonomy";
+import type { StudioStroke, StrokeList } from "../catalogue/strokes";
+import type { StandInOverrides, StrokeEdgeUsed } from "./fallback";
 
-export type { Articulation, Family, StandInOverrides };
+export type { Articulation, Family, StandInOverrides, Stroke, StudioStroke, StrokeList, StrokeEdgeUsed };
 
 // ---------------------------------------------------------------- layout
 
 /** What a pad plays: a kit slot and an articulation of the instrument in it. */
 export interface PadTarget {
   slotId: string;
-  articulation: Articulation;
+  articulation: Stroke;
 }
 
 export interface Pad {
@@ -36,7 +37,7 @@ export type LayoutSurface = { kind: "grid"; rows: number; cols: number } | { kin
 export interface PedalZone {
   low: number;
   high: number;
-  articulation: Articulation;
+  articulation: Stroke;
 }
 
 export interface HiHatPedal {
@@ -67,6 +68,8 @@ export interface Layout {
   hiHatPedal: HiHatPedal | null;
   /** The slots the pads aim at, in kit order; optional (inferred from slot ids when absent). */
   slots?: LayoutSlot[];
+  /** Files only (kitwright.layout/v2): the studio's own strokes the layout aims at, so another studio can read it. */
+  strokes?: StudioStroke[];
 }
 
 // ---------------------------------------------------------------- kit
@@ -86,6 +89,8 @@ export interface Kit {
   id: string;
   name: string;
   slots: KitSlot[];
+  /** Files only (kitwright.kit/v2): the studio's own strokes its stroke maps name. */
+  strokes?: StudioStroke[];
 }
 
 // ---------------------------------------------------------------- catalogue
@@ -100,7 +105,7 @@ export interface CatalogueLayer {
 }
 
 export interface CatalogueArticulation {
-  articulation: Articulation;
+  articulation: Stroke;
   mic?: string | null;
   layers: CatalogueLayer[];
 }
@@ -134,16 +139,19 @@ export interface VelocityRange {
 }
 
 export interface StandInFinding {
-  path: Articulation[];
+  path: Stroke[];
   cost: number;
+  /** "override": played through the kit's stroke map for the slot; "graph": the nearest recorded stroke. */
   source: "graph" | "override";
+  /** The graph edges the path used, each with its owner (built-in or the studio's); empty for the stroke map. */
+  edges: StrokeEdgeUsed[];
 }
 
 /** What one request (a pad, a pedal zone, the chick note) will play. */
 export interface PlayFinding {
   outcome: Outcome;
-  requested: Articulation | null;
-  plays: Articulation | null;
+  requested: Stroke | null;
+  plays: Stroke | null;
   standIn: StandInFinding | null;
   /** Why nothing plays (silent only). */
   reason: string | null;
@@ -267,4 +275,6 @@ export interface AuditResult {
   score: AuditScore;
   pads: PadFinding[];
   pedal: PedalFinding | null;
+  /** The studio's own strokes the audit met (asked for, played, or on a path), as defined when it ran. */
+  strokes: StudioStroke[];
 }

@@ -14,7 +14,8 @@ import type { SoundModel } from "./sound-model";
 import { groupInstruments, instrumentDisplayName, splitByPitch, type Instrument } from "./instruments";
 import { sortLayers, type Layer, type LayerOptions } from "./layers";
 import { parseNames, type MicPosition, type NameInfo } from "./names";
-import type { Articulation, Family } from "./taxonomy";
+import type { StrokeList } from "./strokes";
+import type { Stroke, Family } from "./taxonomy";
 import { DLS, type VelocityCurve } from "./velocity";
 
 export type LabelSource = "name" | "sound" | "person";
@@ -40,7 +41,7 @@ export interface CatalogueSampleInput {
   sha256?: string;
   measurement: Measurement;
   /** Labels a member confirmed; they win over names and sound. */
-  confirmed?: { family?: Family; articulation?: Articulation; mic?: MicPosition | null; instrumentKey?: string };
+  confirmed?: { family?: Family; articulation?: Stroke; mic?: MicPosition | null; instrumentKey?: string };
 }
 
 export interface CatalogueOptions {
@@ -52,6 +53,8 @@ export interface CatalogueOptions {
   soundModel?: SoundModel | null;
   layers?: Omit<LayerOptions, "curve">;
   health?: HealthOptions;
+  /** The studio's own strokes (strokes.ts): the name reader sorts files into them. */
+  strokes?: StrokeList | null;
 }
 
 export interface CatalogueEntry {
@@ -59,7 +62,7 @@ export interface CatalogueEntry {
   path: string;
   family: Family;
   familySource: LabelSource;
-  articulation: Articulation;
+  articulation: Stroke;
   articulationSource: LabelSource;
   /** Confidence of the family label, 0..1 (1 for a person's label). */
   confidence: number;
@@ -86,7 +89,7 @@ export interface CatalogueEntry {
 export interface LayerGroup {
   key: string;
   instrumentKey: string;
-  articulation: Articulation;
+  articulation: Stroke;
   mic: MicPosition | null;
   label: string;
   countFrom: "names" | "gaps" | "single";
@@ -108,7 +111,7 @@ export interface Catalogue {
   curve: VelocityCurve;
 }
 
-export function groupKeyOf(instrumentKey: string, articulation: Articulation, mic: MicPosition | null): string {
+export function groupKeyOf(instrumentKey: string, articulation: Stroke, mic: MicPosition | null): string {
   return `${instrumentKey}|${articulation}|${mic ?? "-"}`;
 }
 
@@ -133,7 +136,7 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
     mic: MicPosition | null;
   }
   // names are read together: a counter in a name is a round robin only when its folder shows a series
-  const names = parseNames(sorted.map((s) => s.path));
+  const names = parseNames(sorted.map((s) => s.path), opts.strokes);
   const work: Work[] = sorted.map((s, i) => {
     const n = names[i]!;
     const snd = suggestFromSound(s.measurement, opts.labelModel, {
@@ -163,7 +166,7 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
       confidence = snd.confidence;
       reasons.push(...snd.reasons);
     }
-    let articulation: Articulation;
+    let articulation: Stroke;
     let articulationSource: LabelSource;
     if (s.confirmed?.articulation) {
       articulation = s.confirmed.articulation;
@@ -299,7 +302,7 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
 function splitInstrumentsBySound(
   instruments: SoundInstrument[],
   bySample: Record<string, string>,
-  work: { s: CatalogueSampleInput; n: NameInfo; articulation: Articulation; articulationSource: LabelSource; mic: MicPosition | null }[],
+  work: { s: CatalogueSampleInput; n: NameInfo; articulation: Stroke; articulationSource: LabelSource; mic: MicPosition | null }[],
 ): SoundInstrument[] {
   const movable = new Map<string, IdentityMember[]>();
   for (const w of work) {

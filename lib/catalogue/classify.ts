@@ -24,7 +24,7 @@ import { decaySec, distance, featureVector, fitStandardiser, standardise, type S
 import { soundFeatures } from "./sound-features";
 import { predictSound, type SoundModel } from "./sound-model";
 import { trainedSoundModel } from "./sound-model-file";
-import { FAMILY_ARTICULATIONS, type Articulation, type Family } from "./taxonomy";
+import { FAMILY_ARTICULATIONS, type Articulation, type Family, type Stroke } from "./taxonomy";
 
 export interface SoundSuggestion {
   family: Family;
@@ -435,7 +435,7 @@ export function grossMisfits(m: Measurement, family: Family): string[] {
 }
 
 export function nameSoundConflict(
-  name: { family: Family | null; articulation?: Articulation | null },
+  name: { family: Family | null; articulation?: Stroke | null },
   sound: Pick<SoundSuggestion, "family" | "articulation" | "confidence" | "reasons"> & { familyScores?: Partial<Record<Family, number>> },
   opts: { minConfidence?: number; measurement?: Measurement } = {},
 ): NameSoundConflict {

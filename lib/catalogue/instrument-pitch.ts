@@ -16,10 +16,10 @@
 // Why the median: a hit where the finder locked onto an overtone moves it only when half the hits are wrong.
 
 import { median } from "simple-statistics";
-import { FAMILY_ARTICULATIONS, type Articulation, type Family } from "./taxonomy";
+import { FAMILY_ARTICULATIONS, type Articulation, type Family, type Stroke } from "./taxonomy";
 
 export interface PitchedHit {
-  articulation: Articulation;
+  articulation: Stroke;
   pitchHz: number | null | undefined;
 }
 

@@ -16,7 +16,8 @@
 // round-robin word elsewhere in the path (a folder "Round Robins", "RR", "alternates", "variations") makes the
 // counter the round robin on its own.
 
-import type { Articulation, Family } from "./taxonomy";
+import type { Articulation, Family, Stroke } from "./taxonomy";
+import { studioStrokeInTokens, type StrokeList } from "./strokes";
 
 export const MIC_POSITIONS = [
   "close", "top", "bottom", "inside", "outside", "shell", "sub", "overhead", "room", "far", "ambient", "mono", "stereo", "mix",
@@ -41,7 +42,8 @@ export interface NameInfo {
   family: Family | null;
   /** Where the family came from: the file name or a folder. */
   familyFrom: "file" | "folder" | null;
-  articulation: Articulation | null;
+  /** A built-in articulation, or a studio's own stroke whose words the name uses (studio words win). */
+  articulation: Stroke | null;
   articulationFrom: "file" | "folder" | null;
   /** Descriptive words naming the instrument (canonical family words, sizes, materials, drum numbers), in order, unique. */
   stem: string[];
@@ -242,6 +244,11 @@ art("open", ["open", "op", "opn", "opened", "wide"]);
 art("foot-splash", ["footsplash", "splashfoot", "fsplash"]);
 art("pedal", ["pedal", "foot", "chick", "ped", "pdl", "pedl", "chic"]);
 art("hit", ["hit", "hits", "shot", "oneshot", "strike", "normal", "norm", "std"]);
+// hand drums: the bass stroke (palm in the middle), finger strokes, and strokes on the rim (fitArticulation
+// turns a "rim" on a hand drum into its rim stroke); brushes on a snare or tom: a tap and a sweep (common practice)
+art("finger", ["finger", "fingers", "fingertip", "fingertips"]);
+art("brush", ["brush", "brushes", "brushed", "brsh"]);
+art("sweep", ["sweep", "sweeps", "swish", "stir", "swirl"]);
 
 const ARTICULATION_BIGRAMS: Record<string, Articulation> = {
   "half edge": "half-edge",
@@ -262,6 +269,10 @@ const ARTICULATION_BIGRAMS: Record<string, Articulation> = {
   "open tone": "open-tone",
   "press roll": "buzz",
   "buzz roll": "buzz",
+  "bass tone": "bass",
+  "bass stroke": "bass",
+  "brush tap": "brush",
+  "brush sweep": "sweep",
 };
 
 const MIC_WORDS: Record<string, MicPosition> = {};
@@ -589,13 +600,14 @@ function fitArticulation(a: Articulation | null, family: Family | null, laterFam
   if (family === "hi-hat" && a === "edge") return "shank";
   if ((family === "crash" || family === "china" || family === "splash") && a === "hit") return "crash-hit";
   if (family === "ride" && a === "hit") return "bow";
+  if (family === "hand-drum" && (a === "rim-shot" || a === "rim-click")) return "rim";
   if (family === "cowbell" && a === "open") return "open-tone";
   if (family === "cowbell" && (a === "closed" || a === "choke")) return "mute";
   return a;
 }
 
 /** Parses a sample path ("Kit/Snare 14x6.5/Center/Snare_Center_v3_rr2.wav") into its name information. */
-export function parseName(path: string): NameInfo {
+export function parseName(path: string, strokes?: StrokeList | null): NameInfo {
   const parts = path.split(/[\\/]+/).filter((s) => s.length > 0 && s !== ".");
   const fileName = (parts.pop() ?? "").replace(/\.(wav|wave|bwf|aif|aiff|flac)$/i, "");
   const { tokens, glued } = tokeniseGlued(fileName);
@@ -619,7 +631,7 @@ export function parseName(path: string): NameInfo {
     if (family) familyFrom = "folder";
   }
 
-  let articulation: Articulation | null = file.articulation ?? file.familyArticulation;
+  let articulation: Stroke | null = file.articulation ?? file.familyArticulation;
   let articulationFrom: NameInfo["articulationFrom"] = articulation ? "file" : null;
   const laterFamilies = [...file.laterFamilies];
   if (!articulation) {
@@ -629,8 +641,14 @@ export function parseName(path: string): NameInfo {
     }
     if (articulation) articulationFrom = "folder";
   }
-  articulation = fitArticulation(articulation, family, laterFamilies);
+  articulation = fitArticulation(articulation as Articulation | null, family, laterFamilies);
   if (articulation && !articulationFrom) articulationFrom = "file";
+  // "bass" on a hand drum is its bass stroke, not a bass drum ("conga bass", "bass djembe")
+  const bassStroke = family === "hand-drum" && (tokens.includes("bass") || folderTokens.some((ts) => ts.includes("bass")));
+  if (bassStroke && (!articulation || articulationFrom === "folder" && tokens.includes("bass"))) {
+    articulation = "bass";
+    articulationFrom = tokens.includes("bass") ? "file" : "folder";
+  }
   // a ghost note on a drum (said by the name or a folder) is a soft stroke at its centre
   const ghost = file.ghost || folders.some((f) => f.ghost);
   if (!articulation && ghost && (family === "snare" || family === "tom" || family === "kick")) {
@@ -659,6 +677,25 @@ export function parseName(path: string): NameInfo {
   // name an articulation, a layer or a mic add nothing.
   const stem: string[] = [];
   for (const f of [...folders, file]) for (const w of f.stem) if (!stem.includes(w)) stem.push(w);
+  if (bassStroke) stem.splice(0, stem.length, ...stem.filter((w) => w !== "kick"));
+  // a studio's own stroke named in the file (else the innermost folder) wins over the built-in words, and its
+  // words say the stroke, not the instrument
+  if (strokes?.length) {
+    const levels = [tokens, ...folderTokens.slice().reverse()];
+    for (let k = 0; k < levels.length; k++) {
+      const hit = studioStrokeInTokens(levels[k]!, strokes, family);
+      if (!hit) continue;
+      articulation = hit.stroke.id;
+      articulationFrom = k === 0 ? "file" : "folder";
+      if (!family && hit.stroke.families.length === 1) {
+        family = hit.stroke.families[0]!;
+        familyFrom = k === 0 ? "file" : "folder";
+      }
+      const used = new Set(hit.at.map((i) => levels[k]![i]!));
+      stem.splice(0, stem.length, ...stem.filter((w) => !used.has(w)));
+      break;
+    }
+  }
   // "22in" says nothing more when a size "22x18" is already there
   for (let i = stem.length - 1; i >= 0; i--) {
     const inch = /^(\d+(?:\.\d+)?)in$/.exec(stem[i]!);
@@ -683,8 +720,8 @@ export function isRoundRobinSeries(values: readonly number[]): boolean {
  * counters (take numbers, ids such as s139) are kept as round robins only where the folder shows a series: files
  * of one folder whose names differ only by the counter (see the top comment).
  */
-export function parseNames(paths: readonly string[]): NameInfo[] {
-  const infos = paths.map(parseName);
+export function parseNames(paths: readonly string[], strokes?: StrokeList | null): NameInfo[] {
+  const infos = paths.map((p) => parseName(p, strokes));
   const groups = new Map<string, number[]>();
   infos.forEach((n, i) => {
     const c = n.counter;

@@ -2,15 +2,18 @@
 // Bodies are strict (unknown fields are refused with 422); the document shapes follow lib/audit/schema.ts
 // (kitwright.kit/v1, kitwright.layout/v1), whose own refinements (grid cells, duplicate ids) run on top.
 import { z } from "zod";
-import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
-import { KIT_SCHEMA, LAYOUT_SCHEMA, kitBodySchema, layoutBodySchema, MAX_GRID_PADS, MAX_ZONE_PADS, padSchema as auditPadSchema } from "@/lib/audit/schema";
+import { FAMILIES } from "@/lib/catalogue/taxonomy";
+import { strokeIdSchema, studioStrokeSchema } from "@/lib/catalogue/strokes";
+import { KIT_SCHEMAS, LAYOUT_SCHEMAS, kitBodySchema, layoutBodySchema, MAX_GRID_PADS, MAX_ZONE_PADS, padSchema as auditPadSchema } from "@/lib/audit/schema";
 import { TEMPLATE_NAMES } from "@/lib/audit/templates";
 import { EXPORT_FORMAT_IDS } from "@/lib/audit/export-formats";
 import { idParam } from "./studio";
 
 const name = z.string().trim().min(1, "Give it a name.").max(160);
 const sid = z.string().min(1).max(128);
-const articulation = z.enum(ARTICULATIONS);
+/** A stroke id (built-in or the studio's own; the server checks it names one the studio knows). */
+const articulation = strokeIdSchema;
+const carriedStrokes = z.array(studioStrokeSchema).max(200).optional();
 const family = z.enum(FAMILIES);
 const midi7 = z.number().int().min(0).max(127);
 const channel = z.number().int().min(1).max(16);
@@ -28,12 +31,12 @@ export const kitSlotSchema = z.strictObject({
   name: z.string().trim().min(1, "Name the slot.").max(200),
   family,
   instrumentId: sid.nullable(),
-  standIns: z.partialRecord(articulation, articulation).optional(),
+  standIns: z.record(articulation, articulation).optional(),
 });
 export const kitSlotsSchema = z.array(kitSlotSchema).max(256);
 
-export const kitDocSchema = z.strictObject({ id: sid, name: z.string().min(1).max(200), slots: kitSlotsSchema }).superRefine(alsoCheck(kitBodySchema));
-export const kitFileStrictSchema = z.strictObject({ schema: z.literal(KIT_SCHEMA), kit: kitDocSchema });
+export const kitDocSchema = z.strictObject({ id: sid, name: z.string().min(1).max(200), slots: kitSlotsSchema, strokes: carriedStrokes }).superRefine(alsoCheck(kitBodySchema));
+export const kitFileStrictSchema = z.strictObject({ schema: z.enum(KIT_SCHEMAS), kit: kitDocSchema });
 
 export const createKitSchema = z
   .strictObject({
@@ -77,8 +80,8 @@ const layoutFields = {
   hiHatPedal: pedalSchema.nullable(),
   slots: z.array(z.strictObject({ id: sid, name: z.string().min(1).max(200), family })).optional(),
 };
-export const layoutDocSchema = z.strictObject({ id: sid, ...layoutFields }).superRefine(alsoCheck(layoutBodySchema));
-export const layoutFileStrictSchema = z.strictObject({ schema: z.literal(LAYOUT_SCHEMA), layout: layoutDocSchema });
+export const layoutDocSchema = z.strictObject({ id: sid, ...layoutFields, strokes: carriedStrokes }).superRefine(alsoCheck(layoutBodySchema));
+export const layoutFileStrictSchema = z.strictObject({ schema: z.enum(LAYOUT_SCHEMAS), layout: layoutDocSchema });
 /** The editor saves the whole layout (the server keeps the row id). */
 export const layoutContentSchema = z.strictObject(layoutFields).superRefine((v, ctx) => alsoCheck(layoutBodySchema)({ id: "x", ...v }, ctx));
 

@@ -1,6 +1,7 @@
 // Shared zod schemas for libraries, samples, instruments (used by the API routes and the forms).
 import { z } from "zod";
-import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
+import { FAMILIES } from "@/lib/catalogue/taxonomy";
+import { strokeIdSchema } from "@/lib/catalogue/strokes";
 import { MIC_POSITIONS } from "@/lib/catalogue/names";
 import { idParam } from "./studio";
 
@@ -35,7 +36,7 @@ export const samplesQuery = z.strictObject({
   dir: z.enum(["asc", "desc"]).default("asc"),
   q: z.string().trim().max(200).optional(),
   family: z.enum(FAMILIES).optional(),
-  articulation: z.enum(ARTICULATIONS).optional(),
+  articulation: strokeIdSchema.optional(),
   state: z.enum(SAMPLE_STATES).optional(),
   instrument: z.string().max(191).optional(),
   flag: z.enum(["conflict"]).optional(),
@@ -47,7 +48,7 @@ export const relabelSchema = z
   .strictObject({
     sampleIds: z.array(idParam).min(1, "Select at least one sample.").max(5000),
     family: z.enum(FAMILIES).optional(),
-    articulation: z.enum(ARTICULATIONS).optional(),
+    articulation: strokeIdSchema.optional(),
     mic: z.enum(MIC_POSITIONS).nullable().optional(),
     instrumentKey: z.string().trim().min(1).max(191).optional(),
   })

@@ -1,6 +1,6 @@
 import "server-only";
 // Saved audits: runAudit (lib/audit) over a layout, a kit and the studio's catalogue, stored whole
-// (kitwright.audit/v2 content; older rows are upgraded on read) so it can be re-read, exported and compared with a later audit.
+// (kitwright.audit/v3 content; older rows are upgraded on read) so it can be re-read, exported and compared with a later audit.
 import { db } from "../db";
 import { AppError, notFound } from "../errors";
 import { newId } from "../ids";

@@ -75,7 +75,7 @@ describe("running an audit", () => {
     expect(by.r2c2).toMatchObject({ outcome: "silent", plays: null });
     expect(by.r2c3).toMatchObject({ outcome: "silent", plays: null });
     expect(a.result.summary).toMatchObject({ pads: 6, direct: 2, standIn: 2, silent: 2 });
-    // the empty slot is told once, apart from the conflicts (SCHEMA.md "kitwright.audit/v2")
+    // the empty slot is told once, apart from the conflicts (SCHEMA.md "kitwright.audit/v3")
     expect(a.result.conflicts).toEqual([]);
     expect(a.result.emptySlots.map((g: { padIds: string[] }) => g.padIds)).toEqual([["r2c3"]]);
     // SCHEMA.md score: 100 * (1 + 0.9 + 1 + 0.8 + 0 + 0) / 6 = 61.67 -> 62
@@ -173,10 +173,10 @@ describe("exports", () => {
     expect(lines.find((l) => l.startsWith("pad,r1c2,"))).toContain("half-edge>centre");
   });
 
-  it("JSON carries the kitwright.audit/v2 schema id and the findings", async () => {
+  it("JSON carries the kitwright.audit/v3 schema id and the findings", async () => {
     const r = await call(exportRoute.GET, { params: { ...P(), auditId: firstAuditId }, path: "/api/x?format=json", user: s.users.viewer });
     expect(r.status).toBe(200);
-    expect(r.json.schema).toBe("kitwright.audit/v2");
+    expect(r.json.schema).toBe("kitwright.audit/v3");
     expect(r.json.pads).toHaveLength(6);
     expect(r.json.score.formula).toContain("score =");
   });

@@ -1,5 +1,5 @@
 // GET /api/studios/:studioId/audits/:auditId/export?format=<id> – the findings as an attachment in one of the
-// export formats of lib/audit/export-formats.ts (CSV, kitwright.audit/v2 JSON, a Standard MIDI File that plays
+// export formats of lib/audit/export-formats.ts (CSV, kitwright.audit/v3 JSON, a Standard MIDI File that plays
 // every pad at every layer).
 import { route } from "@/lib/server/route";
 import { getAudit } from "@/lib/server/kits/audits";
