@@ -35,6 +35,14 @@ describe("reading catalogues for the audit", () => {
     expect(r.problems).toEqual(['groups[2]: instrument "tom:missing" is not in the list', 'groups[3]: unknown articulation "whack"']);
   });
 
+  it("reads a studio's own stroke when the studio's list is given", () => {
+    const layer = { index: 0, velocityLow: 1, velocityHigh: 127, meanStrikeLufs: -30, sampleIds: ["w"] };
+    const input = { instruments: [{ key: "tom", family: "tom", displayName: "Tom" }], groups: [{ instrumentKey: "tom", articulation: "whack", mic: null, layers: [layer] }] };
+    const whack = { id: "whack", name: "whack", families: ["tom" as const], words: [], neighbours: [{ to: "centre", cost: 1 }] };
+    expect(readCatalogue(input, [whack]).instruments[0]!.articulations.map((a) => a.articulation)).toEqual(["whack"]);
+    expect(readCatalogue(input).problems).toEqual(['groups[0]: unknown articulation "whack"']);
+  });
+
   it("says what it cannot read", () => {
     expect(readCatalogue({ foo: 1 }).problems).toEqual(["no instruments list found"]);
     expect(readCatalogue([{ id: "x", family: "bongo" }]).problems).toEqual(['instrument x: unknown family "bongo"']);

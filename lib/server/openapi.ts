@@ -12,6 +12,7 @@ import { createLibrarySchema, deleteLibrarySchema, libraryParams, sampleParams, 
 import { auditListQuery, auditParams, createKitSchema, createLayoutSchema, kitDocSchema, kitParams, layoutParams, runAuditSchema, updateKitSchema, updateLayoutSchema } from "@/lib/validation/kit";
 import { studioParams } from "@/lib/validation/studio";
 import { createTokenSchema, hashLookupSchema, tokenParams } from "@/lib/validation/token";
+import { deleteStrokeQuery, strokeInputSchema, strokeListQuery, strokeParams, updateStrokeSchema } from "@/lib/validation/strokes";
 import type { ApiTokenList, ApiTokenSummary, CreatedToken, HashLookupAnswer, Whoami } from "@/lib/api-types/tokens";
 import type { UploadFileResult, UploadSummary } from "@/lib/api-types/uploads";
 import type { CreatedLibrary, LibraryList, LibrarySummary } from "@/lib/api-types/libraries";
@@ -182,6 +183,12 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: "get", path: "/api/studios/{studioId}/audits", tag: "Audits", summary: "The studio's audits, newest first (of one layout with ?layoutId=)", access: "studio", params: studioParams, query: auditListQuery, ok: { status: 200, description: "The audits.", schema: auditList } },
   { method: "post", path: "/api/studios/{studioId}/audits", tag: "Audits", summary: "Audit a layout against a kit and the studio's catalogue now, and keep the result", access: "studio", params: studioParams, body: runAuditSchema, ok: { status: 201, description: "The audit.", schema: auditAnswer } },
   { method: "get", path: "/api/studios/{studioId}/audits/{auditId}", tag: "Audits", summary: "One audit with its findings", access: "studio", params: auditParams, ok: { status: 200, description: "The audit.", schema: auditAnswer } },
+  // strokes
+  { method: "get", path: "/api/studios/{studioId}/strokes", tag: "Strokes", summary: "The built-in strokes per family and the studio's own (?download=1: the studio's list as a kitwright.strokes/v1 file for the command line)", access: "studio", params: studioParams, query: strokeListQuery, ok: { status: 200, description: "The strokes." } },
+  { method: "post", path: "/api/studios/{studioId}/strokes", tag: "Strokes", summary: "Add a stroke of the studio's own: its name, families, file-name words and nearest neighbours", access: "studio", params: studioParams, body: strokeInputSchema, ok: { status: 201, description: "The stroke." } },
+  { method: "patch", path: "/api/studios/{studioId}/strokes/{strokeId}", tag: "Strokes", summary: "Change a stroke of the studio's own; renaming one in use answers 409 with its uses unless moveUses is true", access: "studio", params: strokeParams, body: updateStrokeSchema, ok: { status: 200, description: "The stroke." } },
+  { method: "delete", path: "/api/studios/{studioId}/strokes/{strokeId}", tag: "Strokes", summary: "Remove a stroke of the studio's own; when in use, 409 with its uses unless ?moveTo= says where they go", access: "studio", params: strokeParams, query: deleteStrokeQuery, ok: { status: 200, description: "How many uses moved." } },
+  { method: "get", path: "/api/studios/{studioId}/strokes/{strokeId}/uses", tag: "Strokes", summary: "What uses a stroke: samples per library, kits' stroke maps, layouts' pads and pedal zones, other strokes' edges", access: "studio", params: strokeParams, ok: { status: 200, description: "The uses." } },
 ];
 
 const ERRORS: Record<number, string> = {

@@ -1,6 +1,6 @@
 // Shared zod schemas for kits, layouts and audits (forms and route handlers use the same ones).
 // Bodies are strict (unknown fields are refused with 422); the document shapes follow lib/audit/schema.ts
-// (kitwright.kit/v1, kitwright.layout/v1), whose own refinements (grid cells, duplicate ids) run on top.
+// (kitwright.kit/v2, kitwright.layout/v2), whose own refinements (grid cells, duplicate ids) run on top.
 import { z } from "zod";
 import { FAMILIES } from "@/lib/catalogue/taxonomy";
 import { strokeIdSchema, studioStrokeSchema } from "@/lib/catalogue/strokes";

@@ -4,6 +4,8 @@ import "server-only";
 // layers and round robins, the instruments with their pitch (upserted by key so ids stay stable; gone ones
 // deleted), the layer groups and the health, and the samples it placed become `catalogued`. Nothing is computed
 // here that the command line would compute otherwise.
+import { loadStudioStrokes } from "../strokes";
+import { isKnownStroke } from "@/lib/catalogue/strokes";
 import { buildLabelModel, catalogueSamples, featureVector, isArticulation, isFamily, MIC_POSITIONS, type CatalogueSampleInput, type LabelModel, type MicPosition } from "@/lib/catalogue";
 import type { Measurement } from "@/lib/audio";
 import { DLS, type VelocityCurve } from "@/lib/catalogue/velocity";
@@ -27,7 +29,7 @@ export async function studioLabelModel(studioId: string): Promise<LabelModel | u
 export interface CataloguingOutcome { samples: number; instruments: number; groups: number; findings: number }
 
 export async function catalogueLibrary({ studioId, libraryId }: { studioId: string; libraryId: string }): Promise<CataloguingOutcome | null> {
-  const labelModel = await studioLabelModel(studioId);
+  const [labelModel, strokes] = await Promise.all([studioLabelModel(studioId), loadStudioStrokes(studioId)]);
   return db().transaction(async (trx) => {
     const lib = await trx("libraries").where({ id: libraryId, studio_id: studioId }).forUpdate().first("id", "velocity_curve");
     if (!lib) return null;
@@ -41,14 +43,14 @@ export async function catalogueLibrary({ studioId, libraryId }: { studioId: stri
     const inputs: CatalogueSampleInput[] = rows.map((r) => {
       const confirmed: CatalogueSampleInput["confirmed"] = {};
       if (r.confirmed_family && isFamily(r.confirmed_family)) confirmed.family = r.confirmed_family;
-      if (r.confirmed_articulation && isArticulation(r.confirmed_articulation)) confirmed.articulation = r.confirmed_articulation;
+      if (r.confirmed_articulation && isKnownStroke(r.confirmed_articulation, strokes)) confirmed.articulation = r.confirmed_articulation;
       if (r.confirmed_mic === "-") confirmed.mic = null;
       else if (isMic(r.confirmed_mic)) confirmed.mic = r.confirmed_mic;
       if (r.confirmed_instrument_key) confirmed.instrumentKey = r.confirmed_instrument_key;
       return { id: r.id, path: r.rel_path, sha256: r.sha256, measurement: jsonColumn<Measurement>(r.measurement), confirmed };
     });
     const curve: VelocityCurve = lib.velocity_curve === "dannenberg" ? { kind: "dannenberg" } : DLS;
-    const cat = catalogueSamples(inputs, { labelModel, curve });
+    const cat = catalogueSamples(inputs, { labelModel, curve, strokes });
     const byId = new Map(rows.map((r) => [r.id as string, r]));
 
     // per-sample columns, in bulk (INSERT ... ON DUPLICATE KEY UPDATE on the primary key)

@@ -7,6 +7,7 @@ import { logActivity } from "../activity";
 import { AppError, notFound } from "../errors";
 import { assertLibrary } from "./libraries";
 import { enqueueCataloguing } from "./queue";
+import { checkStrokesKnown } from "../strokes";
 import type { ConfirmAnswer, RelabelAnswer, RelabelBody } from "@/lib/api-types/samples";
 
 async function ownedIds(trx: Knex.Transaction, studioId: string, libraryId: string, ids: string[]): Promise<string[]> {
@@ -22,6 +23,7 @@ export async function relabelSamples({ studioId, libraryId, actorId, input }: { 
     const inst = await db()("instruments").where({ studio_id: studioId, library_id: libraryId, key: input.instrumentKey }).first("id");
     if (!inst) throw new AppError("invalid-input", "That instrument is not in this library.");
   }
+  if (input.articulation !== undefined) await checkStrokesKnown(studioId, [{ stroke: input.articulation, path: ["articulation"] }]);
   const updated = await db().transaction(async (trx) => {
     const ids = await ownedIds(trx, studioId, libraryId, input.sampleIds);
     const patch: Record<string, unknown> = { confirmed_by: actorId, confirmed_at: trx.fn.now(3), updated_at: trx.fn.now(3) };

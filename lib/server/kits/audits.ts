@@ -14,6 +14,7 @@ import type { AuditComparison, AuditRecord, AuditSummaryRow, StudioCatalogueInst
 import { getKit } from "./kits";
 import { getLayout } from "./layouts";
 import { loadStudioCatalogue } from "./catalogue-for-audit";
+import { loadStudioStrokes } from "../strokes";
 
 const iso = (d: unknown) => new Date(d as string).toISOString();
 
@@ -30,8 +31,8 @@ function summary(r: Record<string, unknown>): AuditSummaryRow {
 export async function runAndSaveAudit({ studioId, actorId, layoutId, kitId }: { studioId: string; actorId: string; layoutId: string; kitId: string }): Promise<AuditRecord> {
   const [layout, kit] = await Promise.all([getLayout({ studioId, layoutId }), getKit({ studioId, kitId })]);
   const ids = kit.kit.slots.map((s) => s.instrumentId).filter((x): x is string => !!x);
-  const catalogue = await loadStudioCatalogue({ studioId, instrumentIds: ids });
-  const result = runAudit(layout.layout, kit.kit, catalogue);
+  const [catalogue, strokes] = await Promise.all([loadStudioCatalogue({ studioId, instrumentIds: ids }), loadStudioStrokes(studioId)]);
+  const result = runAudit(layout.layout, kit.kit, catalogue, { strokes });
   const id = newId();
   await db().transaction(async (trx) => {
     await trx("audits").insert({

@@ -9,6 +9,7 @@ import type { Knex } from "knex";
 import { db } from "../db";
 import { jsonColumnOrNull } from "../json-column";
 import { readCatalogue } from "@/lib/audit/catalogue-input";
+import { loadStudioStrokes } from "../strokes";
 import type { InstrumentChoice } from "@/lib/api-types/kits";
 import type { StudioCatalogueInstrument } from "@/lib/api-types/audits";
 
@@ -28,6 +29,7 @@ export async function readStudioCatalogue(
   const libs = [...new Set(insts.map((r) => r.library_id as string))];
   const groups = await k("layer_groups").where({ studio_id: studioId }).whereIn("library_id", libs).orderBy("id").select("library_id", "instrument_key", "articulation", "mic", "layers");
   const idByKey = new Map(insts.map((r) => [`${r.library_id}\u0000${r.key}`, r.id as string]));
+  const strokes = await loadStudioStrokes(studioId, k);
   const reading = readCatalogue({
     instruments: insts.map((r) => ({ id: r.id, name: r.name, family: r.family, pitchHz: r.pitch_hz === null || r.pitch_hz === undefined ? null : Number(r.pitch_hz) })),
     // groups of instruments not asked for are not read; layers that are not JSON are reported by the
@@ -36,7 +38,7 @@ export async function readStudioCatalogue(
       const instrumentId = idByKey.get(`${g.library_id}\u0000${g.instrument_key}`);
       return instrumentId ? [{ instrumentId, articulation: g.articulation, mic: g.mic ?? null, layers: jsonColumnOrNull(g.layers) }] : [];
     }),
-  });
+  }, strokes);
   const libraryOf = new Map(insts.map((r) => [r.id as string, r.library_id as string]));
   return { instruments: reading.instruments.map((i) => ({ ...i, libraryId: libraryOf.get(i.id)! })), problems: reading.problems };
 }

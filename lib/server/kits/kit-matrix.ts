@@ -6,14 +6,15 @@ import type { KitMatrix } from "@/lib/api-types/layouts";
 import { loadStudioCatalogue } from "./catalogue-for-audit";
 import { getKit, listKits } from "./kits";
 import { getLayout } from "./layouts";
+import { loadStudioStrokes } from "../strokes";
 
 export async function kitMatrix({ studioId, layoutId }: { studioId: string; layoutId: string }): Promise<KitMatrix> {
   const layout = await getLayout({ studioId, layoutId });
   const kits = await Promise.all((await listKits({ studioId })).map((k) => getKit({ studioId, kitId: k.id })));
   const ids = [...new Set(kits.flatMap((k) => k.kit.slots.map((s) => s.instrumentId).filter((x): x is string => !!x)))];
-  const catalogue = await loadStudioCatalogue({ studioId, instrumentIds: ids });
+  const [catalogue, strokes] = await Promise.all([loadStudioCatalogue({ studioId, instrumentIds: ids }), loadStudioStrokes(studioId)]);
   const rows = kits.map((k) => {
-    const a = runAudit(layout.layout, k.kit, catalogue);
+    const a = runAudit(layout.layout, k.kit, catalogue, { strokes });
     return {
       kitId: k.id, kitName: k.name, score: a.score.value, pads: a.summary.pads, direct: a.summary.direct, standIn: a.summary.standIn, silent: a.summary.silent,
       pedalZonesSilent: a.summary.pedalZones - a.summary.pedalZonesRecorded,

@@ -1,5 +1,5 @@
 import "server-only";
-// Kits: named, ordered slots holding catalogue instruments. The body is kept as kitwright.kit/v1 (the kit
+// Kits: named, ordered slots holding catalogue instruments. The body is kept as kitwright.kit/v2 (the kit
 // object, its id = the row id) so import/export is a straight copy.
 import type { Knex } from "knex";
 import { db } from "../db";
@@ -12,6 +12,8 @@ import { getTemplate } from "@/lib/audit/templates";
 import type { Kit, KitSlot } from "@/lib/audit/types";
 import type { KitRecord, KitSummary } from "@/lib/api-types/kits";
 import { loadStudioCatalogue } from "./catalogue-for-audit";
+import { adoptStrokes, checkStrokesKnown } from "../strokes";
+import { kitStrokeUses } from "@/lib/audit/schema";
 
 const iso = (d: unknown) => new Date(d as string).toISOString();
 
@@ -63,6 +65,7 @@ export async function createKit(
       body = { id, name, slots: slots ?? [] };
     }
     await checkInstruments(trx, studioId, body.slots);
+    await checkStrokesKnown(studioId, kitStrokeUses(body), trx);
     await trx("kits").insert({ id, studio_id: studioId, name, body: JSON.stringify(body), created_by: actorId });
     await logActivity(trx, { studioId, actorId, action: "kit.created", subjectType: "kit", subjectId: id, details: { name, slots: body.slots.length, ...(template ? { template } : {}), ...(libraryId ? { libraryId } : {}) } });
     return getKit({ studioId, kitId: id }, trx);
@@ -76,6 +79,7 @@ export async function updateKit(
     const before = await getKit({ studioId, kitId }, trx);
     const body: Kit = { id: kitId, name: name ?? before.name, slots: slots ?? before.kit.slots };
     if (slots) await checkInstruments(trx, studioId, slots);
+    if (slots) await checkStrokesKnown(studioId, kitStrokeUses(body), trx);
     await trx("kits").where({ studio_id: studioId, id: kitId }).update({ name: body.name, body: JSON.stringify(body), updated_at: trx.fn.now(3) });
     const details: Record<string, unknown> = { name: body.name };
     if (name && name !== before.name) { details.from = before.name; details.to = name; }
@@ -99,7 +103,9 @@ export async function deleteKit({ studioId, actorId, kitId }: { studioId: string
   });
 }
 
-/** Import a kitwright.kit/v1 kit as a new kit of the studio (its id is replaced; instruments must be the studio's). */
+/** Import a kitwright.kit/v2 (or v1) kit as a new kit of the studio (its id is replaced; instruments must be the studio's). */
 export async function importKit({ studioId, actorId, kit, name }: { studioId: string; actorId: string; kit: Kit; name?: string }): Promise<KitRecord> {
+  // the file's own strokes the studio lacks join the studio first (kitwright.kit/v2)
+  if (kit.strokes?.length) await db().transaction((trx) => adoptStrokes(trx, studioId, actorId, kit.strokes));
   return createKit({ studioId, actorId, name: name ?? kit.name, slots: kit.slots });
 }

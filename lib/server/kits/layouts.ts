@@ -1,6 +1,8 @@
 import "server-only";
-// Layouts: a controller's pads (grid or trigger zones) and hi-hat pedal, kept as kitwright.layout/v1
+// Layouts: a controller's pads (grid or trigger zones) and hi-hat pedal, kept as kitwright.layout/v2
 // (the layout object, its id = the row id).
+import { adoptStrokes, checkStrokesKnown } from "../strokes";
+import { layoutStrokeUses } from "@/lib/audit/schema";
 import type { Knex } from "knex";
 import { db } from "../db";
 import { AppError, notFound } from "../errors";
@@ -50,6 +52,7 @@ export function blankZones(count: number): Pad[] {
 }
 
 async function insertLayout(trx: Knex, studioId: string, actorId: string, body: Layout, action: string, details: Record<string, unknown>): Promise<LayoutRecord> {
+  await checkStrokesKnown(studioId, layoutStrokeUses(body), trx);
   await trx("layouts").insert({ id: body.id, studio_id: studioId, name: body.name, body: JSON.stringify(body), created_by: actorId });
   await logActivity(trx, { studioId, actorId, action, subjectType: "layout", subjectId: body.id, details: { name: body.name, ...details } });
   return getLayout({ studioId, layoutId: body.id }, trx);
@@ -79,6 +82,7 @@ export async function updateLayout(
     const before = await getLayout({ studioId, layoutId }, trx);
     const newName = name ?? before.name;
     const body: Layout = { ...(layout ?? before.layout), id: layoutId, name: newName } as Layout;
+    if (layout) await checkStrokesKnown(studioId, layoutStrokeUses(body), trx);
     await trx("layouts").where({ studio_id: studioId, id: layoutId }).update({ name: newName, body: JSON.stringify(body), updated_at: trx.fn.now(3) });
     const renamed = newName !== before.name;
     await logActivity(trx, {
@@ -106,6 +110,11 @@ export async function deleteLayout({ studioId, actorId, layoutId }: { studioId: 
 
 export async function importLayout({ studioId, actorId, layout, name }: { studioId: string; actorId: string; layout: Layout; name?: string }): Promise<LayoutRecord> {
   const id = newId();
-  const body: Layout = { ...layout, id, name: name ?? layout.name };
-  return db().transaction((trx) => insertLayout(trx, studioId, actorId, body, "layout.imported", {}));
+  const { strokes, ...rest } = layout;
+  const body: Layout = { ...rest, id, name: name ?? layout.name };
+  return db().transaction(async (trx) => {
+    // the file's own strokes the studio lacks join the studio (kitwright.layout/v2)
+    const added = await adoptStrokes(trx, studioId, actorId, strokes);
+    return insertLayout(trx, studioId, actorId, body, "layout.imported", added.length ? { strokesAdded: added } : {});
+  });
 }

@@ -9,6 +9,8 @@ import { logActivity } from "../activity";
 import { notFound } from "../errors";
 import { jsonColumn } from "../json-column";
 import { getLayout, importLayout } from "./layouts";
+import { loadStudioStrokes } from "../strokes";
+import { layoutStrokeUses, strokesToCarry } from "@/lib/audit/schema";
 import type { Layout } from "@/lib/audit/types";
 import type { LayoutRecord, LayoutShare, SharedLayoutView } from "@/lib/api-types/layouts";
 
@@ -52,7 +54,7 @@ const TOKEN_SHAPE = /^[A-Za-z0-9_-]{43}$/;
 
 async function shareRow(token: string) {
   if (!TOKEN_SHAPE.test(token)) throw notFound("That shared layout");
-  const r = await db()("layout_shares as s").join("layouts as l", "l.id", "s.layout_id").where("s.token", token).first("s.layout_id", "s.description", "s.views", "s.created_at", "l.name", "l.body");
+  const r = await db()("layout_shares as s").join("layouts as l", "l.id", "s.layout_id").where("s.token", token).first("s.layout_id", "s.studio_id", "s.description", "s.views", "s.created_at", "l.name", "l.body");
   if (!r) throw notFound("That shared layout");
   return r;
 }
@@ -63,7 +65,9 @@ export async function viewSharedLayout(token: string, { count }: { count: boolea
   if (count) await db()("layout_shares").where({ token }).increment("views", 1);
   const body = jsonColumn<Layout>(r.body);
   // the layout alone: the shared copy gets a neutral id; slot ids and names are the layout's own words
-  const layout: Layout = { ...body, id: "shared", name: r.name as string };
+  // the studio's own strokes it aims at travel with it (an importing studio adopts them)
+  const carried = strokesToCarry(layoutStrokeUses(body).map((u) => u.stroke), await loadStudioStrokes(r.studio_id as string));
+  const layout: Layout = { ...body, id: "shared", name: r.name as string, ...(carried.length ? { strokes: carried } : {}) };
   return { name: r.name as string, description: r.description as string, views: Number(r.views) + (count ? 1 : 0), publishedAt: new Date(r.created_at as string).toISOString(), layout };
 }
 

@@ -139,7 +139,7 @@ describe("running an audit", () => {
     const list = await call(auditsRoute.GET, { params: P(), path: `/api/x?layoutId=${layoutId}`, user: s.users.viewer });
     expect(list.json.audits.find((x: { id: string }) => x.id === id)).toMatchObject({ score: 62, conflicts: 0 });
     const after = await db()("audits").where({ id }).first("score", "conflicts", "result_version");
-    expect([Number(after.score), Number(after.conflicts), Number(after.result_version)]).toEqual([62, 0, 2]);
+    expect([Number(after.score), Number(after.conflicts), Number(after.result_version)]).toEqual([62, 0, 3]);
     await db()("audits").where({ id }).delete();
   });
 

@@ -58,7 +58,7 @@ describe("kits", () => {
     const ex = await call(kitExport.GET, { params: { ...P(), kitId }, user: s.users.viewer });
     expect(ex.status).toBe(200);
     expect(ex.res.headers.get("content-disposition")).toContain("attachment");
-    expect(ex.json.schema).toBe("kitwright.kit/v1");
+    expect(ex.json.schema).toBe("kitwright.kit/v2");
     expect(ex.json.kit.slots[0]).toEqual(slots[0]);
 
     const im = await call(kitImport.POST, { params: P(), user: s.users.editor, body: ex.json });
@@ -92,7 +92,7 @@ describe("kits", () => {
     }
     const raw = await call(kitsRoute.POST, { params: P(), user: s.users.editor, rawBody: "{ not json", headers: { "content-type": "application/json" } });
     expect(raw.status).toBe(422);
-    const wrongSchema = await call(kitImport.POST, { params: P(), user: s.users.editor, body: { schema: "kitwright.kit/v2", kit: { id: "k", name: "k", slots: [] } } });
+    const wrongSchema = await call(kitImport.POST, { params: P(), user: s.users.editor, body: { schema: "kitwright.kit/v9", kit: { id: "k", name: "k", slots: [] } } });
     expect(wrongSchema.status).toBe(422);
     expect(await countRows("kits")).toBe(before);
   });
@@ -154,7 +154,7 @@ describe("layouts", () => {
     expect(cp.json.layout.layout.pads).toEqual(rn.json.layout.layout.pads);
 
     const ex = await call(layoutExport.GET, { params: { ...P(), layoutId }, user: s.users.viewer });
-    expect(ex.json.schema).toBe("kitwright.layout/v1");
+    expect(ex.json.schema).toBe("kitwright.layout/v2");
     const im = await call(layoutImport.POST, { params: P(), user: s.users.editor, body: ex.json });
     expect(im.status).toBe(201);
     expect(im.json.layout.layout.hiHatPedal).toEqual(ex.json.layout.hiHatPedal);

@@ -58,7 +58,7 @@ describe("shared layouts", () => {
     }
     const file = await call(publicRoute.GET, { params: { token }, path: "/api/test?download=1" });
     expect(file.res.headers.get("content-disposition")).toMatch(/attachment; filename="Pad-strip.layout.json"/);
-    expect(file.json.schema).toBe("kitwright.layout/v1");
+    expect(file.json.schema).toBe("kitwright.layout/v2");
     expect((await call(publicRoute.GET, { params: { token: "A".repeat(43) } })).status).toBe(404);
   });
 

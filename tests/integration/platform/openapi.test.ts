@@ -41,7 +41,7 @@ describe("the OpenAPI document", () => {
   it("covers tokens, libraries, samples and uploads, kits, layouts and audits", async () => {
     const doc = await fetchDoc();
     const tags = new Set(Object.values(doc.paths).flatMap((ops) => Object.values(ops).flatMap((o: any) => o.tags)));
-    expect([...tags].sort()).toEqual(["Audits", "Kits", "Layouts", "Libraries", "Samples", "Tokens"]);
+    expect([...tags].sort()).toEqual(["Audits", "Kits", "Layouts", "Libraries", "Samples", "Strokes", "Tokens"]);
     expect(Object.keys(doc.paths).length).toBeGreaterThanOrEqual(15);
   });
 

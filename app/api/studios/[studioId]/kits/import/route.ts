@@ -1,4 +1,4 @@
-// POST /api/studios/:studioId/kits/import – body: a kitwright.kit/v1 file; creates a new kit from it.
+// POST /api/studios/:studioId/kits/import – body: a kitwright.kit/v2 (or v1) file; creates a new kit from it (its own strokes the studio lacks join the studio).
 import { route } from "@/lib/server/route";
 import { importKit } from "@/lib/server/kits/kits";
 import { studioParams } from "@/lib/validation/studio";

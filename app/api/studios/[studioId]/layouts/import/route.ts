@@ -1,4 +1,4 @@
-// POST /api/studios/:studioId/layouts/import – body: a kitwright.layout/v1 file; creates a new layout from it.
+// POST /api/studios/:studioId/layouts/import – body: a kitwright.layout/v2 (or v1) file; creates a new layout from it (the file's own strokes the studio lacks are added to the studio).
 import { route } from "@/lib/server/route";
 import { importLayout } from "@/lib/server/kits/layouts";
 import { studioParams } from "@/lib/validation/studio";
