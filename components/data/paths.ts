@@ -47,6 +47,11 @@ export const paths = {
   sampleAudio: (studioId: string, libraryId: string, sampleId: string) => `${library(studioId, libraryId)}/samples/${sampleId}/audio`,
   relabelSamples: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/samples/relabel`,
   confirmSamples: (studioId: string, libraryId: string) => `${library(studioId, libraryId)}/samples/confirm`,
+  // strokes
+  strokes: (studioId: string) => `${studio(studioId)}/strokes`,
+  strokesFile: (studioId: string) => `${studio(studioId)}/strokes?download=1`,
+  stroke: (studioId: string, strokeId: string, moveTo?: string) => `${studio(studioId)}/strokes/${strokeId}${query({ moveTo })}`,
+  strokeUses: (studioId: string, strokeId: string) => `${studio(studioId)}/strokes/${strokeId}/uses`,
   // kits
   kits: (studioId: string) => `${studio(studioId)}/kits`,
   kit: (studioId: string, kitId: string) => `${studio(studioId)}/kits/${kitId}`,

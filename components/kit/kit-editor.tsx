@@ -8,7 +8,9 @@ import { useRouter } from "next/navigation";
 import { FormError, Message } from "@/components/form-bits";
 import { useSaveKitSlots } from "@/components/data/kits";
 import { ViewOnlyNote } from "@/components/view-only";
-import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalogue/taxonomy";
+import { FAMILIES, FAMILY_ARTICULATIONS, type Family, type Stroke } from "@/lib/catalogue/taxonomy";
+import { allStrokes, familyStrokes, type StrokeList } from "@/lib/catalogue/strokes";
+import { proposeStrokeMap, strokeMapOverrides } from "@/lib/audit/stroke-map";
 import { orderTomsByPitch } from "@/lib/audit/kits";
 import { choicesForSlot, slotNameKey } from "@/lib/audit/kit-fill";
 import type { Kit, KitSlot } from "@/lib/audit/types";
@@ -31,9 +33,9 @@ export function orderTomSlots(slots: KitSlot[], instruments: InstrumentChoice[])
   return out;
 }
 
-export function KitEditor({ studioId, kit, instruments, canWrite }: { studioId: string; kit: Kit; instruments: InstrumentChoice[]; canWrite: boolean }) {
+export function KitEditor({ studioId, kit, instruments, canWrite, strokes = [] }: { studioId: string; kit: Kit; instruments: InstrumentChoice[]; canWrite: boolean; strokes?: StrokeList }) {
   if (!canWrite) return <KitView kit={kit} instruments={instruments} />;
-  return <KitForm studioId={studioId} kit={kit} instruments={instruments} />;
+  return <KitForm studioId={studioId} kit={kit} instruments={instruments} strokes={strokes} />;
 }
 
 const instLabel = (i: InstrumentChoice) => `${i.name} — ${i.libraryName} · ${i.sampleCount} samples${i.pitchHz ? ` · ${Math.round(i.pitchHz)} Hz` : ""}`;
@@ -48,7 +50,9 @@ function librariesOf(slots: KitSlot[], byId: Map<string, InstrumentChoice>): str
   return [...n].sort((a, b) => b[1] - a[1]).map(([id]) => id);
 }
 
-function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; instruments: InstrumentChoice[] }) {
+function KitForm({ studioId, kit, instruments, strokes }: { studioId: string; kit: Kit; instruments: InstrumentChoice[]; strokes: StrokeList }) {
+  /** Per slot index, why each stroke of the last proposal plays what it plays. */
+  const [proposals, setProposals] = useState<Record<number, Record<string, string>>>({});
   const router = useRouter();
   const [slots, setSlots] = useState<KitSlot[]>(kit.slots);
   const [dirty, setDirty] = useState(false);
@@ -110,8 +114,11 @@ function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; i
         {slots.map((s, i) => {
           const inst = s.instrumentId ? byId.get(s.instrumentId) : undefined;
           const otherFamily = inst && inst.family !== s.family;
-          const overrides = Object.entries(s.standIns ?? {}) as Array<[Articulation, Articulation]>;
+          const overrides = Object.entries(s.standIns ?? {}) as Array<[Stroke, Stroke]>;
           const fam = inst?.family ?? s.family;
+          const slotStrokes = familyStrokes(s.family, strokes);
+          const playable = [...familyStrokes(fam, strokes), ...allStrokes(strokes).filter((a) => !familyStrokes(fam, strokes).includes(a))];
+          const why = proposals[i];
           return (
             <li key={i} className="space-y-1 border-t border-line px-3 py-2" data-testid="kit-slot">
               <div className="grid items-start gap-2 md:grid-cols-[2rem_1fr_9rem_2fr_auto]">
@@ -148,7 +155,9 @@ function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; i
                     })()}
                   </Select>
                   {inst && <p className="mt-0.5 text-xs text-muted">Recorded: {inst.articulations.join(", ") || "nothing yet"}</p>}
-                  {otherFamily && <p className="mt-0.5 text-xs text-warn">⚠ holds a {inst.family} in a {s.family} slot: the audit uses the {inst.family}’s own articulations.</p>}
+                  {otherFamily && (overrides.length
+                    ? <p className="mt-0.5 text-xs text-muted">Holds a {inst.family} in a {s.family} slot: its stroke map below says which {inst.family} stroke answers each {s.family} stroke.</p>
+                    : <p className="mt-0.5 text-xs text-warn">⚠ holds a {inst.family} in a {s.family} slot: without a stroke map the {inst.family}’s own strokes answer (a {s.family} rim shot falls to its main stroke). Propose a stroke map below.</p>)}
                   {s.instrumentId && !inst && <p className="mt-0.5 text-xs text-bad">✕ this instrument is no longer in the catalogue.</p>}
                 </div>
                 <div className="flex gap-1">
@@ -157,32 +166,41 @@ function KitForm({ studioId, kit, instruments }: { studioId: string; kit: Kit; i
                   <button type="button" className="btn-danger px-2 py-1" onClick={() => change(slots.filter((_, j) => j !== i))} aria-label={`Remove slot ${s.name}`}>✕</button>
                 </div>
               </div>
-              <details className="md:ml-10">
-                <summary className="cursor-pointer text-xs text-muted">Stand-in overrides ({overrides.length})</summary>
+              <details className="md:ml-10" open={otherFamily || undefined} data-testid="stroke-map">
+                <summary className="cursor-pointer text-xs text-muted">Stroke map ({overrides.length})</summary>
                 <div className="mt-2 space-y-2">
-                  <p className="text-xs text-muted">When the requested articulation is missing, play this one instead (used only when it is recorded; otherwise the family’s closeness graph decides).</p>
+                  <p className="text-xs text-muted">When a pad asks this slot for a stroke the instrument lacks, play this one instead (used when it is recorded; otherwise the closeness graph decides).</p>
+                  {inst && (
+                    <button type="button" className="btn-quiet py-1" onClick={() => {
+                      const entries = proposeStrokeMap(s.family, inst.family, inst.articulations, strokes);
+                      const map = strokeMapOverrides(entries);
+                      setProposals({ ...proposals, [i]: Object.fromEntries(entries.filter((e) => map[e.requested]).map((e) => [e.requested, e.why])) });
+                      patch(i, { standIns: Object.keys(map).length ? map : undefined });
+                    }}>Propose a stroke map</button>
+                  )}
                   {overrides.map(([req, play], k) => (
                     <div key={k} className="flex flex-wrap items-center gap-2 text-sm">
-                      <Select aria-label="Requested articulation" className="field w-auto" value={req} onChange={(e) => {
+                      <Select aria-label="Requested stroke" className="field w-auto" value={req} onChange={(e) => {
                         const next = { ...(s.standIns ?? {}) };
                         delete next[req];
-                        next[e.target.value as Articulation] = play;
+                        next[e.target.value] = play;
                         patch(i, { standIns: next });
                       }}>
-                        {ARTICULATIONS.map((a) => <option key={a} value={a}>{a}</option>)}
+                        {[...slotStrokes, ...allStrokes(strokes).filter((a) => !slotStrokes.includes(a))].map((a) => <option key={a} value={a}>{a}</option>)}
                       </Select>
                       <span aria-hidden>→</span>
-                      <Select aria-label="Plays instead" className="field w-auto" value={play} onChange={(e) => patch(i, { standIns: { ...(s.standIns ?? {}), [req]: e.target.value as Articulation } })}>
-                        {[...FAMILY_ARTICULATIONS[fam], ...ARTICULATIONS.filter((a) => !FAMILY_ARTICULATIONS[fam].includes(a))].map((a) => <option key={a} value={a}>{a}</option>)}
+                      <Select aria-label="Plays instead" className="field w-auto" value={play} onChange={(e) => patch(i, { standIns: { ...(s.standIns ?? {}), [req]: e.target.value } })}>
+                        {playable.map((a) => <option key={a} value={a}>{a}</option>)}
                       </Select>
                       <button type="button" className="btn-quiet py-1" onClick={() => { const next = { ...(s.standIns ?? {}) }; delete next[req]; patch(i, { standIns: Object.keys(next).length ? next : undefined }); }}>Remove</button>
+                      {why?.[req] && <span className="basis-full text-xs text-muted">{why[req]}</span>}
                     </div>
                   ))}
                   <button type="button" className="btn-quiet py-1" onClick={() => {
                     const used = new Set(Object.keys(s.standIns ?? {}));
-                    const req = FAMILY_ARTICULATIONS[fam].find((a) => !used.has(a) && !inst?.articulations.includes(a)) ?? ARTICULATIONS.find((a) => !used.has(a))!;
+                    const req = slotStrokes.find((a) => !used.has(a) && !inst?.articulations.includes(a)) ?? allStrokes(strokes).find((a) => !used.has(a))!;
                     patch(i, { standIns: { ...(s.standIns ?? {}), [req]: FAMILY_ARTICULATIONS[fam][0]! } });
-                  }}>Add override</button>
+                  }}>Add a row</button>
                 </div>
               </details>
             </li>

@@ -9,7 +9,8 @@ import { useSaveLayout } from "@/components/data/layouts";
 import { useMidi, type MidiEvent } from "@/components/midi/use-midi";
 import { MidiMonitor, MidiStatusLine } from "@/components/midi/midi-panel";
 import { MiddleCSetting, noteName, useMiddleC } from "@/components/midi/notes";
-import { ARTICULATIONS, FAMILIES, FAMILY_ARTICULATIONS, type Articulation, type Family } from "@/lib/catalogue/taxonomy";
+import { FAMILIES, FAMILY_ARTICULATIONS, type Family } from "@/lib/catalogue/taxonomy";
+import { allStrokes, familyStrokes, type StrokeList } from "@/lib/catalogue/strokes";
 import type { HiHatPedal, Layout, LayoutSlot, Pad } from "@/lib/audit/types";
 import { PedalEditor } from "./pedal-editor";
 import { ViewOnlyNote } from "@/components/view-only";
@@ -22,7 +23,7 @@ export interface KitSlotsChoice { id: string; name: string; slots: LayoutSlot[] 
 
 type Learn = null | "pad" | "pedal";
 
-export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { studioId: string; layout: Layout; kits: KitSlotsChoice[]; canWrite: boolean }) {
+export function LayoutEditor({ studioId, layout: initial, kits, canWrite, strokes = [] }: { studioId: string; layout: Layout; kits: KitSlotsChoice[]; canWrite: boolean; strokes?: StrokeList }) {
   const router = useRouter();
   const [layout, setLayout] = useState<Layout>(initial);
   const [selected, setSelected] = useState<string | null>(initial.pads[0]?.id ?? null);
@@ -205,7 +206,7 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
                 <label className="label" htmlFor="pad-slot">Target slot</label>
                 <Select id="pad-slot" className="field" value={pad.target?.slotId ?? ""} onChange={(e) => {
                   const s = slots.find((x) => x.id === e.target.value);
-                  patchPad(pad.id, { target: s ? { slotId: s.id, articulation: pad.target && (FAMILY_ARTICULATIONS[s.family] as readonly string[]).includes(pad.target.articulation) ? pad.target.articulation : FAMILY_ARTICULATIONS[s.family][0]! } : null });
+                  patchPad(pad.id, { target: s ? { slotId: s.id, articulation: pad.target && familyStrokes(s.family, strokes).includes(pad.target.articulation) ? pad.target.articulation : FAMILY_ARTICULATIONS[s.family][0]! } : null });
                 }}>
                   <option value="">— no target —</option>
                   {slots.map((s) => <option key={s.id} value={s.id}>{s.name} ({s.family})</option>)}
@@ -214,10 +215,10 @@ export function LayoutEditor({ studioId, layout: initial, kits, canWrite }: { st
               </div>
               {pad.target && (
                 <div>
-                  <label className="label" htmlFor="pad-art">Articulation</label>
-                  <Select id="pad-art" className="field" value={pad.target.articulation} onChange={(e) => patchPad(pad.id, { target: { slotId: pad.target!.slotId, articulation: e.target.value as Articulation } })}>
-                    {fam && <optgroup label={`${fam} articulations`}>{FAMILY_ARTICULATIONS[fam].map((a) => <option key={a} value={a}>{a}</option>)}</optgroup>}
-                    <optgroup label="other articulations">{ARTICULATIONS.filter((a) => !fam || !FAMILY_ARTICULATIONS[fam].includes(a)).map((a) => <option key={a} value={a}>{a}</option>)}</optgroup>
+                  <label className="label" htmlFor="pad-art">Stroke</label>
+                  <Select id="pad-art" className="field" value={pad.target.articulation} onChange={(e) => patchPad(pad.id, { target: { slotId: pad.target!.slotId, articulation: e.target.value } })}>
+                    {fam && <optgroup label={`${fam} strokes`}>{familyStrokes(fam, strokes).map((a) => <option key={a} value={a}>{a}</option>)}</optgroup>}
+                    <optgroup label="other strokes">{allStrokes(strokes).filter((a) => !fam || !familyStrokes(fam, strokes).includes(a)).map((a) => <option key={a} value={a}>{a}</option>)}</optgroup>
                   </Select>
                 </div>
               )}

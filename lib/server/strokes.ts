@@ -12,9 +12,9 @@ import { logActivity } from "./activity";
 import { jsonColumn } from "./json-column";
 import { enqueueCataloguing } from "./catalogue/queue";
 import { findStroke, isKnownStroke, strokeIdFromName, strokeListProblems, tidyStroke, type StudioStroke } from "@/lib/catalogue/strokes";
-import { isArticulation, type Family } from "@/lib/catalogue/taxonomy";
+import { FAMILY_ARTICULATIONS, isArticulation, type Family } from "@/lib/catalogue/taxonomy";
 import type { Kit, Layout } from "@/lib/audit/types";
-import type { StrokeInput, StrokeUses } from "@/lib/api-types/strokes";
+import type { StrokeInput, StrokeListAnswer, StrokeUses } from "@/lib/api-types/strokes";
 
 function fromRow(r: Record<string, unknown>): StudioStroke {
   return {
@@ -30,6 +30,12 @@ function fromRow(r: Record<string, unknown>): StudioStroke {
 export async function loadStudioStrokes(studioId: string, k: Knex = db()): Promise<StudioStroke[]> {
   const rows = await k("studio_strokes").where({ studio_id: studioId }).orderBy([{ column: "position" }, { column: "created_at" }, { column: "stroke_id" }]);
   return rows.map(fromRow);
+}
+
+/** The built-in strokes per family and the studio's own (GET .../strokes, the strokes page). */
+export async function strokeListAnswer(studioId: string): Promise<StrokeListAnswer> {
+  const builtIn = Object.fromEntries(Object.entries(FAMILY_ARTICULATIONS).map(([f, list]) => [f, [...list]])) as StrokeListAnswer["builtIn"];
+  return { builtIn, strokes: await loadStudioStrokes(studioId) };
 }
 
 function toStroke(input: StrokeInput): StudioStroke {

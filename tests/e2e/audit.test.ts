@@ -96,7 +96,7 @@ describe("audit flow in Chromium", () => {
       await pads.nth(i).click();
       await page.getByLabel("Label", { exact: true }).fill(label);
       await choose(page.getByLabel("Target slot"), { label: slot });
-      await expect(chosen(page.getByLabel("Articulation"))).resolves.toBe(art);
+      await expect(chosen(page.getByLabel("Stroke"))).resolves.toBe(art);
     };
     await aim(0, "Kick", "Kick (kick)", "centre");
     await aim(1, "Snare", "Snare A (snare)", "centre");

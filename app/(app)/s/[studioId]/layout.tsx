@@ -12,6 +12,7 @@ export default async function StudioLayout({ children, params }: { children: Rea
     { href: `/s/${studio.id}/kits`, label: "Kits", show: true },
     { href: `/s/${studio.id}/layouts`, label: "Layouts", show: true },
     { href: `/s/${studio.id}/audits`, label: "Audits", show: true },
+    { href: `/s/${studio.id}/strokes`, label: "Strokes", show: true },
     { href: `/s/${studio.id}/members`, label: "Members", show: true },
     { href: `/s/${studio.id}/activity`, label: "Activity", show: can(studio.role, "activity:read") },
   ];

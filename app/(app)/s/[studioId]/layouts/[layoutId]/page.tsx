@@ -7,6 +7,7 @@ import { getKit, listKits } from "@/lib/server/kits/kits";
 import { AppError } from "@/lib/server/errors";
 import { can } from "@/lib/permissions";
 import { LayoutEditor } from "@/components/layout-editor/layout-editor";
+import { loadStudioStrokes } from "@/lib/server/strokes";
 import { LayoutActions } from "@/components/item-actions";
 import { NextStepSlot } from "@/app/(app)/s/[studioId]/next-step-slot";
 import { SharePanel } from "@/components/layout-editor/share-panel";
@@ -18,6 +19,7 @@ export default async function LayoutPage({ params }: { params: Promise<{ studioI
   const { studio } = await requireStudio(studioId);
   if (!/^[0-9a-f-]{36}$/i.test(layoutId)) notFound();
   const rec = await getLayout({ studioId: studio.id, layoutId }).catch((e) => { if (e instanceof AppError && e.status === 404) notFound(); throw e; });
+  const strokes = await loadStudioStrokes(studio.id);
   const kits = await Promise.all((await listKits({ studioId: studio.id })).map(async (k) => {
     const full = await getKit({ studioId: studio.id, kitId: k.id });
     return { id: k.id, name: k.name, slots: full.kit.slots.map((s) => ({ id: s.id, name: s.name, family: s.family })) };
@@ -32,7 +34,7 @@ export default async function LayoutPage({ params }: { params: Promise<{ studioI
         <h2 className="text-xl" data-testid="layout-name">{rec.name}</h2>
         <LayoutActions studioId={studio.id} layoutId={rec.id} name={rec.name} canWrite={write} />
       </div>
-      <LayoutEditor key={`${rec.id}:${rec.name}`} studioId={studio.id} layout={rec.layout} kits={kits} canWrite={write} />
+      <LayoutEditor key={`${rec.id}:${rec.name}`} studioId={studio.id} layout={rec.layout} kits={kits} canWrite={write} strokes={strokes} />
       <SharePanel studioId={studio.id} layoutId={rec.id} canWrite={write} />
     </div>
     </>
