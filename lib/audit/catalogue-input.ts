@@ -13,8 +13,11 @@
 // - index defaults to the layer's position in the list, meanStrikeLufs to NaN when absent or not finite;
 //   sampleIds keeps its strings.
 // An instrument's pitchHz is a positive number or null (anything else is reported and read as null).
+// An articulation is a built-in stroke or one of the studio's own (`strokes`, lib/catalogue/strokes.ts); any other
+// is reported and its layers left out.
 
-import { isArticulation, isFamily } from "../catalogue/taxonomy";
+import { isKnownStroke, type StrokeList } from "../catalogue/strokes";
+import { isFamily } from "../catalogue/taxonomy";
 import { CATALOGUE_SCHEMA, parseCatalogueFile } from "./schema";
 import type { CatalogueArticulation, CatalogueInstrument, CatalogueLayer } from "./types";
 
@@ -58,10 +61,10 @@ export function readLayers(raw: unknown, where: string, problems: string[]): Cat
   return out;
 }
 
-function readArticulation(raw: unknown, where: string, problems: string[]): CatalogueArticulation | null {
+function readArticulation(raw: unknown, where: string, problems: string[], strokes?: StrokeList | null): CatalogueArticulation | null {
   if (!isObj(raw)) return (problems.push(`${where}: not an object`), null);
   const a = str(raw.articulation);
-  if (!a || !isArticulation(a)) return (problems.push(`${where}: unknown articulation ${JSON.stringify(raw.articulation)}`), null);
+  if (!a || !isKnownStroke(a, strokes)) return (problems.push(`${where}: unknown articulation ${JSON.stringify(raw.articulation)}`), null);
   return { articulation: a, mic: str(raw.mic), layers: readLayers(raw.layers, where, problems) };
 }
 
@@ -77,8 +80,9 @@ function readPitch(raw: unknown, where: string, problems: string[]): number | nu
  * Read a catalogue: a kitwright.catalogue/v1 document (validated by its schema, SchemaError when invalid), a bare
  * list of instruments, or an object with `instruments` (and optionally `groups`: { instrumentId|instrumentKey,
  * articulation, mic, layers }), such as catalogueSamples() returns. Instruments keep their input order.
+ * `strokes`: the studio's own strokes an articulation may name besides the built-ins.
  */
-export function readCatalogue(input: unknown): CatalogueReading {
+export function readCatalogue(input: unknown, strokes?: StrokeList | null): CatalogueReading {
   if (isObj(input) && input.schema === CATALOGUE_SCHEMA) return { instruments: parseCatalogueFile(input), problems: [] };
   const problems: string[] = [];
   const list: unknown[] = Array.isArray(input) ? input : isObj(input) && Array.isArray(input.instruments) ? input.instruments : [];
@@ -94,7 +98,7 @@ export function readCatalogue(input: unknown): CatalogueReading {
     if (!family || !isFamily(family)) return void problems.push(`instrument ${id}: unknown family ${JSON.stringify(raw.family)}`);
     if (byId.has(id)) return void problems.push(`instrument ${id}: listed twice; the first is kept`);
     const arts = Array.isArray(raw.articulations)
-      ? raw.articulations.map((a, j) => readArticulation(a, `instrument ${id}.articulations[${j}]`, problems)).filter((a): a is CatalogueArticulation => !!a)
+      ? raw.articulations.map((a, j) => readArticulation(a, `instrument ${id}.articulations[${j}]`, problems, strokes)).filter((a): a is CatalogueArticulation => !!a)
       : [];
     byId.set(id, { id, name: str(raw.name) ?? str(raw.displayName) ?? id, family, pitchHz: readPitch(raw.pitchHz, `instrument ${id}`, problems), articulations: arts });
   });
@@ -104,7 +108,7 @@ export function readCatalogue(input: unknown): CatalogueReading {
       const instId = str(g.instrumentId) ?? str(g.instrumentKey) ?? str(g.instrument);
       const inst = instId ? byId.get(instId) : undefined;
       if (!inst) return void problems.push(`groups[${i}]: instrument ${JSON.stringify(instId)} is not in the list`);
-      const a = readArticulation(g, `groups[${i}]`, problems);
+      const a = readArticulation(g, `groups[${i}]`, problems, strokes);
       if (a) inst.articulations.push(a);
     });
   }
