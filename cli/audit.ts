@@ -132,7 +132,10 @@ function describe(f: PlayFinding): string {
   const gaps = f.velocityGaps.length ? `, velocity gaps ${f.velocityGaps.map((g) => (g.low === g.high ? g.low : `${g.low}-${g.high}`)).join(" ")}` : "";
   if (f.outcome === "direct") return `direct    ${where} (${layers}${gaps})`;
   const si = f.standIn!;
-  const how = si.source === "override" ? "by the kit's stroke map" : si.edges.length ? `over ${edgesInWords(si.edges)}` : "entering at the main stroke";
+  // a stroke the family's graph lacks enters it at the main stroke (no edge); the edges the path then used follow
+  const entered = si.source === "graph" && si.edges[0]?.from !== si.path[0];
+  const over = si.edges.length ? `over ${edgesInWords(si.edges)}` : "";
+  const how = si.source === "override" ? "by the kit's stroke map" : [entered ? "entering at the main stroke" : "", over].filter(Boolean).join(", then ");
   return `stand-in  ${where} via ${si.path.join(" > ")} cost ${si.cost}, ${how} (${layers}${gaps})`;
 }
 

@@ -11,7 +11,11 @@ import { isArticulation } from "../lib/catalogue/taxonomy";
 import { strokeFile, type StudioStroke } from "../lib/catalogue/strokes";
 import { layoutToFile, parseLayoutFile } from "../lib/audit/schema";
 import { CSV_COLUMNS } from "../lib/audit/export";
-import type { Layout } from "../lib/audit/types";
+import type { Kit, Layout } from "../lib/audit/types";
+import { runAudit } from "../lib/audit/audit";
+import { FOREIGN_ENTRY_COST } from "../lib/audit/fallback";
+import { instrument } from "../lib/audit/test-catalogue";
+import { formatText } from "./audit";
 import { snare } from "../lib/synth/drums";
 import { encodeWav } from "../lib/synth/wav";
 
@@ -190,5 +194,21 @@ describe("a bad --strokes file", () => {
     const missing = await kitwright("audit", "--layout", "trigger-five", "--catalogue", noBuzz, "--strokes", at("nowhere.json"));
     expect(missing.code).toBe(2);
     expect(missing.stderr).toContain(`--strokes ${at("nowhere.json")}: cannot read the file (ENOENT)`);
+  });
+});
+
+describe("the audit's text names every stand-in's way", () => {
+  it("studio and built-in edges by owner, the entry of a stroke the graph lacks, and the kit's stroke map", () => {
+    const tight: StudioStroke = { id: "tight", name: "tight", families: ["hi-hat"], words: ["tight"], neighbours: [{ to: "closed", cost: 0.5 }] };
+    const cat = [instrument("hh", "Hats", "hi-hat", [["quarter-open", 2, 1]]), instrument("cg", "Conga", "hand-drum", [["open-tone", 2, 1], ["slap", 2, 1]])];
+    const pad = (id: string, note: number, slotId: string, articulation: string) => ({ id, label: id, note, channel: 10, target: { slotId, articulation } });
+    const l: Layout = { id: "l", name: "L", surface: { kind: "zones" }, hiHatPedal: null, pads: [pad("tight", 42, "hat", "tight"), pad("xs", 37, "snare", "cross-stick"), pad("rim", 40, "snare", "rim-shot")] };
+    const kit: Kit = { id: "k", name: "K", slots: [{ id: "hat", name: "Hats", family: "hi-hat", instrumentId: "hh" }, { id: "snare", name: "Snare", family: "snare", instrumentId: "cg", standIns: { "rim-shot": "slap" } }] };
+    const text = formatText(runAudit(l, kit, cat, { strokes: [tight] }));
+    // tight -> closed is the studio's edge (0.5), closed -> quarter-open the built-in one (1): fallback.ts
+    expect(text).toContain("via tight > closed > quarter-open cost 1.5, over the studio's edge tight–closed, the built-in edge closed–quarter-open");
+    // the hand-drum graph has no cross-stick: it enters at the conga's main stroke at the foreign-entry cost
+    expect(text).toContain(`via cross-stick > open-tone cost ${FOREIGN_ENTRY_COST}, entering at the main stroke`);
+    expect(text).toContain("via rim-shot > slap cost 0, by the kit's stroke map");
   });
 });
