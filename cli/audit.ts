@@ -1,7 +1,9 @@
 // kitwright audit --layout <layout.json | template name> --catalogue <folder | catalogue.json> [--kit <kit.json>]
-//                 [--csv | --json] [--smf <out.mid>]   (the export formats of lib/audit/export-formats.ts)
+//                 [--strokes <strokes.json>] [--csv | --json] [--smf <out.mid>]   (formats: lib/audit/export-formats.ts)
 // Runs the coverage audit offline. Exit status: 0 when every pad plays something, 1 when any pad (or pedal
 // zone, or the pedal chick note) is silent, 2 on bad input (the message says what and where).
+// The studio's own strokes are those the layout and kit files carry, then those of --strokes (a file's own
+// definition wins); they sort a catalogued folder's names, and their edges give stand-ins.
 
 import { readFile, stat, writeFile } from "node:fs/promises";
 import { hasSilentPads, runAudit } from "../lib/audit/audit";
@@ -11,7 +13,9 @@ import { buildDefaultKit } from "../lib/audit/kits";
 import { parseKitFile, parseLayoutFile, SchemaError } from "../lib/audit/schema";
 import { TEMPLATE_NAMES, getTemplate } from "../lib/audit/templates";
 import { catalogueFolder as sortFolder } from "./catalogue";
+import type { StrokeList } from "../lib/catalogue/strokes";
 import type { AuditResult, CatalogueInstrument, Kit, Layout, PlayFinding } from "../lib/audit/types";
+import { edgesInWords, mergeStrokes, readStrokeFile, StrokeFileError, STROKES_HELP, STROKES_USAGE } from "./strokes";
 
 /** Formats printed to standard output (one at a time; text when none) and formats written to a named file. */
 const STDOUT_FORMATS = EXPORT_FORMATS.filter((f) => f.cli.to === "stdout");
@@ -24,7 +28,10 @@ export const OUTPUT_USAGE = [
 ].join(" ");
 
 const USAGE = `usage: kitwright audit --layout <layout.json | template> --catalogue <folder | catalogue.json>
-                       [--kit <kit.json>] ${OUTPUT_USAGE}
+                       [--kit <kit.json>] [${STROKES_USAGE}] ${OUTPUT_USAGE}
+
+${STROKES_HELP}
+                (a layout or kit file may carry its own strokes; its definition wins)
 
 templates: ${TEMPLATE_NAMES.join(", ")}
 exit status: 0 every pad plays, 1 some pad is silent, 2 bad input
@@ -36,13 +43,14 @@ interface Options {
   layout: string;
   catalogue: string;
   kit: string | null;
+  strokes: string | null;
   format: "text" | ExportFormatId;
   /** Formats written to files: the format and the file. */
   files: { format: ExportFormat; path: string }[];
 }
 
 function parseArgs(args: string[]): Options | "help" {
-  const o: Partial<Options> & Pick<Options, "files"> = { kit: null, format: "text", files: [] };
+  const o: Partial<Options> & Pick<Options, "files"> = { kit: null, strokes: null, format: "text", files: [] };
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
     const toFile = FILE_FORMATS.find((f) => f.cli.flag === a);
@@ -56,6 +64,7 @@ function parseArgs(args: string[]): Options | "help" {
     else if (a === "--layout") o.layout = value();
     else if (a === "--catalogue") o.catalogue = value();
     else if (a === "--kit") o.kit = value();
+    else if (a === "--strokes") o.strokes = value();
     else if (toFile) o.files.push({ format: toFile, path: value() });
     else if (toStdout) {
       if (o.format !== "text" && o.format !== toStdout.id) throw new UsageError(`choose one of ${STDOUT_FORMATS.map((x) => x.cli.flag).join(" and ")}`);
@@ -81,12 +90,12 @@ export async function readJson(file: string, what: string): Promise<unknown> {
   }
 }
 
-async function loadLayout(arg: string): Promise<Layout> {
+async function loadLayout(arg: string, strokes: StrokeList): Promise<Layout> {
   const t = getTemplate(arg);
   if (t) return t;
   const exists = await stat(arg).catch(() => null);
   if (!exists) throw new UsageError(`--layout ${arg}: neither a file nor a template (${TEMPLATE_NAMES.join(", ")})`);
-  return parseLayoutFile(await readJson(arg, "layout"));
+  return parseLayoutFile(await readJson(arg, "layout"), { strokes });
 }
 
 /**
@@ -94,20 +103,21 @@ async function loadLayout(arg: string): Promise<Layout> {
  * sort with lib/catalogue, instrument pitch included), then read it as the auditor's input with the converter the
  * server uses too (lib/audit/catalogue-input.ts).
  */
-async function catalogueFolder(dir: string, warn: (s: string) => void): Promise<CatalogueInstrument[]> {
-  const { catalogue, refused } = await sortFolder(dir);
+async function catalogueFolder(dir: string, warn: (s: string) => void, strokes: StrokeList): Promise<CatalogueInstrument[]> {
+  const { catalogue, refused } = await sortFolder(dir, undefined, strokes);
   if (catalogue.samples.length === 0 && refused.length === 0) throw new UsageError(`no .wav files under ${dir}`);
   for (const r of refused) warn(`refused ${r.path}: ${r.reason}`);
-  const reading = readCatalogue(catalogue);
+  const reading = readCatalogue(catalogue, strokes);
   for (const p of reading.problems) warn(`catalogue: ${p}`);
   return reading.instruments;
 }
 
-export async function loadCatalogue(arg: string, warn: (s: string) => void): Promise<CatalogueInstrument[]> {
+/** A catalogued folder or a catalogue file; `strokes`: the studio's own strokes names sort into and articulations may name. */
+export async function loadCatalogue(arg: string, warn: (s: string) => void, strokes: StrokeList = []): Promise<CatalogueInstrument[]> {
   const s = await stat(arg).catch(() => null);
   if (!s) throw new UsageError(`--catalogue ${arg}: no such file or folder`);
-  if (s.isDirectory()) return catalogueFolder(arg, warn);
-  const reading = readCatalogue(await readJson(arg, "catalogue"));
+  if (s.isDirectory()) return catalogueFolder(arg, warn, strokes);
+  const reading = readCatalogue(await readJson(arg, "catalogue"), strokes);
   if (reading.instruments.length === 0 && reading.problems.length) {
     throw new UsageError(`--catalogue ${arg}: ${reading.problems.join("; ")}`);
   }
@@ -121,7 +131,12 @@ function describe(f: PlayFinding): string {
   const layers = `${f.layers.length} layer${f.layers.length === 1 ? "" : "s"}, rr >= ${f.minRoundRobins}`;
   const gaps = f.velocityGaps.length ? `, velocity gaps ${f.velocityGaps.map((g) => (g.low === g.high ? g.low : `${g.low}-${g.high}`)).join(" ")}` : "";
   if (f.outcome === "direct") return `direct    ${where} (${layers}${gaps})`;
-  return `stand-in  ${where} via ${f.standIn!.path.join(" > ")} cost ${f.standIn!.cost} (${layers}${gaps})`;
+  const si = f.standIn!;
+  // a stroke the family's graph lacks enters it at the main stroke (no edge); the edges the path then used follow
+  const entered = si.source === "graph" && si.edges[0]?.from !== si.path[0];
+  const over = si.edges.length ? `over ${edgesInWords(si.edges)}` : "";
+  const how = si.source === "override" ? "by the kit's stroke map" : [entered ? "entering at the main stroke" : "", over].filter(Boolean).join(", then ");
+  return `stand-in  ${where} via ${si.path.join(" > ")} cost ${si.cost}, ${how} (${layers}${gaps})`;
 }
 
 export function formatText(r: AuditResult): string {
@@ -129,6 +144,13 @@ export function formatText(r: AuditResult): string {
   lines.push(`Audit of "${r.layoutName}" against "${r.kitName}"`);
   lines.push(`score ${r.score.value}/100   pads ${r.summary.pads}: ${r.summary.direct} direct, ${r.summary.standIn} stand-in, ${r.summary.silent} silent   conflicts ${r.summary.conflicts}`);
   lines.push(r.score.sentence);
+  if (r.strokes.length) {
+    lines.push("", "The studio's own strokes");
+    for (const s of r.strokes) {
+      const near = s.neighbours.map((e) => `${e.to} ${e.cost}`).join(", ");
+      lines.push(`  ${s.id} ("${s.name}", ${s.families.join(", ")})${near ? `: near ${near}` : ""}`);
+    }
+  }
   if (r.conflicts.length) {
     lines.push("", "Conflicts");
     for (const c of r.conflicts) lines.push(`  ${c.kind}: ${c.message}`);
@@ -160,10 +182,14 @@ export async function run(args: string[]): Promise<number> {
       process.stdout.write(USAGE);
       return 0;
     }
-    const layout = await loadLayout(opts.layout);
-    const catalogue = await loadCatalogue(opts.catalogue, warn);
-    const kit: Kit = opts.kit ? parseKitFile(await readJson(opts.kit, "kit")) : buildDefaultKit(layout, catalogue);
-    const result = runAudit(layout, kit, catalogue);
+    // the --strokes file first: a bad one stops the audit before anything is read or written
+    const given = opts.strokes ? await readStrokeFile(opts.strokes) : [];
+    const layout = await loadLayout(opts.layout, given);
+    const kitFile = opts.kit ? parseKitFile(await readJson(opts.kit, "kit"), { strokes: given }) : null;
+    const strokes = mergeStrokes(layout.strokes, kitFile?.strokes, given);
+    const catalogue = await loadCatalogue(opts.catalogue, warn, strokes);
+    const kit: Kit = kitFile ?? buildDefaultKit(layout, catalogue);
+    const result = runAudit(layout, kit, catalogue, { strokes });
     if (opts.format === "text") process.stdout.write(formatText(result));
     else {
       const out = EXPORT_FORMATS.find((f) => f.id === opts.format)!.serialize(result);
@@ -173,7 +199,7 @@ export async function run(args: string[]): Promise<number> {
     for (const f of opts.files) await writeFile(f.path, f.format.serialize(result));
     return hasSilentPads(result) ? 1 : 0;
   } catch (e) {
-    if (e instanceof UsageError || e instanceof SchemaError) {
+    if (e instanceof UsageError || e instanceof SchemaError || e instanceof StrokeFileError) {
       process.stderr.write(`kitwright audit: ${e.message}\n\n${e instanceof UsageError ? USAGE : ""}`);
       return 2;
     }

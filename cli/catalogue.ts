@@ -1,4 +1,4 @@
-// kitwright catalogue <folder> [--json | --csv] [--curve dls|dannenberg]
+// kitwright catalogue <folder> [--json | --csv] [--curve dls|dannenberg] [--strokes <strokes.json>]
 // Measures every WAV under a folder and sorts it (names, sound, instruments, layers, round robins, health),
 // with no server or database. One record per file, then the health findings and the refused files.
 
@@ -9,15 +9,18 @@ import type { Measurement } from "../lib/audio";
 import { catalogueSamples, type Catalogue, type CatalogueEntry, type CatalogueSampleInput } from "../lib/catalogue/catalogue";
 import type { VelocityCurve } from "../lib/catalogue/velocity";
 import { formatConfidence } from "../lib/catalogue/confidence";
+import type { StrokeList } from "../lib/catalogue/strokes";
 import { findWavs, inOrder, poolFor } from "./files";
+import { readStrokeFile, StrokeFileError, STROKES_HELP, STROKES_USAGE } from "./strokes";
 
-const USAGE = `usage: kitwright catalogue <folder> [--json | --csv] [--curve dls|dannenberg]
+const USAGE = `usage: kitwright catalogue <folder> [--json | --csv] [--curve dls|dannenberg] [${STROKES_USAGE}]
 
 Sorts the WAV one-shots under <folder> into instruments, articulations, velocity layers and round robins,
 and lists the library's health findings. Nothing is uploaded.
   --json        one JSON document (samples, instruments, layer groups, health, refused files)
   --csv         one row per file
   --curve       velocity curve for the layer ranges: dls (default, DLS Level 1 square law) or dannenberg
+${STROKES_HELP}
 `;
 
 export interface Refused {
@@ -28,9 +31,13 @@ export interface Refused {
 
 /**
  * Measures (lib/audio measureWav, on every core) and catalogues a folder. Refused files are returned with their
- * reasons; one bad file never stops the others.
+ * reasons; one bad file never stops the others. With a studio's strokes, file names using their words sort into them.
  */
-export async function catalogueFolder(folder: string, curve?: VelocityCurve): Promise<{ catalogue: Catalogue; refused: Refused[] }> {
+export async function catalogueFolder(
+  folder: string,
+  curve?: VelocityCurve,
+  strokes?: StrokeList | null,
+): Promise<{ catalogue: Catalogue; refused: Refused[] }> {
   const files = await findWavs(folder);
   const inputs: CatalogueSampleInput[] = [];
   const refused: Refused[] = [];
@@ -64,7 +71,7 @@ export async function catalogueFolder(folder: string, curve?: VelocityCurve): Pr
       await pool.close();
     }
   }
-  return { catalogue: catalogueSamples(inputs, { curve }), refused };
+  return { catalogue: catalogueSamples(inputs, { curve, strokes }), refused };
 }
 
 const CSV_COLUMNS = [
@@ -136,6 +143,7 @@ export function toText(cat: Catalogue, refused: Refused[], folder: string): stri
 export async function run(args: string[]): Promise<number> {
   let format: "text" | "json" | "csv" = "text";
   let curve: VelocityCurve | undefined;
+  let strokesFile: string | null = null;
   const positional: string[] = [];
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
@@ -152,6 +160,13 @@ export async function run(args: string[]): Promise<number> {
         process.stderr.write(`kitwright catalogue: unknown curve "${v ?? ""}" (dls or dannenberg)\n`);
         return 2;
       }
+    } else if (a === "--strokes" || a.startsWith("--strokes=")) {
+      const v = a.includes("=") ? a.slice(10) : args[++i];
+      if (!v || v.startsWith("--")) {
+        process.stderr.write(`kitwright catalogue: --strokes needs a file\n`);
+        return 2;
+      }
+      strokesFile = v;
     } else if (a.startsWith("-")) {
       process.stderr.write(`kitwright catalogue: unknown option "${a}"\n\n${USAGE}`);
       return 2;
@@ -173,7 +188,17 @@ export async function run(args: string[]): Promise<number> {
     process.stderr.write(`kitwright catalogue: not a folder: ${positional[0]}\n`);
     return 1;
   }
-  const { catalogue, refused } = await catalogueFolder(folder, curve);
+  let strokes: StrokeList = [];
+  if (strokesFile) {
+    try {
+      strokes = await readStrokeFile(strokesFile);
+    } catch (e) {
+      if (!(e instanceof StrokeFileError)) throw e;
+      process.stderr.write(`kitwright catalogue: ${e.message}\n`);
+      return 2;
+    }
+  }
+  const { catalogue, refused } = await catalogueFolder(folder, curve, strokes);
   if (format === "json") process.stdout.write(JSON.stringify({ folder: positional[0], ...catalogue, refused }, null, 2) + "\n");
   else if (format === "csv") process.stdout.write(toCsv(catalogue, refused));
   else process.stdout.write(toText(catalogue, refused, positional[0]!));

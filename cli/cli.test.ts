@@ -102,7 +102,7 @@ describe("kitwright suggest on a generated five-piece folder", () => {
   }, 120_000);
   afterAll(() => fs.rmSync(kitDir, { recursive: true, force: true }));
 
-  it("prints a kitwright.layout/v1 file for a 4x6 grid, hats on both sides of the snare, every pad aimed, reasons on stderr", async () => {
+  it("prints a kitwright.layout/v2 file for a 4x6 grid, hats on both sides of the snare, every pad aimed, reasons on stderr", async () => {
     const r = await kitwright("suggest", "--surface", "4x6", "--catalogue", kitDir);
     expect([0, 1]).toContain(r.code);
     const file = parseLayoutFile(JSON.parse(r.stdout));

@@ -12,13 +12,16 @@ const USAGE = `usage: kitwright <command> [options]
 
 commands:
   measure <files or folders> [--json | --csv]     measure WAV one-shots, list refused files with reasons
-  catalogue <folder> [--json | --csv]             sort a folder into instruments, articulations, layers
-  audit --layout <file|template> --catalogue <folder> [--kit <kit.json>] ${audit.OUTPUT_USAGE}
+  catalogue <folder> [--json | --csv] [--strokes <strokes.json>]
+                                                  sort a folder into instruments, articulations, layers
+  audit --layout <file|template> --catalogue <folder> [--kit <kit.json>] [--strokes <strokes.json>] ${audit.OUTPUT_USAGE}
                                                   audit a pad layout against a catalogued folder
-  suggest --surface <rows>x<cols> --catalogue <folder> [--kit <kit.json>]
+  suggest --surface <rows>x<cols> --catalogue <folder> [--kit <kit.json>] [--strokes <strokes.json>]
                                                   suggest a layout for a pad grid (or --zones a,b,c) and a kit
   upload <folder or .zip> --library <id> --server <url> [--jobs N]
                                                   send WAV files to a library (token in $KITWRIGHT_TOKEN)
+
+--strokes: a studio's own strokes (a kitwright.strokes/v1 file); "kitwright <command> --help" says more
 `;
 
 export async function main(argv: string[]): Promise<number> {

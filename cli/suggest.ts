@@ -1,21 +1,24 @@
 // kitwright suggest --surface <rows>x<cols> | --zones <"kick head,snare head,..."> --catalogue <folder | catalogue.json>
-//                   [--kit <kit.json>] [--stand-ins] [--name <name>] [--channel <1-16>]
+//                   [--kit <kit.json>] [--strokes <strokes.json>] [--stand-ins] [--name <name>] [--channel <1-16>]
 // Suggests a layout for a pad surface and a kit (lib/audit/suggest.ts) and prints it as a Kitwright layout
-// file (kitwright.layout/v1) on standard output; the reason for every pad, and what did not fit, go to
-// standard error. Without --kit, the kit holds every instrument of the catalogue.
+// file (kitwright.layout/v2) on standard output; the reason for every pad, and what did not fit, go to
+// standard error. Without --kit, the kit holds every instrument of the catalogue. The studio's own strokes (the
+// kit file's, then --strokes) sort a catalogued folder's names; the layout carries those it aims at.
 
 import { buildDefaultKit } from "../lib/audit/kits";
 import { MAX_GRID_PADS, MAX_ZONE_PADS, layoutToFile, parseKitFile, SchemaError } from "../lib/audit/schema";
 import { suggestLayout, type SuggestSurface } from "../lib/audit/suggest";
 import type { Kit } from "../lib/audit/types";
 import { loadCatalogue, readJson, UsageError } from "./audit";
+import { mergeStrokes, readStrokeFile, StrokeFileError, STROKES_HELP, STROKES_USAGE } from "./strokes";
 
 const USAGE = `usage: kitwright suggest (--surface <rows>x<cols> | --zones <zone,zone,...>) --catalogue <folder | catalogue.json>
-                         [--kit <kit.json>] [--stand-ins] [--name <name>] [--channel <1-16>]
+                         [--kit <kit.json>] [${STROKES_USAGE}] [--stand-ins] [--name <name>] [--channel <1-16>]
 
-Prints a suggested layout (a kitwright.layout/v1 file) for a grid of pads or a list of named trigger zones,
+Prints a suggested layout (a kitwright.layout/v2 file) for a grid of pads or a list of named trigger zones,
 with the reason for each pad on standard error. Without --kit the kit holds every catalogued instrument.
   --stand-ins   also place a main strike the kit never recorded, marked as a stand-in
+${STROKES_HELP}
 exit status: 0 everything placed, 1 some strokes did not fit (listed), 2 bad input
 `;
 
@@ -23,6 +26,7 @@ interface Options {
   surface: SuggestSurface;
   catalogue: string;
   kit: string | null;
+  strokes: string | null;
   standIns: boolean;
   name: string | null;
   channel: number;
@@ -40,7 +44,7 @@ export function parseSurface(text: string): SuggestSurface {
 
 function parseArgs(args: string[]): Options | "help" {
   let surface: SuggestSurface | null = null;
-  const o: Omit<Options, "surface" | "catalogue"> & { catalogue?: string } = { kit: null, standIns: false, name: null, channel: 10 };
+  const o: Omit<Options, "surface" | "catalogue"> & { catalogue?: string } = { kit: null, strokes: null, standIns: false, name: null, channel: 10 };
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
     const value = () => {
@@ -56,6 +60,7 @@ function parseArgs(args: string[]): Options | "help" {
       surface = { kind: "zones", zones };
     } else if (a === "--catalogue" || a === "--catalog") o.catalogue = value();
     else if (a === "--kit") o.kit = value();
+    else if (a === "--strokes") o.strokes = value();
     else if (a === "--stand-ins") o.standIns = true;
     else if (a === "--name") o.name = value();
     else if (a === "--channel") {
@@ -77,17 +82,21 @@ export async function run(args: string[]): Promise<number> {
       process.stdout.write(USAGE);
       return 0;
     }
-    const catalogue = await loadCatalogue(opts.catalogue, warn);
-    const kit: Kit = opts.kit
-      ? parseKitFile(await readJson(opts.kit, "kit"))
-      : buildDefaultKit({ id: "all", name: "all", surface: { kind: "zones" }, pads: [], hiHatPedal: null, slots: [] }, catalogue, "Every catalogued instrument");
-    const s = suggestLayout(opts.surface, kit, catalogue, { standIns: opts.standIns, channel: opts.channel, ...(opts.name ? { name: opts.name } : {}) });
-    process.stdout.write(JSON.stringify(layoutToFile(s.layout), null, 2) + "\n");
+    // the --strokes file first: a bad one stops before anything is read or written
+    const given = opts.strokes ? await readStrokeFile(opts.strokes) : [];
+    const kitFile = opts.kit ? parseKitFile(await readJson(opts.kit, "kit"), { strokes: given }) : null;
+    const strokes = mergeStrokes(kitFile?.strokes, given);
+    const catalogue = await loadCatalogue(opts.catalogue, warn, strokes);
+    const kit: Kit =
+      kitFile ??
+      buildDefaultKit({ id: "all", name: "all", surface: { kind: "zones" }, pads: [], hiHatPedal: null, slots: [] }, catalogue, "Every catalogued instrument");
+    const s = suggestLayout(opts.surface, kit, catalogue, { standIns: opts.standIns, channel: opts.channel, strokes, ...(opts.name ? { name: opts.name } : {}) });
+    process.stdout.write(JSON.stringify(layoutToFile(s.layout, strokes), null, 2) + "\n");
     for (const p of s.placements) warn(`${p.padId}: ${p.reason}`);
     for (const l of s.leftOut) warn(`not placed: ${l.slotId ? `${l.slotId} ${l.articulation}: ` : ""}${l.reason}`);
     return s.leftOut.length ? 1 : 0;
   } catch (e) {
-    if (e instanceof UsageError || e instanceof SchemaError) {
+    if (e instanceof UsageError || e instanceof SchemaError || e instanceof StrokeFileError) {
       process.stderr.write(`kitwright suggest: ${e.message}\n\n${e instanceof UsageError ? USAGE : ""}`);
       return 2;
     }

@@ -13,9 +13,11 @@
 // - index defaults to the layer's position in the list, meanStrikeLufs to NaN when absent or not finite;
 //   sampleIds keeps its strings.
 // An instrument's pitchHz is a positive number or null (anything else is reported and read as null).
+// An articulation is a built-in stroke or one of the studio's own (`strokes`, lib/catalogue/strokes.ts); any other
+// is reported and its layers left out.
 
-import { isFamily } from "../catalogue/taxonomy";
 import { isKnownStroke, type StrokeList } from "../catalogue/strokes";
+import { isFamily } from "../catalogue/taxonomy";
 import { CATALOGUE_SCHEMA, parseCatalogueFile } from "./schema";
 import type { CatalogueArticulation, CatalogueInstrument, CatalogueLayer } from "./types";
 
@@ -59,10 +61,9 @@ export function readLayers(raw: unknown, where: string, problems: string[]): Cat
   return out;
 }
 
-function readArticulation(raw: unknown, where: string, problems: string[], strokes: StrokeList): CatalogueArticulation | null {
+function readArticulation(raw: unknown, where: string, problems: string[], strokes?: StrokeList | null): CatalogueArticulation | null {
   if (!isObj(raw)) return (problems.push(`${where}: not an object`), null);
   const a = str(raw.articulation);
-  // a built-in articulation or one of the studio's own strokes
   if (!a || !isKnownStroke(a, strokes)) return (problems.push(`${where}: unknown articulation ${JSON.stringify(raw.articulation)}`), null);
   return { articulation: a, mic: str(raw.mic), layers: readLayers(raw.layers, where, problems) };
 }
@@ -79,9 +80,9 @@ function readPitch(raw: unknown, where: string, problems: string[]): number | nu
  * Read a catalogue: a kitwright.catalogue/v1 document (validated by its schema, SchemaError when invalid), a bare
  * list of instruments, or an object with `instruments` (and optionally `groups`: { instrumentId|instrumentKey,
  * articulation, mic, layers }), such as catalogueSamples() returns. Instruments keep their input order.
- * Strokes are built-ins or one of `strokes` (the studio's own); others are reported and left out.
+ * `strokes`: the studio's own strokes an articulation may name besides the built-ins.
  */
-export function readCatalogue(input: unknown, strokes: StrokeList = []): CatalogueReading {
+export function readCatalogue(input: unknown, strokes?: StrokeList | null): CatalogueReading {
   if (isObj(input) && input.schema === CATALOGUE_SCHEMA) return { instruments: parseCatalogueFile(input), problems: [] };
   const problems: string[] = [];
   const list: unknown[] = Array.isArray(input) ? input : isObj(input) && Array.isArray(input.instruments) ? input.instruments : [];

@@ -29,6 +29,7 @@ export const CSV_COLUMNS = [
   "velocity_gaps",
   "min_round_robins",
   "reason",
+  "edges",
 ] as const;
 
 /** RFC 4180 field: quoted when it holds a comma, quote, CR or LF; quotes doubled. Formula-leading text is prefixed with '. */
@@ -59,21 +60,23 @@ function playCells(f: PlayFinding): unknown[] {
     gapsText(f),
     f.minRoundRobins,
     f.reason ?? "",
+    f.standIn ? f.standIn.edges.map((e) => `${e.from}>${e.to} ${e.owner}`).join("; ") : "",
   ];
 }
 
 /**
  * CSV of the findings, conflicts first. Columns: CSV_COLUMNS. `layers` lists each layer as
  * "low-high x roundRobins" separated by spaces; `velocity_gaps` lists the uncovered velocities; `path`
- * joins the stand-in path with '>'. Lines end with CRLF (RFC 4180).
+ * joins the stand-in path with '>'; `edges` names each edge of the fallback graph that path used and whose it is
+ * ("buzz-rim-shot>rim-shot studio; rim-shot>centre built-in"). Lines end with CRLF (RFC 4180).
  */
 export function auditToCsv(result: AuditResult): string {
   const rows: unknown[][] = [[...CSV_COLUMNS]];
   for (const c of result.conflicts) {
-    rows.push(["conflict", c.kind, c.padIds.join(" "), c.note, c.channel, "", "", "", "", "", "", "", "", "", "", "", "", "", c.message]);
+    rows.push(["conflict", c.kind, c.padIds.join(" "), c.note, c.channel, "", "", "", "", "", "", "", "", "", "", "", "", "", c.message, ""]);
   }
   for (const g of result.emptySlots) {
-    rows.push(["empty-slot", g.slotId, g.padIds.join(" "), "", "", "", "", "", g.slotName, "", "", "silent", "", "", "", "", "", "", `slot "${g.slotName}" is empty`]);
+    rows.push(["empty-slot", g.slotId, g.padIds.join(" "), "", "", "", "", "", g.slotName, "", "", "silent", "", "", "", "", "", "", `slot "${g.slotName}" is empty`, ""]);
   }
   const padRow = (kind: string, p: PadFinding) => [kind, p.padId, p.label, p.note, p.channel, p.row, p.col, p.zone, ...playCells(p)];
   for (const p of result.pads) rows.push(padRow("pad", p));

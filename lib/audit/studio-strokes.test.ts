@@ -5,9 +5,12 @@ import { describe, expect, it } from "vitest";
 import { parseName, parseNames } from "../catalogue/names";
 import { parseStrokeFile, strokeFile, strokeIdFromName, strokeListProblems, type StudioStroke } from "../catalogue/strokes";
 import { runAudit } from "./audit";
+import { readCatalogue } from "./catalogue-input";
+import { CSV_COLUMNS, auditToCsv } from "./export";
 import { FOREIGN_ENTRY_COST, graphEdges, resolveArticulation } from "./fallback";
 import { kitToFile, layoutToFile, parseKitFile, parseLayoutFile, SchemaError } from "./schema";
 import { proposeStrokeMap, strokeMapOverrides } from "./stroke-map";
+import { readZone } from "./suggest-zones";
 import { instrument } from "./test-catalogue";
 import type { Kit, Layout } from "./types";
 
@@ -190,5 +193,36 @@ describe("layout and kit files carry the studio's strokes (kitwright.layout/v2, 
     const chained = [{ ...throat, neighbours: [{ to: "tight-tip", cost: 1 }] }, { id: "tight-tip", name: "tight tip", families: ["cowbell" as const], words: [], neighbours: [{ to: "tip", cost: 1 }] }];
     const k2: Kit = { id: "k2", name: "K2", slots: [{ id: "b", name: "Bell", family: "cowbell", instrumentId: "cb", standIns: { throat: "shank" } }] };
     expect(kitToFile(k2, chained).kit.strokes!.map((s) => s.id)).toEqual(["throat", "tight-tip"]);
+  });
+});
+
+describe("the studio's strokes in the audit's inputs and exports", () => {
+  it("a catalogue's layer groups may name the studio's strokes; unknown ones are still refused", () => {
+    const layer = { index: 0, velocityLow: 1, velocityHigh: 127, meanStrikeLufs: -20, sampleIds: ["a"] };
+    const input = {
+      instruments: [{ id: "sn", name: "Snare", family: "snare" }],
+      groups: [{ instrumentId: "sn", articulation: "buzz-rim-shot", mic: null, layers: [layer] }, { instrumentId: "sn", articulation: "whack", mic: null, layers: [layer] }],
+    };
+    expect(readCatalogue(input).instruments[0]!.articulations).toEqual([]);
+    const r = readCatalogue(input, studio);
+    expect(r.instruments[0]!.articulations.map((a) => a.articulation)).toEqual(["buzz-rim-shot"]);
+    expect(r.problems).toEqual(['groups[1]: unknown articulation "whack"']);
+  });
+
+  it("the CSV's edges column names each edge of a stand-in's path and whose it is", () => {
+    const layout: Layout = { id: "l", name: "L", surface: { kind: "zones" }, hiHatPedal: null, pads: [pad("buzz", 38, "snare", "buzz-rim-shot"), pad("tight", 42, "hat", "tight")] };
+    const kit: Kit = { id: "k", name: "K", slots: [{ id: "snare", name: "Snare", family: "snare", instrumentId: "sn" }, { id: "hat", name: "Hats", family: "hi-hat", instrumentId: "hx" }] };
+    const hats = instrument("hx", "Hats", "hi-hat", [["quarter-open", 2, 1]]);
+    const rows = auditToCsv(runAudit(layout, kit, [catalogue[0]!, hats], { strokes: studio })).trimEnd().split("\r\n").map((l) => l.split(","));
+    const edges = CSV_COLUMNS.indexOf("edges");
+    expect(rows[0]![edges]).toBe("edges");
+    expect(rows.find((r) => r[1] === "buzz")![edges]).toBe("buzz-rim-shot>rim-shot studio");
+    // tight -> closed is the studio's edge (0.5), closed -> quarter-open the built-in one (1)
+    expect(rows.find((r) => r[1] === "tight")![edges]).toBe("tight>closed studio; closed>quarter-open built-in");
+  });
+
+  it("a trigger zone named with a studio stroke's words aims at it", () => {
+    expect(readZone("snare buzz rim")).toMatchObject({ family: "snare", articulation: "buzz" });
+    expect(readZone("snare buzz rim", studio)).toMatchObject({ family: "snare", articulation: "buzz-rim-shot" });
   });
 });

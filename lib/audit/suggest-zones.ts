@@ -7,6 +7,7 @@
 
 import munkres from "munkres-js";
 import { parseName } from "../catalogue/names";
+import type { StrokeList } from "../catalogue/strokes";
 import type { Stroke, Family } from "../catalogue/taxonomy";
 import { resolveArticulation } from "./fallback";
 import { mainStrike, noteFor, strokeWords } from "./suggest-rules";
@@ -23,9 +24,12 @@ interface ZoneReading {
 
 const CYMBALS_CRASHED: readonly Family[] = ["crash", "china", "splash"];
 
-/** What a zone name asks for. The edge zone of a crash, china or splash is where it is crashed. */
-export function readZone(zone: string): ZoneReading {
-  const info = parseName(`${zone}.wav`);
+/**
+ * What a zone name asks for (a studio's own stroke too, by its words). The edge zone of a crash, china or splash is
+ * where it is crashed.
+ */
+export function readZone(zone: string, studioStrokes?: StrokeList | null): ZoneReading {
+  const info = parseName(`${zone}.wav`, studioStrokes);
   const family = info.family;
   let articulation = info.articulation;
   if (family && CYMBALS_CRASHED.includes(family) && articulation === "edge") articulation = "crash-hit";
@@ -42,8 +46,9 @@ export function suggestForZones(
   catalogue: Catalogue,
   strokes: OfferedStroke[],
   channel: number,
+  studioStrokes?: StrokeList | null,
 ): { pads: Pad[]; placements: Placement[]; leftOut: Suggestion["leftOut"] } {
-  const readings = zones.map(readZone);
+  const readings = zones.map((z) => readZone(z, studioStrokes));
   const leftOut: Suggestion["leftOut"] = [];
   // drums: zones of one family and number
   const drums = new Map<string, ZoneReading[]>();
@@ -84,7 +89,7 @@ export function suggestForZones(
     }
     const inst = byId.get(owner.slot.instrumentId!)!;
     const recorded = inst.articulations.map((a) => a.articulation);
-    const res = resolveArticulation(inst.family, r.articulation, recorded, owner.slot.standIns);
+    const res = resolveArticulation(inst.family, r.articulation, recorded, owner.slot.standIns, studioStrokes);
     const key = `${owner.slot.id}|${r.articulation}`;
     const stroke: OfferedStroke = { ...owner, articulation: r.articulation, standInFor: res.outcome === "stand-in" ? res.plays : null };
     if (!notes.has(key)) notes.set(key, noteFor(stroke, new Set(notes.values())));

@@ -13,6 +13,7 @@
 // placed too, marked as a stand-in for the recording that plays instead (the fallback graph's choice).
 
 import munkres from "munkres-js";
+import type { StrokeList } from "../catalogue/strokes";
 import type { Stroke } from "../catalogue/taxonomy";
 import { resolveArticulation } from "./fallback";
 import { orderTomsByPitch } from "./kits";
@@ -29,6 +30,8 @@ export interface SuggestOptions {
   channel?: number;
   /** Name of the layout. */
   name?: string;
+  /** The studio's own strokes: zone names may name them, and their edges give stand-ins. */
+  strokes?: StrokeList | null;
 }
 
 /** One stroke the suggestion places, or could not place. */
@@ -89,7 +92,7 @@ export function kitStrokes(kit: Kit, catalogue: Catalogue, opts: SuggestOptions 
     const main = mainStrike(slot.family);
     const strokes: { articulation: Stroke; standInFor: Stroke | null }[] = recorded.map((a) => ({ articulation: a, standInFor: null }));
     if (!recorded.includes(main) && opts.standIns) {
-      const r = resolveArticulation(instrument.family, main, recorded, slot.standIns);
+      const r = resolveArticulation(instrument.family, main, recorded, slot.standIns, opts.strokes);
       if (r.plays) strokes.unshift({ articulation: main, standInFor: r.plays });
     }
     // the slot's main strike when recorded (or stood in for), else its first recorded stroke
@@ -263,7 +266,7 @@ export function suggestLayout(surface: SuggestSurface, kit: Kit, catalogue: Cata
   const channel = opts.channel ?? 10;
   const strokes = kitStrokes(kit, catalogue, opts);
   const { pads, placements, leftOut } =
-    surface.kind === "grid" ? suggestForGrid(surface.rows, surface.cols, strokes, opts) : suggestForZones(surface.zones, kit, catalogue, strokes, channel);
+    surface.kind === "grid" ? suggestForGrid(surface.rows, surface.cols, strokes, opts) : suggestForZones(surface.zones, kit, catalogue, strokes, channel, opts.strokes);
   const usedSlots = new Set(pads.map((p) => p.target?.slotId));
   const hiHatPedal = suggestPedal(strokes, pads, channel);
   if (hiHatPedal) usedSlots.add(hiHatPedal.slotId);

@@ -152,7 +152,7 @@ describe("audit flow in Chromium", () => {
     await page.getByTestId("pad-chart").waitFor();
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByTestId("export-csv").click()]);
     const csv = fs.readFileSync((await download.path())!, "utf8");
-    expect(csv.split("\r\n")[0]).toBe("kind,id,label,note,channel,row,col,zone,slot,instrument,requested,outcome,plays,path,cost,layers,velocity_gaps,min_round_robins,reason");
+    expect(csv.split("\r\n")[0]).toBe("kind,id,label,note,channel,row,col,zone,slot,instrument,requested,outcome,plays,path,cost,layers,velocity_gaps,min_round_robins,reason,edges");
     expect(csv).toMatch(/pad,r1c3,Bell,56,10,1,3,,Cowbell,Cowbell low,hit,direct,hit/);
     await screenshot(page, "audit-05-second-audit");
     // the printable pad chart: print media hides the controls (.no-print)

@@ -167,7 +167,7 @@ describe("exports", () => {
     expect(r.res.headers.get("content-type")).toContain("text/csv");
     expect(r.res.headers.get("content-disposition")).toMatch(/^attachment; filename=".*\.csv"/);
     const lines = (r.json as string).split("\r\n");
-    expect(lines[0]).toBe("kind,id,label,note,channel,row,col,zone,slot,instrument,requested,outcome,plays,path,cost,layers,velocity_gaps,min_round_robins,reason");
+    expect(lines[0]).toBe("kind,id,label,note,channel,row,col,zone,slot,instrument,requested,outcome,plays,path,cost,layers,velocity_gaps,min_round_robins,reason,edges");
     expect(lines[1]!.startsWith("empty-slot,")).toBe(true);
     expect(lines.filter((l) => l.startsWith("pad,"))).toHaveLength(6);
     expect(lines.find((l) => l.startsWith("pad,r1c2,"))).toContain("half-edge>centre");
