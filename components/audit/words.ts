@@ -36,7 +36,7 @@ export function playsInWords(f: PlayFinding): string {
   if (f.outcome === "direct") return `Plays the ${strokeName(f.family, f.plays)} as recorded`;
   if (f.outcome === "stand-in") {
     const s = strokeName(f.family, f.plays);
-    return f.standIn?.source === "override" ? `Plays the ${s} instead, as the kit is set to` : `Plays the ${s} instead — the nearest recorded stroke`;
+    return f.standIn?.source === "override" ? `Plays the ${s} instead, by the kit’s stroke map` : `Plays the ${s} instead — the nearest recorded stroke${f.standIn?.edges?.some((e) => e.owner === "studio") ? " (by the studio’s own closeness)" : ""}`;
   }
   return `Silent — ${silentReason(f)}`;
 }
@@ -65,9 +65,20 @@ export function playDetail(f: PlayFinding): string {
   if (f.outcome === "direct") return `${asked}: recorded${inst}, ${layers}; ${counts}${cov < 1 ? " (some velocities find no layer)" : ""}.`;
   const steps = f.standIn?.cost ?? 0;
   const how = f.standIn?.source === "override"
-    ? "the kit names this stand-in for it"
-    : `it is not recorded; the ${strokeName(f.family, f.plays)} is ${steps} step${steps === 1 ? "" : "s"} away in the ${f.family ?? "instrument"}'s closeness weights`;
+    ? "the kit’s stroke map for this slot names this stroke for it"
+    : `it is not recorded; the ${strokeName(f.family, f.plays)} is ${steps} step${steps === 1 ? "" : "s"} away in the ${f.family ?? "instrument"}'s closeness weights${edgesInWords(f)}`;
   return `${asked}: ${how}. Played${inst}, ${layers}; ${counts}.`;
+}
+
+/** The edges a stand-in's path used, and whose they are: " (via the studio's edge tight–closed)". */
+export function edgesInWords(f: Pick<PlayFinding, "standIn">): string {
+  const edges = f.standIn?.edges ?? [];
+  if (!edges.length) return "";
+  const mine = edges.filter((e) => e.owner === "studio");
+  const word = (e: { from: string; to: string }) => `${e.from.replace(/-/g, " ")}–${e.to.replace(/-/g, " ")}`;
+  if (!mine.length) return ` (via the built-in edge${edges.length === 1 ? "" : "s"} ${edges.map(word).join(", ")})`;
+  const theirs = edges.filter((e) => e.owner !== "studio");
+  return ` (via the studio’s edge${mine.length === 1 ? "" : "s"} ${mine.map(word).join(", ")}${theirs.length ? ` and the built-in ${theirs.map(word).join(", ")}` : ""})`;
 }
 
 /** Velocities no layer covers, in words ("61–79 and 127"); empty when none. */
