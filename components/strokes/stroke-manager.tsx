@@ -70,7 +70,7 @@ function StrokeForm({ studioId, list, editing, onDone }: { studioId: string; lis
         <legend className="label">Recorded on</legend>
         <div className="mt-1 flex flex-wrap gap-2">
           {FAMILIES.map((f) => (
-            <label key={f} className={`tag cursor-pointer select-none ${d.families.includes(f) ? "border-brand bg-brand-soft text-brand" : "border-line"}`}>
+            <label key={f} className={`tag cursor-pointer select-none has-[:focus-visible]:ring-2 has-[:focus-visible]:ring-brand ${d.families.includes(f) ? "border-brand bg-brand-soft text-brand" : "border-line"}`}>
               <input type="checkbox" className="sr-only" checked={d.families.includes(f)} onChange={(e) => setD({ ...d, families: e.target.checked ? FAMILIES.filter((x) => x === f || d.families.includes(x)) : d.families.filter((x) => x !== f) })} />
               {words(f)}
             </label>

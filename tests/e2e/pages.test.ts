@@ -112,6 +112,7 @@ function pages() {
     { name: "audits", url: `${st}/audits`, ready: "audits-table" },
     { name: "audit", url: `${st}/audits/${ids.auditB}`, ready: "pad-chart" },
     { name: "compare", url: `${st}/audits/compare?before=${ids.auditA}&after=${ids.auditB}`, ready: "compare-score" },
+    { name: "strokes", url: `${st}/strokes`, ready: "built-in-strokes" },
     { name: "members", url: `${st}/members`, ready: "members-table" },
     { name: "activity", url: `${st}/activity`, ready: "activity-table" },
   ];
