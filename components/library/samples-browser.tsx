@@ -9,7 +9,8 @@ import { FormError, Message } from "../form-bits";
 import { useConfirmSamples, useRelabelSamples, useSamplesPage } from "../data/samples";
 import { StateTag } from "./state-counts";
 import { SampleDetail } from "./sample-detail";
-import { ARTICULATIONS, FAMILIES } from "@/lib/catalogue/taxonomy";
+import { FAMILIES } from "@/lib/catalogue/taxonomy";
+import { allStrokes, type StrokeList } from "@/lib/catalogue/strokes";
 import { MIC_POSITIONS } from "@/lib/catalogue/names";
 import { formatConfidence } from "@/lib/catalogue/confidence";
 import type { RelabelBody, SampleRow } from "@/lib/api-types/samples";
@@ -26,7 +27,7 @@ const fmt = (x: number | null, d = 1) => (x === null || !Number.isFinite(x) ? "�
 const SRC: Record<string, string> = { name: "from the name", sound: "from the sound", person: "confirmed by a member" };
 const srcMark = (s: string | null) => (s === "person" ? "✓" : s === "sound" ? "~" : s === "name" ? "" : "");
 
-export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: { studioId: string; libraryId: string; canWrite: boolean; instruments: Inst[] }) {
+export function SamplesBrowser({ studioId, libraryId, canWrite, instruments, strokes = [] }: { studioId: string; libraryId: string; canWrite: boolean; instruments: Inst[]; strokes?: StrokeList }) {
   const sp = useSearchParams();
   const router = useRouter();
   const pathname = usePathname();
@@ -129,13 +130,13 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments }: {
           )}
         </div>
         <Select id="f-family" label="Family" value={sp.get("family")} options={FAMILIES} onChange={(v) => setParams({ family: v })} />
-        <Select id="f-art" label="Articulation" value={sp.get("articulation")} options={ARTICULATIONS} onChange={(v) => setParams({ articulation: v })} />
+        <Select id="f-art" label="Articulation" value={sp.get("articulation")} options={allStrokes(strokes)} onChange={(v) => setParams({ articulation: v })} />
         <Select id="f-state" label="State" value={sp.get("state")} options={SAMPLE_STATES} onChange={(v) => setParams({ state: v })} />
         <Select id="f-inst" label="Instrument" value={sp.get("instrument")} options={instruments.map((i) => i.key)} labels={Object.fromEntries(instruments.map((i) => [i.key, i.name]))} onChange={(v) => setParams({ instrument: v })} />
         <label className="flex items-center gap-2 pb-2"><input type="checkbox" checked={sp.get("flag") === "conflict"} onChange={(e) => setParams({ flag: e.target.checked ? "conflict" : null })} /> Only flagged for review</label>
       </div>
 
-      {canWrite && <BulkBar studioId={studioId} libraryId={libraryId} selected={[...selected]} instruments={instruments} onDone={() => setSelected(new Set())} onSelectPage={() => setSelected(new Set(allOnPage))} onClear={() => setSelected(new Set())} />}
+      {canWrite && <BulkBar studioId={studioId} libraryId={libraryId} selected={[...selected]} instruments={instruments} strokes={strokes} onDone={() => setSelected(new Set())} onSelectPage={() => setSelected(new Set(allOnPage))} onClear={() => setSelected(new Set())} />}
 
       <div className={openId ? "grid items-start gap-3 xl:grid-cols-[minmax(0,1fr)_380px]" : ""}>
         <div className="card table-scroll min-w-0 p-0">
@@ -210,7 +211,7 @@ function Select({ id, label, value, options, labels, onChange }: { id: string; l
   );
 }
 
-function BulkBar({ studioId, libraryId, selected, instruments, onDone, onSelectPage, onClear }: { studioId: string; libraryId: string; selected: string[]; instruments: Inst[]; onDone: () => void; onSelectPage: () => void; onClear: () => void }) {
+function BulkBar({ studioId, libraryId, selected, instruments, strokes, onDone, onSelectPage, onClear }: { studioId: string; libraryId: string; selected: string[]; instruments: Inst[]; strokes: StrokeList; onDone: () => void; onSelectPage: () => void; onClear: () => void }) {
   const [family, setFamily] = useState("");
   const [art, setArt] = useState("");
   const [mic, setMic] = useState("");
@@ -235,7 +236,7 @@ function BulkBar({ studioId, libraryId, selected, instruments, onDone, onSelectP
       <div className="flex flex-wrap items-end gap-3">
         <span className="pb-2"><span className="num">{selected.length}</span> selected · <button type="button" className="text-brand hover:underline" onClick={onSelectPage}>select this page</button>{selected.length > 0 && <> · <button type="button" className="text-brand hover:underline" onClick={onClear}>clear</button></>}</span>
         <Select id="b-family" label="Set family" value={family || null} options={FAMILIES} onChange={(v) => setFamily(v ?? "")} />
-        <Select id="b-art" label="Set articulation" value={art || null} options={ARTICULATIONS} onChange={(v) => setArt(v ?? "")} />
+        <Select id="b-art" label="Set articulation" value={art || null} options={allStrokes(strokes)} onChange={(v) => setArt(v ?? "")} />
         <Select id="b-mic" label="Set mic" value={mic || null} options={["none", ...MIC_POSITIONS]} onChange={(v) => setMic(v ?? "")} />
         <Select id="b-inst" label="Move to instrument" value={inst || null} options={instruments.map((i) => i.key)} labels={Object.fromEntries(instruments.map((i) => [i.key, i.name]))} onChange={(v) => setInst(v ?? "")} />
         <button type="button" className="btn-primary" disabled={!selected.length || none || relabel.isPending} onClick={doRelabel}>Relabel {selected.length || ""}</button>

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { loadStudioStrokes } from "@/lib/server/strokes";
 import { Suspense } from "react";
 import { requireStudio } from "@/lib/server/session";
 import { getLibrary, libraryProgress } from "@/lib/server/catalogue/libraries";
@@ -15,7 +16,7 @@ export default async function LibraryPage({ params }: { params: Promise<{ studio
   const { studioId, libraryId } = await params;
   const { studio } = await requireStudio(studioId);
   const lib = await getLibrary({ studioId: studio.id, libraryId });
-  const [instruments, progress] = await Promise.all([listInstruments({ studioId: studio.id, libraryId }), libraryProgress({ studioId: studio.id, libraryId })]);
+  const [instruments, progress, strokes] = await Promise.all([listInstruments({ studioId: studio.id, libraryId }), libraryProgress({ studioId: studio.id, libraryId }), loadStudioStrokes(studio.id)]);
   const write = can(studio.role, "studio:write");
   return (
     <>
@@ -26,7 +27,7 @@ export default async function LibraryPage({ params }: { params: Promise<{ studio
         {write && <Uploader studioId={studio.id} libraryId={lib.id} />}
       </div>
       <Suspense fallback={<div className="card text-sm text-muted">Loading samples…</div>}>
-        <SamplesBrowser studioId={studio.id} libraryId={lib.id} canWrite={write} instruments={instruments.map((i) => ({ key: i.key, name: i.name, family: i.family }))} />
+        <SamplesBrowser studioId={studio.id} libraryId={lib.id} canWrite={write} instruments={instruments.map((i) => ({ key: i.key, name: i.name, family: i.family }))} strokes={strokes} />
       </Suspense>
     </div>
     </>
