@@ -6,6 +6,7 @@
 // accounts with known passwords, members added without an invitation mail).
 import { db, closeDb } from "../lib/server/db";
 import { createStudio } from "../lib/server/studios";
+import { createStroke } from "../lib/server/strokes";
 import { findUserByEmail } from "../lib/server/auth/accounts";
 import { addMember, createUser } from "./factories";
 import { DEMO_ACCOUNTS, DEMO_STUDIO } from "./demo-accounts";
@@ -23,6 +24,9 @@ async function main() {
   }
   const studio = await createStudio({ userId: users[0].id, name: DEMO_STUDIO });
   for (const u of users.slice(1)) await addMember(db(), { studioId: studio.id, userId: u.id, role: u.role });
+  // two strokes of the studio's own (the Strokes page): what this room records beyond the built-in list
+  await createStroke({ studioId: studio.id, actorId: users[0].id, input: { name: "Buzz rim shot", families: ["snare"], words: ["buzz rim", "buzzrim"], neighbours: [{ to: "rim-shot", cost: 0.5 }, { to: "buzz", cost: 1 }] } });
+  await createStroke({ studioId: studio.id, actorId: users[0].id, input: { name: "Grab", families: ["crash", "ride", "china", "splash"], words: ["grab", "grabbed"], neighbours: [{ to: "choke", cost: 0.5 }] } });
   process.stdout.write(`demo seed: created "${DEMO_STUDIO}" with ${users.length} members\n`);
 }
 
