@@ -229,7 +229,7 @@ function KitView({ kit, instruments }: { kit: Kit; instruments: InstrumentChoice
       <ViewOnlyNote what="this kit" />
       {kit.slots.length === 0 ? <p className="text-sm text-muted">This kit has no slots yet.</p> : (
         <div className="card p-0">
-          <div className={`hidden px-4 py-2 text-xs font-medium text-muted ${grid}`} aria-hidden><span>Slot</span><span>Expects</span><span>Instrument</span><span>Stand-in overrides</span></div>
+          <div className={`hidden px-4 py-2 text-xs font-medium text-muted ${grid}`} aria-hidden><span>Slot</span><span>Expects</span><span>Instrument</span><span>Stroke map</span></div>
           <ol className="text-sm" data-testid="kit-slots" aria-label="Slots of the kit">
             {kit.slots.map((s, i) => {
               const inst = s.instrumentId ? byId.get(s.instrumentId) : undefined;
@@ -248,7 +248,7 @@ function KitView({ kit, instruments }: { kit: Kit; instruments: InstrumentChoice
                       : <>{instLabel(inst)}<span className="block text-xs text-muted">Recorded: {inst.articulations.join(", ") || "nothing yet"}</span></>}
                     {inst && inst.family !== s.family && <span className="block text-xs text-warn">⚠ a {inst.family} in a {s.family} slot</span>}
                   </div>
-                  <p className={`pl-8 text-xs md:pl-0 ${overrides.length ? "" : "hidden md:block"}`}><span className="md:hidden">Stand-in overrides: </span>{overrides.length ? overrides.map(([req, play]) => `${req} → ${play}`).join(", ") : <span className="text-muted">none</span>}</p>
+                  <p className={`pl-8 text-xs md:pl-0 ${overrides.length ? "" : "hidden md:block"}`}><span className="md:hidden">Stroke map: </span>{overrides.length ? overrides.map(([req, play]) => `${req} → ${play}`).join(", ") : <span className="text-muted">none</span>}</p>
                 </li>
               );
             })}

@@ -6,13 +6,14 @@ import { suggestLayout, type SuggestSurface } from "@/lib/audit/suggest";
 import type { SuggestLayoutAnswer } from "@/lib/api-types/layouts";
 import { AppError } from "../errors";
 import { loadStudioCatalogue } from "./catalogue-for-audit";
+import { loadStudioStrokes } from "../strokes";
 import { getKit } from "./kits";
 
 export async function suggestForKit({ studioId, kitId, surface, standIns, name }: { studioId: string; kitId: string; surface: SuggestSurface; standIns?: boolean; name?: string }): Promise<SuggestLayoutAnswer> {
   const kit = await getKit({ studioId, kitId });
   const ids = kit.kit.slots.map((s) => s.instrumentId).filter((x): x is string => !!x);
-  const catalogue = await loadStudioCatalogue({ studioId, instrumentIds: ids });
-  const s = suggestLayout(surface, kit.kit, catalogue, { standIns, name: name ?? `${kit.name} — suggested` });
+  const [catalogue, strokes] = await Promise.all([loadStudioCatalogue({ studioId, instrumentIds: ids }), loadStudioStrokes(studioId)]);
+  const s = suggestLayout(surface, kit.kit, catalogue, { standIns, strokes, name: name ?? `${kit.name} — suggested` });
   if (s.layout.pads.length === 0) {
     throw new AppError("invalid-input", `The kit "${kit.name}" has no recorded instrument in its slots yet: fill a slot first, then ask again.`);
   }
