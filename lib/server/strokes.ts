@@ -11,7 +11,7 @@ import { AppError, notFound } from "./errors";
 import { logActivity } from "./activity";
 import { jsonColumn } from "./json-column";
 import { enqueueCataloguing } from "./catalogue/queue";
-import { findStroke, isKnownStroke, strokeIdFromName, strokeListProblems, tidyStroke, type StudioStroke } from "@/lib/catalogue/strokes";
+import { findStroke, isKnownStroke, MAX_STUDIO_STROKES, strokeIdFromName, strokeListProblems, tidyStroke, type StudioStroke } from "@/lib/catalogue/strokes";
 import { FAMILY_ARTICULATIONS, isArticulation, type Family } from "@/lib/catalogue/taxonomy";
 import type { Kit, Layout } from "@/lib/audit/types";
 import type { StrokeInput, StrokeListAnswer, StrokeUses } from "@/lib/api-types/strokes";
@@ -64,6 +64,7 @@ export async function createStroke({ studioId, actorId, input }: { studioId: str
   const libs = await db().transaction(async (trx) => {
     await trx("studios").where({ id: studioId }).forUpdate().first("id");
     const list = await loadStudioStrokes(studioId, trx);
+    if (list.length >= MAX_STUDIO_STROKES) throw invalid([{ path: ["name"], message: `A studio keeps at most ${MAX_STUDIO_STROKES} strokes of its own.` }]);
     checkList(list, stroke, null);
     const [{ n }] = (await trx("studio_strokes").where({ studio_id: studioId }).max({ n: "position" })) as [{ n: number | null }];
     await trx("studio_strokes").insert({
