@@ -209,29 +209,33 @@ function checkUses(what: string, uses: { stroke: string; path: (string | number)
   if (bad.length) throw new SchemaError(what, bad.map((u) => `${u.path.join(".")}: no stroke "${u.stroke}" (neither built-in nor among the file's or the studio's strokes)`));
 }
 
+/** Parse a v2 (or v1) file whose document carries strokes: the schema, then every stroke it names (see below). */
+function parseStrokeDoc<D extends { strokes?: StudioStroke[] }>(
+  input: unknown,
+  ctx: StrokeContext,
+  what: string,
+  schema: z.ZodType<{ schema: string } & Record<string, unknown>>,
+  key: string,
+  uses: (doc: D) => { stroke: string; path: (string | number)[] }[],
+): D {
+  const data = parseWith(schema, what, fromText(input, what));
+  const doc = data[key] as D;
+  checkUses(what, uses(doc), knownStrokes(what, data.schema, doc.strokes, ctx));
+  if (doc.strokes) doc.strokes = doc.strokes.map(tidyStroke);
+  return doc;
+}
+
 /**
  * Parse a layout file (JSON text or parsed value) of schema kitwright.layout/v2 (or v1). Every stroke it names
  * must be built-in, one of the file's own `strokes` or one of `ctx.strokes`; the layout keeps the file's own list.
  */
 export function parseLayoutFile(input: unknown, ctx: StrokeContext = {}): Layout {
-  const what = `${LAYOUT_SCHEMA} file`;
-  const data = parseWith(layoutFileSchema, what, fromText(input, what));
-  const known = knownStrokes(what, data.schema, data.layout.strokes, ctx);
-  checkUses(what, layoutStrokeUses(data.layout as Layout), known);
-  const layout = data.layout as Layout;
-  if (layout.strokes) layout.strokes = layout.strokes.map(tidyStroke);
-  return layout;
+  return parseStrokeDoc<Layout>(input, ctx, `${LAYOUT_SCHEMA} file`, layoutFileSchema, "layout", layoutStrokeUses);
 }
 
 /** Parse a kit file (JSON text or parsed value) of schema kitwright.kit/v2 (or v1); strokes checked as for layouts. */
 export function parseKitFile(input: unknown, ctx: StrokeContext = {}): Kit {
-  const what = `${KIT_SCHEMA} file`;
-  const data = parseWith(kitFileSchema, what, fromText(input, what));
-  const known = knownStrokes(what, data.schema, data.kit.strokes, ctx);
-  checkUses(what, kitStrokeUses(data.kit as Kit), known);
-  const kit = data.kit as Kit;
-  if (kit.strokes) kit.strokes = kit.strokes.map(tidyStroke);
-  return kit;
+  return parseStrokeDoc<Kit>(input, ctx, `${KIT_SCHEMA} file`, kitFileSchema, "kit", kitStrokeUses);
 }
 
 /**
