@@ -185,7 +185,7 @@ export function StrokeManager({ studioId, initial, canWrite }: { studioId: strin
               ))}
             </ul>
           )}
-          <p className="text-sm"><a href={paths.strokesFile(studioId)} download>Download the stroke list</a> <span className="text-muted">(for <code>kitwright catalogue|audit|suggest --strokes</code>)</span></p>
+          <p className="text-sm"><a className="underline" href={paths.strokesFile(studioId)} download>Download the stroke list</a> <span className="text-muted">(for <code>kitwright catalogue|audit|suggest --strokes</code>)</span></p>
         </div>
         {done && <Message kind="ok">{done}</Message>}
         {canWrite && <StrokeForm key={editing?.id ?? "new"} studioId={studioId} list={data.strokes} editing={editing} onDone={() => { setDone(editing ? "Stroke saved. The libraries are being catalogued again." : "Stroke added. The libraries are being catalogued again, so files named with its words move into it."); setEditing(null); }} />}
