@@ -2,7 +2,7 @@
 // Upload: drop files, whole folders (relative paths kept) or .zip packs, or pick them. Each file goes in its own
 // request (three at a time, sent by components/data/uploads.ts) so every file has its own progress bar; the
 // batch bar sums the bytes sent. At the end a summary: queued for measuring / duplicates / refused with reasons.
-import { useCallback, useRef, useState } from "react";
+import { useCallback, useEffect, useRef, useState } from "react";
 import { useUploads } from "../data/uploads";
 
 interface Item { id: number; file: File; path: string; loaded: number; state: "waiting" | "sending" | "done" | "failed"; results: { name: string; status: string; reason?: string }[] }
@@ -34,6 +34,9 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
   const [items, setItems] = useState<Item[]>([]);
   const [over, setOver] = useState(false);
   const [running, setRunning] = useState(false);
+  // set once the inputs have their handlers (hydrated): browser tests wait for it before choosing files
+  const [ready, setReady] = useState(false);
+  useEffect(() => setReady(true), []);
   const seq = useRef(0);
   const uploads = useUploads(studioId, libraryId);
 
@@ -102,7 +105,7 @@ export function Uploader({ studioId, libraryId }: { studioId: string; libraryId:
   const failedCount = items.filter((i) => i.state === "failed").length;
 
   return (
-    <section className="card space-y-3" id="add-samples" data-testid="uploader">
+    <section className="card space-y-3" id="add-samples" data-testid="uploader" data-ready={ready ? "" : undefined}>
       <h3 className="font-semibold">Add samples</h3>
       <div
         onDragOver={(e) => {

@@ -65,6 +65,11 @@ export async function choose(control: Locator, option: string | { label: string 
   await list.waitFor({ state: "detached" });
 }
 
+/** Wait until the library page's uploader is hydrated (its inputs have their handlers; files set earlier are lost). */
+export async function uploaderReady(page: Page): Promise<void> {
+  await page.locator('[data-testid="uploader"][data-ready]').waitFor();
+}
+
 /** The value chosen in one of the app's selects ("" for none), as a native select's inputValue() gives it. */
 export async function chosen(control: Locator): Promise<string> {
   return (await control.getAttribute("data-value")) ?? "";

@@ -8,7 +8,7 @@ import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { BASE, launch, screenshot, signIn, choose, chosen } from "./browser";
+import { BASE, launch, screenshot, signIn, choose, chosen, uploaderReady } from "./browser";
 import { db } from "@/lib/server/db";
 import { addMember, createStudio, createUser } from "@/db/factories";
 import { hiHat, kick, snare, tom } from "@/lib/synth/drums";
@@ -97,6 +97,7 @@ describe("the guided path", () => {
     await shots(page, "02-empty-library");
     await follow(page);
     await expect.poll(() => page.url()).toMatch(/#add-samples$/);
+    await uploaderReady(page);
     await page.getByTestId("folder-input").setInputFiles(root);
     await page.getByTestId("upload-summary").waitFor({ timeout: 60_000 });
     expect(await page.getByTestId("upload-summary").textContent()).toContain("16 queued for measuring");

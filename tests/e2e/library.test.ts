@@ -6,7 +6,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import type { Browser, Page } from "playwright-core";
-import { BASE, choose, launch, screenshot, signIn } from "./browser";
+import { BASE, choose, launch, screenshot, signIn, uploaderReady } from "./browser";
 import { db, closeDb } from "@/lib/server/db";
 import { addMember, createStudio, createUser } from "@/db/factories";
 import { encodeWav } from "@/lib/audio/encode";
@@ -63,6 +63,8 @@ describe("library in the browser", () => {
     await page.getByRole("button", { name: "Create library" }).click();
     await page.waitForURL(/\/libraries\/[0-9a-f-]{36}$/);
     await expect.poll(() => page.getByTestId("library-name").textContent()).toBe(`Room kit ${tag}`);
+
+    await uploaderReady(page);
 
     await page.getByTestId("folder-input").setInputFiles(root);
     await page.getByTestId("upload-summary").waitFor({ timeout: 60_000 });

@@ -11,7 +11,7 @@ import path from "node:path";
 import { createRequire } from "node:module";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, BrowserContext, Page } from "playwright-core";
-import { BASE, launch, signIn } from "./browser";
+import { BASE, launch, signIn, uploaderReady } from "./browser";
 import { db } from "@/lib/server/db";
 import { encodeWav } from "@/lib/audio/encode";
 import { makeStudioWithRoles, type TestUser } from "../integration/helpers";
@@ -77,6 +77,7 @@ beforeAll(async () => {
     for (let v = 1; v <= 3; v++) for (let rr = 1; rr <= 2; rr++) files.push({ name: `${drum.split(" ")[0].toLowerCase()}_${drum.split(" ")[1]}_v${v}_rr${rr}.wav`, mimeType: "audio/wav", buffer: hit(k++ * 977, freq, 0.12 * v * v, decay) });
   // the input's handler exists once the page is hydrated: on a cold server files set earlier are lost
   await page.waitForLoadState("networkidle");
+  await uploaderReady(page);
   await page.getByTestId("file-input").setInputFiles(files);
   await page.getByTestId("upload-summary").waitFor({ timeout: 60_000 });
   await until(async () => (await page.getByTestId("count-catalogued").locator("dd").textContent()) === String(files.length), 120_000, "all files catalogued");

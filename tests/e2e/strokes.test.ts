@@ -5,7 +5,7 @@
 // map for the cowbell sitting in a snare slot. Files come from our own synthesizer (lib/synth).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { BASE, choose, launch, screenshot, signIn } from "./browser";
+import { BASE, choose, launch, screenshot, signIn, uploaderReady } from "./browser";
 import { db } from "@/lib/server/db";
 import { makeStudioWithRoles } from "../integration/helpers";
 import { makeLibrary } from "../integration/audit/helpers";
@@ -65,6 +65,7 @@ describe("strokes of a studio's own", () => {
 
     // upload two cowbell hits, one named by a built-in stroke, one by the studio's own
     await page.goto(`${BASE}/s/${s.studio.id}/libraries/${libraryId}`);
+    await uploaderReady(page);
     await page.getByTestId("file-input").setInputFiles([
       { name: "cowbell_tip_1.wav", mimeType: "audio/wav", buffer: bell(`${tag}-tip`, 100) },
       { name: "cowbell_throat_1.wav", mimeType: "audio/wav", buffer: bell(`${tag}-throat`, 95) },

@@ -6,7 +6,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import type { Browser } from "playwright-core";
-import { BASE, launch, signIn } from "./browser";
+import { BASE, launch, signIn, uploaderReady } from "./browser";
 import { db, closeDb } from "@/lib/server/db";
 import { createStudio, createUser } from "@/db/factories";
 import { encodeWav } from "@/lib/audio/encode";
@@ -42,6 +42,7 @@ describe("upload retry", () => {
     await page.waitForURL(/\/libraries\/[0-9a-f-]{36}$/);
 
     await page.route("**/uploads", (route) => route.abort("connectionreset"));
+    await uploaderReady(page);
     await page.getByTestId("file-input").setInputFiles([path.join(dir, "tom_v1.wav"), path.join(dir, "tom_v2.wav")]);
     await page.getByTestId("upload-failed").waitFor({ timeout: 30_000 });
     expect(await page.getByTestId("upload-failed").textContent()).toMatch(/2 files did not get through/);
