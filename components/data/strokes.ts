@@ -7,6 +7,8 @@ import type { StudioStroke } from "@/lib/catalogue/strokes";
 import type { StrokeInput, StrokeListAnswer, StrokeUses, UpdateStrokeRequest } from "@/lib/api-types/strokes";
 
 export const strokeKeys = {
+  /** The list and every uses answer of a studio (invalidated together after a change). */
+  all: (studioId: string) => ["strokes", studioId] as const,
   list: (studioId: string) => ["strokes", studioId] as const,
   uses: (studioId: string, strokeId: string) => ["strokes", studioId, "uses", strokeId] as const,
 };
@@ -25,7 +27,7 @@ export function useStrokeUses(studioId: string, strokeId: string | null) {
 
 function useStrokesChanged(studioId: string) {
   const qc = useQueryClient();
-  return () => void qc.invalidateQueries({ queryKey: ["strokes", studioId] });
+  return () => void qc.invalidateQueries({ queryKey: strokeKeys.all(studioId) });
 }
 
 export function useAddStroke(studioId: string) {
