@@ -1,8 +1,11 @@
 // The features the trained sound model reads from a measurement (lib/audio's Measurement record): the
 // spectral shape of the strike (first 80 ms) and of the body, their contrast, the decay, pitch, attack and
 // noise. Everything is level-free (a soft and a hard hit differ by what the sound does, not by the file's
-// gain): Bark loudness is taken as each band's share of the total, MFCC 0 (overall energy) is left out,
-// the noise floor is read relative to the peak. Frequencies and times are in log2 (an octave is an octave).
+// gain): Bark loudness is taken as each band's share of the total, the noise floor is read relative to the
+// peak. The MFCCs are left out: lib/audio takes them of log(1 + energy) on a full scale of 1, where the +1
+// swamps a quiet band, so every coefficient moves with the gain (at -30 dB by several times its size).
+// Without them the model reads a quiet and a loud copy alike and did no worse on held-out recordings
+// (scripts/sound-model/README.md). Frequencies and times are in log2 (an octave is an octave).
 // Missing values (no body, no pitch, decay not measurable) become a fixed out-of-range value plus a 0/1
 // flag, since the decision trees cannot take NaN.
 
@@ -15,7 +18,6 @@ const fin = (x: number | null | undefined, dflt = 0) => (x !== null && x !== und
 
 const SPECTRAL_NAMES = [
   "log2 centroid", "log2 spread", "log2 rolloff", "flatness", "slope", "log2 zcr",
-  ...Array.from({ length: 12 }, (_, i) => `mfcc ${i + 1}`),
   ...Array.from({ length: 24 }, (_, i) => `bark ${i + 1} share`),
 ];
 
@@ -24,7 +26,6 @@ function spectral(s: SpectralSummary): number[] {
   const total = bark.reduce((a, b) => a + (Number.isFinite(b) ? b : 0), 0);
   return [
     lg(s.centroidHz), lg(s.spreadHz), lg(s.rolloffHz), fin(s.flatness), fin(s.slope) * 1e4, lg(s.zcrPerSec),
-    ...Array.from({ length: 12 }, (_, i) => fin(s.mfcc?.[i + 1])),
     ...Array.from({ length: 24 }, (_, i) => (total > 0 ? fin(bark[i]) / total : 0)),
   ];
 }

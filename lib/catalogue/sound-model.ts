@@ -7,6 +7,7 @@
 // `npm run train:sound`.
 
 import { RandomForestClassifier } from "ml-random-forest";
+import { useSweepSplits } from "./forest-split";
 import type { Articulation, Family } from "./taxonomy";
 
 export const SOUND_MODEL_FORMAT = 1;
@@ -72,6 +73,7 @@ const DEFAULTS: Required<ForestOptions> = { trees: 150, maxFeatures: 0.35, maxDe
 function trainForest(rows: { x: number[]; y: string }[], o: Required<ForestOptions>): ForestJson {
   const classes = [...new Set(rows.map((r) => r.y))].sort();
   if (classes.length === 1) return { classes, forest: null };
+  useSweepSplits();
   // repeat the rows of rare classes so every class has at least minPerClass rows
   const byClass = new Map<string, { x: number[]; y: string }[]>();
   for (const r of rows) (byClass.get(r.y) ?? byClass.set(r.y, []).get(r.y)!).push(r);

@@ -1,0 +1,81 @@
+// A faster split search for ml-cart's decision trees (the trees of ml-random-forest), same answer.
+// ml-cart's TreeNode.bestSplit tries every candidate threshold of a feature (the midpoints between sorted
+// neighbours whose classes differ) by splitting the rows anew and counting both halves: O(n^2) per feature and
+// node, minutes per forest on a few thousand rows. The sweep here sorts once and walks the candidates in order,
+// keeping the class counts of the rows below the threshold, so each candidate costs O(classes). Candidates,
+// their order, the rule "x < threshold goes left", the Gini gain and the strict "first best wins" are ml-cart's
+// (ml-cart 2.1.1, src/TreeNode.js bestSplit and featureSplit, src/utils.js giniGain); regression trees and
+// other gain functions keep ml-cart's own search. forest-split.test.ts checks it against ml-cart's search.
+
+import { RandomForestClassifier } from "ml-random-forest";
+
+interface SplitMatrix { rows: number; getRow(i: number): number[] }
+interface NodeLike { kind: string; gainFunction: string; splitFunction: string }
+export interface SplitResult { maxGain: number; maxColumn: number | undefined; maxValue: number | undefined; numberSamples: number | undefined }
+type BestSplit = (this: NodeLike, XT: SplitMatrix, y: number[]) => SplitResult;
+
+/** Gini impurity 1 - sum p^2 of class counts over m rows. */
+function gini(counts: Float64Array, m: number): number {
+  if (m === 0) return 0;
+  let s = 0;
+  for (let k = 0; k < counts.length; k++) { const p = counts[k]! / m; s += p * p; }
+  return 1 - s;
+}
+
+/** The sorted sweep: ml-cart's candidates and gain, counted incrementally. */
+export function sweepBestSplit(XT: SplitMatrix, y: number[]): SplitResult {
+  const n = y.length;
+  let K = 0;
+  for (const v of y) if (v + 1 > K) K = v + 1;
+  const total = new Float64Array(K);
+  for (const v of y) total[v]!++;
+  const parent = gini(total, n);
+  const left = new Float64Array(K);
+  const right = new Float64Array(K);
+  const order = Array.from({ length: n }, (_, i) => i);
+  let best = -Infinity;
+  let maxColumn: number | undefined, maxValue: number | undefined, numberSamples: number | undefined;
+  for (let f = 0; f < XT.rows; f++) {
+    const x = XT.getRow(f);
+    for (let i = 0; i < n; i++) order[i] = i;
+    order.sort((a, b) => x[a]! - x[b]!); // stable, as ml-cart's sort of (x, y) pairs
+    left.fill(0);
+    let p = 0; // rows with x < threshold (thresholds only grow along the sweep)
+    for (let j = 1; j < n; j++) {
+      const a = order[j - 1]!, b = order[j]!;
+      if (y[a] === y[b]) continue;
+      const v = (x[a]! + x[b]!) / 2;
+      while (p < n && x[order[p]!]! < v) { left[y[order[p]!]!]!++; p++; }
+      for (let k = 0; k < K; k++) right[k] = total[k]! - left[k]!;
+      const gain = parent - ((gini(right, n - p) * (n - p)) / n + (gini(left, p) * p) / n);
+      if (gain > best) { best = gain; maxColumn = f; maxValue = v; numberSamples = n; }
+    }
+  }
+  return { maxGain: best, maxColumn, maxValue, numberSamples };
+}
+
+let original: BestSplit | null = null;
+let nodeProto: object | null = null;
+
+/** ml-cart's own search on a Gini classification node (for the test that compares the two). */
+export function mlCartBestSplit(XT: SplitMatrix, y: number[]): SplitResult {
+  useSweepSplits();
+  const node = Object.assign(Object.create(nodeProto!), { kind: "classifier", gainFunction: "gini", splitFunction: "mean" }) as NodeLike;
+  return original!.call(node, XT, y);
+}
+
+/** Installs the sweep on the TreeNode class ml-random-forest's trees use (once). */
+export function useSweepSplits(): void {
+  if (original) return;
+  // TreeNode is not exported by ml-cart: reach it through a one-tree forest of the module ml-random-forest loads
+  const rf = new RandomForestClassifier({ nEstimators: 1, seed: 1, noOOB: true } as never);
+  rf.train([[0], [1], [2], [3]], [0, 1, 0, 1]);
+  const proto = (rf as unknown as { estimators: { root: object }[] }).estimators[0]!.root.constructor.prototype as { bestSplit: BestSplit };
+  nodeProto = proto;
+  original = proto.bestSplit;
+  const orig = original;
+  proto.bestSplit = function (this: NodeLike, XT: SplitMatrix, y: number[]) {
+    if (this.kind !== "classifier" || this.gainFunction !== "gini" || this.splitFunction !== "mean") return orig.call(this, XT, y);
+    return sweepBestSplit(XT, y);
+  };
+}
