@@ -122,6 +122,9 @@ export async function strokeUses({ studioId, strokeId }: { studioId: string; str
 /** Move every use of `from` to `to` (see the top comment). Returns the libraries whose samples moved. */
 async function moveUses(trx: Knex.Transaction, studioId: string, from: string, to: string, how: "rename" | "remove"): Promise<string[]> {
   const libs = (await trx("samples").where({ studio_id: studioId }).andWhere((q) => q.where("articulation", from).orWhere("confirmed_articulation", from)).distinct("library_id")).map((r) => r.library_id as string);
+  // a cataloguing holds its library's row while it reads and writes the samples: wait for any running one, so
+  // it cannot write back what it read before the move
+  if (libs.length) await trx("libraries").where({ studio_id: studioId }).whereIn("id", libs).forUpdate().select("id");
   await trx("samples").where({ studio_id: studioId, confirmed_articulation: from }).update({ confirmed_articulation: to, articulation: to, articulation_source: "person", updated_at: trx.fn.now(3) });
   if (how === "remove") {
     // a member decided where these go: keep it through the next cataloguing

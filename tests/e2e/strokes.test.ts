@@ -2,7 +2,8 @@
 // adds the studio's own "throat" stroke with its file-name word and its nearest stroke, uploads two cowbell hits
 // named tip and throat, and audits a layout with tip, shank and throat on pads: tip and throat play as recorded,
 // shank plays the throat through the studio's edge and the audit page says so. The kit editor proposes a stroke
-// map for the cowbell sitting in a snare slot. Files come from our own synthesizer (lib/synth).
+// map for the cowbell sitting in a snare slot. Renaming, then removing, the stroke in use shows what uses it and
+// moves its sample and pad. Files come from our own synthesizer (lib/synth).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { BASE, choose, launch, screenshot, signIn, uploaderReady } from "./browser";
@@ -118,6 +119,34 @@ describe("strokes of a studio's own", () => {
     expect(result.pads.map((p: { plays: string }) => p.plays)).toEqual(["tip", "throat", "throat"]);
     expect(result.pads[1].standIn.edges).toEqual([{ from: "shank", to: "throat", cost: 1, owner: "studio" }]);
     await screenshot(page, "strokes-audit-1440-light");
+
+    // renaming the stroke in use: the page lists what uses it and moves them with consent
+    await page.goto(`${BASE}/s/${s.studio.id}/strokes`);
+    await page.getByTestId("stroke-throat").getByRole("button", { name: "Change" }).click();
+    await page.getByTestId("stroke-form").getByLabel("Name", { exact: true }).fill("Throat tone");
+    await page.getByRole("button", { name: "Save the stroke" }).click();
+    const dialog = page.getByRole("dialog");
+    await dialog.getByTestId("stroke-uses").waitFor();
+    expect(await dialog.getByTestId("stroke-uses").textContent()).toContain(`1 sample in “Bell room ${tag}”`);
+    expect(await dialog.getByTestId("stroke-uses").textContent()).toContain(`layout “Bell pads ${tag}”: pads “Bell throat”`);
+    await screenshot(page, "strokes-rename-1440-light");
+    await dialog.getByRole("button", { name: "Rename and move them" }).click();
+    await page.getByTestId("stroke-throat-tone").waitFor();
+    const throatRow = () => db()("samples").where({ library_id: libraryId, file_name: "cowbell_throat_1.wav" }).first("articulation", "articulation_source");
+    // (the libraries are catalogued again after each change: read until that settles)
+    await expect.poll(async () => (await throatRow()).articulation, { timeout: 30_000 }).toBe("throat-tone");
+
+    // removing it: the uses move where the member says (its nearest stroke is offered first)
+    await page.getByTestId("stroke-throat-tone").getByRole("button", { name: "Remove" }).click();
+    await page.getByRole("dialog").getByTestId("stroke-uses").waitFor();
+    expect(await page.getByRole("dialog").getByLabel("Move them to").getAttribute("data-value")).toBe("shank");
+    await page.getByRole("dialog").getByRole("button", { name: "Remove and move them" }).click();
+    await page.getByRole("dialog").waitFor({ state: "detached" });
+    await expect.poll(() => page.getByTestId("studio-strokes").textContent()).toContain("None yet.");
+    await expect.poll(throatRow, { timeout: 30_000 }).toEqual({ articulation: "shank", articulation_source: "person" });
+    const lay = await db()("layouts").where({ id: l.id }).first("body");
+    const lb = typeof lay.body === "string" ? JSON.parse(lay.body) : lay.body;
+    expect(lb.pads.map((p: { target: { articulation: string } }) => p.target.articulation)).toEqual(["tip", "shank", "shank"]);
     await page.close();
   });
 });
