@@ -13,9 +13,9 @@ import { buildDefaultKit } from "../lib/audit/kits";
 import { parseKitFile, parseLayoutFile, SchemaError } from "../lib/audit/schema";
 import { TEMPLATE_NAMES, getTemplate } from "../lib/audit/templates";
 import { catalogueFolder as sortFolder } from "./catalogue";
-import type { StrokeList } from "../lib/catalogue/strokes";
+import { mergeStrokes, type StrokeList } from "../lib/catalogue/strokes";
 import type { AuditResult, CatalogueInstrument, Kit, Layout, PlayFinding } from "../lib/audit/types";
-import { edgesInWords, mergeStrokes, readStrokeFile, StrokeFileError, STROKES_HELP, STROKES_USAGE } from "./strokes";
+import { edgesInWords, readStrokeFile, StrokeFileError, STROKES_HELP, STROKES_USAGE } from "./strokes";
 
 /** Formats printed to standard output (one at a time; text when none) and formats written to a named file. */
 const STDOUT_FORMATS = EXPORT_FORMATS.filter((f) => f.cli.to === "stdout");

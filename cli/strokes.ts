@@ -3,7 +3,7 @@
 // the strokes a layout or kit file carries (the file's own definition wins over the --strokes one).
 
 import { readFile } from "node:fs/promises";
-import { STROKES_SCHEMA, parseStrokeFile, type StrokeList, type StudioStroke } from "../lib/catalogue/strokes";
+import { STROKES_SCHEMA, parseStrokeFile, type StudioStroke } from "../lib/catalogue/strokes";
 import type { StrokeEdgeUsed } from "../lib/audit/fallback";
 
 export const STROKES_USAGE = "--strokes <strokes.json>";
@@ -37,20 +37,6 @@ export async function readStrokeFile(file: string): Promise<StudioStroke[]> {
   } catch (e) {
     throw new StrokeFileError(file, (e as Error).message);
   }
-}
-
-/** Several stroke lists as one: an id keeps the definition of the first list that has it. */
-export function mergeStrokes(...lists: (StrokeList | null | undefined)[]): StudioStroke[] {
-  const out: StudioStroke[] = [];
-  const ids = new Set<string>();
-  for (const list of lists) {
-    for (const s of list ?? []) {
-      if (ids.has(s.id)) continue;
-      ids.add(s.id);
-      out.push(s);
-    }
-  }
-  return out;
 }
 
 /** The edges a stand-in's path used, in words with whose each is: "the studio's edge tight–closed". */

@@ -10,7 +10,8 @@ import { MAX_GRID_PADS, MAX_ZONE_PADS, layoutToFile, parseKitFile, SchemaError }
 import { suggestLayout, type SuggestSurface } from "../lib/audit/suggest";
 import type { Kit } from "../lib/audit/types";
 import { loadCatalogue, readJson, UsageError } from "./audit";
-import { mergeStrokes, readStrokeFile, StrokeFileError, STROKES_HELP, STROKES_USAGE } from "./strokes";
+import { readStrokeFile, StrokeFileError, STROKES_HELP, STROKES_USAGE } from "./strokes";
+import { mergeStrokes } from "../lib/catalogue/strokes";
 
 const USAGE = `usage: kitwright suggest (--surface <rows>x<cols> | --zones <zone,zone,...>) --catalogue <folder | catalogue.json>
                          [--kit <kit.json>] [${STROKES_USAGE}] [--stand-ins] [--name <name>] [--channel <1-16>]

@@ -60,7 +60,7 @@ function strokesMet(strokes: StrokeList | null, pads: readonly PlayFinding[], pe
     if (f.plays) named.add(f.plays);
     for (const a of f.standIn?.path ?? []) named.add(a);
   }
-  return strokes.filter((s) => named.has(s.id)).map((s) => ({ ...s, families: [...s.families], words: [...s.words], neighbours: s.neighbours.map((e) => ({ ...e })) }));
+  return strokes.filter((s) => named.has(s.id));
 }
 
 /** True when any pad (or the pedal chick note, or a pedal zone) would play nothing. */

@@ -8,7 +8,7 @@
 
 import { z } from "zod";
 import { FAMILIES } from "../catalogue/taxonomy";
-import { findStroke, isKnownStroke, strokeIdSchema, strokeListProblems, studioStrokeSchema, tidyStroke, type StrokeList, type StudioStroke } from "../catalogue/strokes";
+import { findStroke, isKnownStroke, MAX_STUDIO_STROKES, mergeStrokes, strokeIdSchema, strokeListProblems, studioStrokeSchema, tidyStroke, type StrokeList, type StudioStroke } from "../catalogue/strokes";
 import type { CatalogueInstrument, Kit, Layout } from "./types";
 
 export const LAYOUT_SCHEMA = "kitwright.layout/v2";
@@ -27,7 +27,8 @@ export const MAX_ZONE_PADS = 128;
 const id = z.string().min(1).max(128);
 const name = z.string().min(1).max(200);
 const articulation = strokeIdSchema;
-const strokesField = z.array(studioStrokeSchema).max(200).optional();
+/** The studio strokes a v2 file carries (their definitions; checked as a list by strokeListProblems). */
+export const strokesField = z.array(studioStrokeSchema).max(MAX_STUDIO_STROKES).optional();
 const family = z.enum(FAMILIES);
 const midi7 = z.number().int().min(0).max(127);
 const channel = z.number().int().min(1).max(16);
@@ -199,9 +200,7 @@ function knownStrokes(what: string, tag: string, own: StudioStroke[] | undefined
   if (own?.length && tag !== LAYOUT_SCHEMA && tag !== KIT_SCHEMA) throw new SchemaError(what, [`strokes: ${tag} documents carry no strokes (use the v2 schema)`]);
   const problems = strokeListProblems(own ?? []);
   if (problems.length) throw new SchemaError(what, problems.map((p) => `strokes.${p.path.join(".")}: ${p.message}`));
-  const merged = [...(own ?? []).map(tidyStroke)];
-  for (const s of ctx.strokes ?? []) if (!findStroke(merged, s.id)) merged.push(s);
-  return merged;
+  return mergeStrokes((own ?? []).map(tidyStroke), ctx.strokes);
 }
 
 function checkUses(what: string, uses: { stroke: string; path: (string | number)[] }[], known: StrokeList): void {

@@ -148,6 +148,18 @@ export function tidyStroke(s: StudioStroke): StudioStroke {
   return { id: s.id, name: s.name.trim(), families, words, neighbours: neighbours.map((e) => ({ to: e.to, cost: e.cost })) };
 }
 
+/** Several stroke lists as one: an id keeps the definition of the first list that has it. */
+export function mergeStrokes(...lists: (StrokeList | null | undefined)[]): StudioStroke[] {
+  const out: StudioStroke[] = [];
+  const ids = new Set<string>();
+  for (const s of lists.flatMap((l) => l ?? [])) {
+    if (ids.has(s.id)) continue;
+    ids.add(s.id);
+    out.push(s);
+  }
+  return out;
+}
+
 /** A studio stroke by id. */
 export function findStroke(list: StrokeList | null | undefined, id: string): StudioStroke | undefined {
   return list?.find((s) => s.id === id);
@@ -215,21 +227,22 @@ export function studioStrokeInTokens(
   f: Family | null,
 ): { stroke: StudioStroke; at: number[] } | null {
   if (!list?.length || tokens.length === 0) return null;
-  let best: { stroke: StudioStroke; at: number[] } | null = null;
+  // the word of most parts wins ("buzz rim" over "rim"), the first listed on a tie
+  let best: { stroke: StudioStroke; at: number[]; parts: number } | null = null;
   for (const s of list) {
     if (f && !s.families.includes(f)) continue;
     for (const w of s.words) {
       const parts = w.split(" ").filter(Boolean);
-      if (!parts.length) continue;
+      if (!parts.length || (best && best.parts >= parts.length)) continue;
       const glued = parts.join("");
       for (let i = 0; i < tokens.length; i++) {
-        let at: number[] | null = null;
-        if (parts.every((p, k) => tokens[i + k] === p)) at = parts.map((_p, k) => i + k);
-        else if (parts.length > 1 && tokens[i] === glued) at = [i];
-        if (at && (!best || at.length > best.at.length || (at.length === best.at.length && parts.length > 1 && best.at.length === 1))) best = { stroke: s, at };
-        if (at) break;
+        const at = parts.every((p, k) => tokens[i + k] === p) ? parts.map((_p, k) => i + k) : parts.length > 1 && tokens[i] === glued ? [i] : null;
+        if (at) {
+          best = { stroke: s, at, parts: parts.length };
+          break;
+        }
       }
     }
   }
-  return best;
+  return best && { stroke: best.stroke, at: best.at };
 }

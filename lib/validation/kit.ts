@@ -3,8 +3,8 @@
 // (kitwright.kit/v2, kitwright.layout/v2), whose own refinements (grid cells, duplicate ids) run on top.
 import { z } from "zod";
 import { FAMILIES } from "@/lib/catalogue/taxonomy";
-import { strokeIdSchema, studioStrokeSchema } from "@/lib/catalogue/strokes";
-import { KIT_SCHEMAS, LAYOUT_SCHEMAS, kitBodySchema, layoutBodySchema, MAX_GRID_PADS, MAX_ZONE_PADS, padSchema as auditPadSchema } from "@/lib/audit/schema";
+import { strokeIdSchema } from "@/lib/catalogue/strokes";
+import { KIT_SCHEMAS, LAYOUT_SCHEMAS, strokesField as carriedStrokes, kitBodySchema, layoutBodySchema, MAX_GRID_PADS, MAX_ZONE_PADS, padSchema as auditPadSchema } from "@/lib/audit/schema";
 import { TEMPLATE_NAMES } from "@/lib/audit/templates";
 import { EXPORT_FORMAT_IDS } from "@/lib/audit/export-formats";
 import { idParam } from "./studio";
@@ -13,7 +13,7 @@ const name = z.string().trim().min(1, "Give it a name.").max(160);
 const sid = z.string().min(1).max(128);
 /** A stroke id (built-in or the studio's own; the server checks it names one the studio knows). */
 const articulation = strokeIdSchema;
-const carriedStrokes = z.array(studioStrokeSchema).max(200).optional();
+
 const family = z.enum(FAMILIES);
 const midi7 = z.number().int().min(0).max(127);
 const channel = z.number().int().min(1).max(16);

@@ -31,7 +31,9 @@ function summary(r: Record<string, unknown>): AuditSummaryRow {
 export async function runAndSaveAudit({ studioId, actorId, layoutId, kitId }: { studioId: string; actorId: string; layoutId: string; kitId: string }): Promise<AuditRecord> {
   const [layout, kit] = await Promise.all([getLayout({ studioId, layoutId }), getKit({ studioId, kitId })]);
   const ids = kit.kit.slots.map((s) => s.instrumentId).filter((x): x is string => !!x);
-  const [catalogue, strokes] = await Promise.all([loadStudioCatalogue({ studioId, instrumentIds: ids }), loadStudioStrokes(studioId)]);
+  // one read of the studio's strokes: the catalogue reader and the audit both take them
+  const strokes = await loadStudioStrokes(studioId);
+  const catalogue = await loadStudioCatalogue({ studioId, instrumentIds: ids, strokes });
   const result = runAudit(layout.layout, kit.kit, catalogue, { strokes });
   const id = newId();
   await db().transaction(async (trx) => {

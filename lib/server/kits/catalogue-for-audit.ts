@@ -10,6 +10,7 @@ import { db } from "../db";
 import { jsonColumnOrNull } from "../json-column";
 import { readCatalogue } from "@/lib/audit/catalogue-input";
 import { loadStudioStrokes } from "../strokes";
+import type { StrokeList } from "@/lib/catalogue/strokes";
 import type { InstrumentChoice } from "@/lib/api-types/kits";
 import type { StudioCatalogueInstrument } from "@/lib/api-types/audits";
 
@@ -18,7 +19,7 @@ import type { StudioCatalogueInstrument } from "@/lib/api-types/audits";
  * converter could not read (rows with a family or articulation Kitwright does not know are left out and named).
  */
 export async function readStudioCatalogue(
-  { studioId, instrumentIds }: { studioId: string; instrumentIds?: readonly string[] },
+  { studioId, instrumentIds, strokes: given }: { studioId: string; instrumentIds?: readonly string[]; strokes?: StrokeList },
   k: Knex = db(),
 ): Promise<{ instruments: StudioCatalogueInstrument[]; problems: string[] }> {
   if (instrumentIds && instrumentIds.length === 0) return { instruments: [], problems: [] };
@@ -29,7 +30,7 @@ export async function readStudioCatalogue(
   const libs = [...new Set(insts.map((r) => r.library_id as string))];
   const groups = await k("layer_groups").where({ studio_id: studioId }).whereIn("library_id", libs).orderBy("id").select("library_id", "instrument_key", "articulation", "mic", "layers");
   const idByKey = new Map(insts.map((r) => [`${r.library_id}\u0000${r.key}`, r.id as string]));
-  const strokes = await loadStudioStrokes(studioId, k);
+  const strokes = given ?? (await loadStudioStrokes(studioId, k));
   const reading = readCatalogue({
     instruments: insts.map((r) => ({ id: r.id, name: r.name, family: r.family, pitchHz: r.pitch_hz === null || r.pitch_hz === undefined ? null : Number(r.pitch_hz) })),
     // groups of instruments not asked for are not read; layers that are not JSON are reported by the
@@ -45,10 +46,10 @@ export async function readStudioCatalogue(
 
 /** The studio's catalogue for lib/audit; what could not be read is logged (and left out). */
 export async function loadStudioCatalogue(
-  { studioId, instrumentIds }: { studioId: string; instrumentIds?: readonly string[] },
+  { studioId, instrumentIds, strokes }: { studioId: string; instrumentIds?: readonly string[]; strokes?: StrokeList },
   k: Knex = db(),
 ): Promise<StudioCatalogueInstrument[]> {
-  const { instruments, problems } = await readStudioCatalogue({ studioId, instrumentIds }, k);
+  const { instruments, problems } = await readStudioCatalogue({ studioId, instrumentIds, strokes }, k);
   for (const p of problems) console.warn(`[catalogue] studio ${studioId}: ${p}`);
   return instruments;
 }

@@ -12,7 +12,9 @@ export async function kitMatrix({ studioId, layoutId }: { studioId: string; layo
   const layout = await getLayout({ studioId, layoutId });
   const kits = await Promise.all((await listKits({ studioId })).map((k) => getKit({ studioId, kitId: k.id })));
   const ids = [...new Set(kits.flatMap((k) => k.kit.slots.map((s) => s.instrumentId).filter((x): x is string => !!x)))];
-  const [catalogue, strokes] = await Promise.all([loadStudioCatalogue({ studioId, instrumentIds: ids }), loadStudioStrokes(studioId)]);
+  // one read of the studio's strokes: the catalogue reader and the audit both take them
+  const strokes = await loadStudioStrokes(studioId);
+  const catalogue = await loadStudioCatalogue({ studioId, instrumentIds: ids, strokes });
   const rows = kits.map((k) => {
     const a = runAudit(layout.layout, k.kit, catalogue, { strokes });
     return {

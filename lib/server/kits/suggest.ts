@@ -12,7 +12,9 @@ import { getKit } from "./kits";
 export async function suggestForKit({ studioId, kitId, surface, standIns, name }: { studioId: string; kitId: string; surface: SuggestSurface; standIns?: boolean; name?: string }): Promise<SuggestLayoutAnswer> {
   const kit = await getKit({ studioId, kitId });
   const ids = kit.kit.slots.map((s) => s.instrumentId).filter((x): x is string => !!x);
-  const [catalogue, strokes] = await Promise.all([loadStudioCatalogue({ studioId, instrumentIds: ids }), loadStudioStrokes(studioId)]);
+  // one read of the studio's strokes: the catalogue reader and the audit both take them
+  const strokes = await loadStudioStrokes(studioId);
+  const catalogue = await loadStudioCatalogue({ studioId, instrumentIds: ids, strokes });
   const s = suggestLayout(surface, kit.kit, catalogue, { standIns, strokes, name: name ?? `${kit.name} — suggested` });
   if (s.layout.pads.length === 0) {
     throw new AppError("invalid-input", `The kit "${kit.name}" has no recorded instrument in its slots yet: fill a slot first, then ask again.`);
