@@ -12,9 +12,11 @@ import { SampleDetail } from "./sample-detail";
 import { FAMILIES } from "@/lib/catalogue/taxonomy";
 import { allStrokes, type StrokeList } from "@/lib/catalogue/strokes";
 import { MIC_POSITIONS } from "@/lib/catalogue/names";
-import { formatConfidence } from "@/lib/catalogue/confidence";
+import { formatConfidence, soundUnsure } from "@/lib/catalogue/confidence";
 import type { RelabelBody, SampleRow } from "@/lib/api-types/samples";
-import { SAMPLE_STATES } from "@/lib/validation/library";
+import { SAMPLE_FLAGS, SAMPLE_STATES, type SampleFlag } from "@/lib/validation/library";
+
+const FLAG_WORDS: Record<SampleFlag, string> = { review: "either reason", conflict: "name ≠ sound", unsure: "sound unsure" };
 import { Select as UiSelect } from "@/components/ui/select";
 import { Tip } from "@/components/ui/tooltip";
 
@@ -107,7 +109,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments, str
       { id: "truePeak", header: "True peak dBTP", cell: ({ row }) => <span className={`num ${row.original.truePeakDbtp !== null && row.original.truePeakDbtp > 0 ? "font-semibold text-bad" : ""}`}>{fmt(row.original.truePeakDbtp)}{row.original.truePeakDbtp !== null && row.original.truePeakDbtp > 0 ? " ▲" : ""}</span> },
       { id: "duration", header: "Length s", cell: ({ row }) => <span className="num">{fmt(row.original.durationSec, 2)}</span> },
       { id: "confidence", header: "Confidence", cell: ({ row }) => <span className="num" title="How sure Kitwright is of the family and articulation">{row.original.confidence === null ? "–" : formatConfidence(row.original.confidence)}</span> },
-      { id: "flags", header: "Review", cell: ({ row }) => (row.original.conflict === "strong" ? <Tip focusable content="The name and the sound disagree: check this sample"><span className="tag border-warn/40 bg-warn-soft text-warn">⚑ name ≠ sound</span></Tip> : row.original.conflict === "mild" ? <span className="text-xs text-muted" title="The sound only partly fits the name">~ check</span> : null) },
+      { id: "flags", header: "Review", cell: ({ row }) => (row.original.conflict === "strong" ? <Tip focusable content="The name and the sound disagree: check this sample"><span className="tag border-warn/40 bg-warn-soft text-warn">⚑ name ≠ sound</span></Tip> : soundUnsure(row.original.familySource, row.original.confidence) ? <Tip focusable content={`Only the sound says ${row.original.family ?? "this"}, and answers this unsure were right about ${formatConfidence(row.original.confidence)} of the time: listen, then confirm or relabel`}><span className="tag border-line-strong/40 text-muted" data-testid="unsure-tag">? sound unsure</span></Tip> : row.original.conflict === "mild" ? <span className="text-xs text-muted" title="The sound only partly fits the name">~ check</span> : null) },
     );
     return cols;
     // eslint-disable-next-line react-hooks/exhaustive-deps
@@ -133,7 +135,7 @@ export function SamplesBrowser({ studioId, libraryId, canWrite, instruments, str
         <Select id="f-art" label="Articulation" value={sp.get("articulation")} options={allStrokes(strokes)} onChange={(v) => setParams({ articulation: v })} />
         <Select id="f-state" label="State" value={sp.get("state")} options={SAMPLE_STATES} onChange={(v) => setParams({ state: v })} />
         <Select id="f-inst" label="Instrument" value={sp.get("instrument")} options={instruments.map((i) => i.key)} labels={Object.fromEntries(instruments.map((i) => [i.key, i.name]))} onChange={(v) => setParams({ instrument: v })} />
-        <label className="flex items-center gap-2 pb-2"><input type="checkbox" checked={sp.get("flag") === "conflict"} onChange={(e) => setParams({ flag: e.target.checked ? "conflict" : null })} /> Only flagged for review</label>
+        <Select id="f-flag" label="Needs review" value={sp.get("flag")} options={SAMPLE_FLAGS} labels={FLAG_WORDS} onChange={(v) => setParams({ flag: v })} />
       </div>
 
       {canWrite && <BulkBar studioId={studioId} libraryId={libraryId} selected={[...selected]} instruments={instruments} strokes={strokes} onDone={() => setSelected(new Set())} onSelectPage={() => setSelected(new Set(allOnPage))} onClear={() => setSelected(new Set())} />}

@@ -29,6 +29,11 @@ export const MEASURED_STATES = ["measured", "catalogued"] as const satisfies rea
 export const SAMPLE_SORTS = ["name", "path", "instrument", "articulation", "family", "layer", "roundRobin", "mic", "strike", "truePeak", "duration", "confidence", "state", "added"] as const;
 export type SampleSort = (typeof SAMPLE_SORTS)[number];
 
+/** Review filters: the name and the sound disagree; the sound alone gave the family and is unsure of it
+ * (lib/catalogue/confidence.ts soundUnsure); either. */
+export const SAMPLE_FLAGS = ["conflict", "unsure", "review"] as const;
+export type SampleFlag = (typeof SAMPLE_FLAGS)[number];
+
 export const samplesQuery = z.strictObject({
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
@@ -39,7 +44,7 @@ export const samplesQuery = z.strictObject({
   articulation: strokeIdSchema.optional(),
   state: z.enum(SAMPLE_STATES).optional(),
   instrument: z.string().max(191).optional(),
-  flag: z.enum(["conflict"]).optional(),
+  flag: z.enum(SAMPLE_FLAGS).optional(),
 });
 export type SamplesQuery = z.infer<typeof samplesQuery>;
 

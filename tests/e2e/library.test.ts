@@ -93,6 +93,16 @@ describe("library in the browser", () => {
     await page.getByLabel("Search paths").fill("");
     await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(12);
 
+    // review filter: every file here is named, so nothing is unsure of its sound; "either reason" lists exactly
+    // what the server counts for flag=review
+    await choose(page.getByLabel("Needs review"), { label: "either reason" });
+    await expect.poll(() => page.url()).toContain("flag=review");
+    const reviewTotal = await page.evaluate(async (u) => (await (await fetch(u)).json()).total as number, `${BASE}/api/studios/${studioId}/libraries/${page.url().match(/libraries\/([0-9a-f-]{36})/)![1]}/samples?flag=review`);
+    await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(reviewTotal);
+    expect(await page.getByTestId("unsure-tag").count()).toBe(0);
+    await choose(page.getByLabel("Needs review"), { label: "any" });
+    await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(12);
+
     // bulk relabel: the snares become rim shots (sorted by path: the 6 snares come after the 6 kicks)
     await choose(page.getByLabel("Family", { exact: true }), "snare");
     await expect.poll(async () => page.getByTestId("sample-row").count(), { timeout: 15_000 }).toBe(6);

@@ -8,6 +8,7 @@ import { notFound } from "../errors";
 import { assertLibrary, countsFor } from "./libraries";
 import { countWordMatches, pathContainsMatches, planWords, rowsCapped, searchableByWords, wherePathContains, whereWordsExist, wordMatches } from "./words";
 import type { SampleDetail, SampleRow, SamplesPage, SearchMode } from "@/lib/api-types/samples";
+import { SOUND_UNSURE_BELOW } from "@/lib/catalogue/confidence";
 
 /** A words search lists up to this many matching ids at once (more are counted, and pages walk an index). */
 const ID_LIST_MAX = 5000;
@@ -60,7 +61,11 @@ function filtered(k: Knex, studioId: string, libraryId: string, q: Omit<SamplesQ
   if (q.family) b.andWhere("s.family", q.family);
   if (q.articulation) b.andWhere("s.articulation", q.articulation);
   if (q.instrument) b.andWhere("s.instrument_key", q.instrument);
+  // the same rule as soundUnsure (lib/catalogue/confidence.ts), in SQL
+  const unsure = (w: Knex.QueryBuilder) => w.where("s.family_source", "sound").andWhere("s.confidence", "<", SOUND_UNSURE_BELOW);
   if (q.flag === "conflict") b.andWhere("s.conflict", "strong");
+  else if (q.flag === "unsure") b.andWhere(unsure);
+  else if (q.flag === "review") b.andWhere((w) => w.where("s.conflict", "strong").orWhere(unsure));
   return b;
 }
 

@@ -285,6 +285,30 @@ describe("measuring, browsing, listening, labelling", () => {
     expect(sound.confidence).toBeGreaterThan(0);
   });
 
+  it("lists samples for review: the name and sound disagree, the sound alone is unsure (under 60 %), or either", async () => {
+    const rows = await db()("samples").where({ library_id: libraryId, state: "catalogued" }).orderBy("rel_path").select("id", "rel_path", "family_source", "confidence", "conflict");
+    expect(rows.length).toBeGreaterThanOrEqual(4);
+    // set the labels' sources by hand (the next cataloguing rewrites them): one unsure sound label, one sure
+    // sound label, one name-and-sound conflict, the rest from names
+    const [unsure, sure, conflict] = rows;
+    await db()("samples").where({ id: unsure!.id }).update({ family_source: "sound", confidence: 0.41, conflict: "none" });
+    await db()("samples").where({ id: sure!.id }).update({ family_source: "sound", confidence: 0.6, conflict: "none" });
+    await db()("samples").where({ id: conflict!.id }).update({ family_source: "name", confidence: 0.3, conflict: "strong" });
+    const others = rows.slice(3).map((r) => r.id);
+    await db()("samples").whereIn("id", others).update({ family_source: "name", conflict: "none" });
+    try {
+      const list = async (flag: string) =>
+        ((await call(samplesRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, path: `/x?flag=${flag}&state=catalogued`, user: ctx.users.viewer })).json.rows as { id: string; path: string }[]).map((x) => x.id).sort();
+      expect(await list("unsure")).toEqual([unsure!.id]); // 0.6 is not under 0.6
+      expect(await list("conflict")).toEqual([conflict!.id]); // a name's low confidence is not "unsure"
+      expect(await list("review")).toEqual([unsure!.id, conflict!.id].sort());
+      const bad = await call(samplesRoute.GET, { params: { studioId: ctx.studio.id, libraryId }, path: "/x?flag=maybe", user: ctx.users.viewer });
+      expect(bad.status).toBe(422);
+    } finally {
+      await catalogueLibrary({ studioId: ctx.studio.id, libraryId });
+    }
+  });
+
   it("serves the WAV with range requests (RFC 9110: 206 exact bytes, suffix ranges, 416)", async () => {
     const file = await db()("samples").where({ id: sampleId }).first("storage_key", "size_bytes");
     const whole = fs.readFileSync(path.resolve(env().KW_STORAGE_DIR, file.storage_key));
