@@ -103,3 +103,42 @@ describe("pitch: strongest low spectral peak with parabolic interpolation", () =
     expect(lowPeakHz(noise(8192, 11), 0, 8192, fs)).toBeNull();
   });
 });
+
+describe("the frame features read up to 24 kHz: a sound at 96 kHz measures as it does at 48 kHz", () => {
+  // The same band-limited sound (sines at 180, 1250, 4300 and 11 800 Hz, each decaying, all well under 24 kHz)
+  // sampled at both rates: by the sampling theorem (Shannon 1949) both hold the same signal, so a feature that
+  // describes the sound, not the file, must agree. Frames are ~43 ms at both rates (2048 and 4096 samples: the
+  // same 23.4 Hz bins).
+  const tones = [[180, 1], [1250, 0.5], [4300, 0.25], [11800, 0.12]] as const;
+  function sound(rate: number): Float32Array {
+    const n = Math.round(rate * 0.2);
+    const x = new Float32Array(n);
+    for (let i = 0; i < n; i++) {
+      const t = i / rate;
+      let v = 0;
+      for (const [f, a] of tones) v += a * Math.exp(-t / 0.08) * Math.sin(2 * Math.PI * f * t);
+      x[i] = 0.4 * v;
+    }
+    return x;
+  }
+  const at = (rate: number) => {
+    const n = frameSizeFor(rate);
+    const an = new SpectralAnalyzer(n, rate);
+    return summarize([0, 1, 2].map((k) => an.analyze(sound(rate), k * (n / 2))), n, rate);
+  };
+  const a = at(48000);
+  const b = at(96000);
+  it("reads the same band: 1024 bins at 48 kHz (N = 2048) and the first 1024 of 2048 at 96 kHz (N = 4096)", () => {
+    expect(new SpectralAnalyzer(2048, 48000).L).toBe(1024);
+    expect(new SpectralAnalyzer(4096, 96000).L).toBe(1024);
+    expect(new SpectralAnalyzer(2048, 44100).L).toBe(1024); // all of it, as meyda reads it
+  });
+  it("centroid, spread, roll-off, flatness and slope agree within 2 %", () => {
+    for (const k of ["centroidHz", "spreadHz", "rolloffHz", "flatness", "slope"] as const) expect(rel(b[k], a[k]), k).toBeLessThan(0.02);
+  });
+  it("the Bark band shares agree within 1 point", () => {
+    const share = (s: typeof a) => { const t = s.barkLoudness.reduce((p, q) => p + q, 0); return s.barkLoudness.map((v) => v / t); };
+    const sa = share(a), sb = share(b);
+    for (let i = 0; i < sa.length; i++) expect(Math.abs(sa[i]! - sb[i]!), `band ${i}`).toBeLessThan(0.01);
+  });
+});

@@ -8,7 +8,14 @@
 // are tested against it; centroid and spread are converted from bins to Hz; rolloff uses the true bin width
 // fs/N (meyda divides by N/2 - 1 bins); slope is computed per Peeters because meyda's denominator omits the
 // bin count (its sign is inverted): tested against a general-purpose linear regression.
+// All of them read the spectrum up to ANALYSIS_TOP_HZ (24 kHz, the Nyquist frequency of 48 kHz audio) and no
+// higher: at 44.1 and 48 kHz that is the whole spectrum, as meyda reads it; at 88.2, 96 or 192 kHz the bins above
+// are left out, so a sound recorded at a high rate gives the features it gives at 48 kHz (counting the mostly
+// empty band above 24 kHz would drop the flatness several times over and move the slope, Bark bands and mel bank).
 import FFT from "fft.js";
+
+/** The top of the band the frame features read (Hz): the Nyquist frequency of 48 kHz audio. */
+export const ANALYSIS_TOP_HZ = 24000;
 
 export const MFCC_COUNT = 13;
 export const MEL_BANDS = 26;
@@ -49,6 +56,8 @@ export class SpectralAnalyzer {
   private input: Float64Array;
   private out: Float64Array;
   readonly amp: Float64Array; // amplitude spectrum of the last frame, bins 0..N/2-1
+  /** bins the features read: 0..L-1, up to ANALYSIS_TOP_HZ (all N/2 at 48 kHz and below) */
+  readonly L: number;
   private mel: { start: number; w: Float64Array }[];
   private barkLimits: Int32Array;
   private dct: Float64Array;
@@ -61,21 +70,23 @@ export class SpectralAnalyzer {
     this.input = new Float64Array(N);
     this.out = new Float64Array(2 * N); // typed storage: fft.js indexes it like its own arrays, faster
     this.amp = new Float64Array(N / 2);
-    // mel filter bank as meyda builds it (triangles on floor((N + 1) f / fs) bins, 0 to Nyquist)
-    const melMax = melOf(fs / 2);
+    this.L = Math.min(N / 2, Math.ceil((ANALYSIS_TOP_HZ * N) / fs)); // bins under ANALYSIS_TOP_HZ
+    // mel filter bank as meyda builds it (triangles on floor((N + 1) f / fs) bins, 0 to Nyquist; here to the
+    // analysis top when the rate is higher)
+    const melMax = melOf(Math.min(fs / 2, ANALYSIS_TOP_HZ));
     const bins: number[] = [];
     const f32 = Math.fround; // meyda keeps these in Float32Arrays; round alike so the bins match
     for (let i = 0; i < MEL_BANDS + 2; i++) bins.push(Math.floor(((N + 1) * f32(hzOfMel(f32((i * melMax) / (MEL_BANDS + 1))))) / fs));
     this.mel = [];
     for (let j = 0; j < MEL_BANDS; j++) {
       const a = bins[j], b = bins[j + 1], c = bins[j + 2];
-      const w = new Float64Array(Math.max(0, Math.min(c, N / 2) - a));
-      for (let i = a; i < b && i < N / 2; i++) w[i - a] = (i - a) / (b - a);
-      for (let i = b; i < c && i < N / 2; i++) w[i - a] = (c - i) / (c - b);
+      const w = new Float64Array(Math.max(0, Math.min(c, this.L) - a));
+      for (let i = a; i < b && i < this.L; i++) w[i - a] = (i - a) / (b - a);
+      for (let i = b; i < c && i < this.L; i++) w[i - a] = (c - i) / (c - b);
       this.mel.push({ start: a, w });
     }
     // Bark band limits as meyda computes them (Traunmueller-like 13 atan(f/1315.8) + 3.5 atan((f/7518)^2))
-    const L = N / 2;
+    const L = this.L;
     const bark = new Float64Array(L);
     for (let i = 0; i < L; i++) { const f = (i * fs) / N; bark[i] = 13 * Math.atan(f / 1315.8) + 3.5 * Math.atan((f / 7518) ** 2); }
     // meyda keeps the scale in a Float32Array: round the same way so band edges match bin for bin
@@ -109,7 +120,7 @@ export class SpectralAnalyzer {
     const end = Math.min(x.length, start + N);
     for (let i = start + 1; i < end; i++) if ((x[i - 1] >= 0) !== (x[i] >= 0)) zcr++;
     const a = this.spectrum(x, start);
-    return { ...featuresOfSpectrum(a, fs, N, this.mel, this.barkLimits, this.dct), zcr };
+    return { ...featuresOfSpectrum(a.subarray(0, this.L), fs, N, this.mel, this.barkLimits, this.dct), zcr };
   }
 }
 
