@@ -8,7 +8,8 @@
 // - Thin plates: mode frequencies scale as h / a^2 (thickness over radius squared; Fletcher & Rossing, The Physics
 //   of Musical Instruments, ch. 3), so a small or a thick cymbal sounds higher; smaller plates store less energy
 //   and ring shorter (F&R ch. 20; memory). Size ranges are common practice: splash 6-12", crash 14-20",
-//   ride 18-24", china 12-22", hi-hat 12-16".
+//   ride 18-24", china 12-22", hi-hat 12-16". A heavier cymbal of the same size sustains longer and a thin one
+//   opens up fast and dies sooner (common practice); modelled as decay times in proportion to sqrt(weight).
 // - The china's upturned flange: a trashy, rattling sound with stronger mid partials and a quicker decay than a
 //   crash of the same size (common practice, no published source).
 // - Hand drums: single-headed and tuned high (conga about 180-350 Hz, bongo about 350-600 Hz; common practice).
@@ -37,7 +38,7 @@ import { rngFromKey, type Rng } from "./rng";
 
 export type VarietyKind =
   | "kick" | "snare" | "tom" | "hi-hat" | "crash" | "ride" | "china" | "splash" | "cowbell" | "hand-drum" | "shaker"
-  | "tambourine" | "clap" | "wood" | "triangle" | "scrape"
+  | "tambourine" | "clap" | "wood" | "triangle" | "scrape" | "timbale" | "cuica" | "whistle"
   | "e-kick" | "e-tom" | "e-snare" | "e-clap" | "e-hat" | "e-cymbal" | "e-cowbell";
 
 export type VarietyParams = Record<string, number | string>;
@@ -107,6 +108,15 @@ function envelope(x: Float64Array, sr: number, tau: number, attack = 0.0005, fro
   }
 }
 
+/** A sustained sound's gate: raised-cosine attack, held for `len` seconds, then a 20 ms release. */
+function gate(x: Float64Array, sr: number, attack: number, len: number): void {
+  const na = Math.max(1, Math.round(attack * sr)), nh = Math.round(len * sr), nr = Math.round(0.02 * sr);
+  for (let i = 0; i < x.length; i++) {
+    const g = i < na ? 0.5 - 0.5 * Math.cos((Math.PI * i) / na) : i < nh ? 1 : i < nh + nr ? 0.5 + 0.5 * Math.cos((Math.PI * (i - nh)) / nr) : 0;
+    x[i] *= g;
+  }
+}
+
 /** A sine whose pitch falls exponentially from startHz to endHz (time constant fallTau), decaying with ampTau. */
 function fallingSine(n: number, sr: number, o: { startHz: number; endHz: number; fallTau: number; ampTau: number; drive?: number }): Float64Array {
   const x = new Float64Array(n);
@@ -172,6 +182,9 @@ function choke(s: Src, at: number, tau: number): void {
 function stickTick(s: Src, gain: number): void {
   noiseBurst(s, { lo: 2000, hi: 5000 + 10000 * s.vn, tau: 0.0012, gain: gain * (0.3 + 0.7 * s.vn) });
 }
+
+/** decay-time factor of a cymbal's relative weight (header: heavier sustains longer; the square root is our choice) */
+const WEIGHT_SUSTAIN = (w: number) => Math.sqrt(w);
 
 const contact = (tFull: number, v: number) => tFull * Math.pow(127 / v, 0.45);
 
@@ -247,7 +260,7 @@ const KINDS: Record<VarietyKind, KindDef> = {
           stickTick(s, 0.45);
           return -6.5;
         default:
-          cymbal(s, { ...base, tau1k: 0.6 * sz / Math.sqrt(w), washTau: 0.36 * sz, washGain: 0.5, sizzle: 0.15, sizzleRate: 20, washRise: 0.003 });
+          cymbal(s, { ...base, tau1k: 0.6 * sz * WEIGHT_SUSTAIN(w), washTau: 0.36 * sz, washGain: 0.5, sizzle: 0.15, sizzleRate: 20, washRise: 0.003 });
           stickTick(s, 0.4);
           return -6;
       }
@@ -260,7 +273,7 @@ const KINDS: Record<VarietyKind, KindDef> = {
     seconds: (r, _p, a) => rd(a === "choke" ? r.range(0.8, 1.5) : r.range(2.5, 4), 2),
     render: (s, p, a) => {
       const sz = num(p, "diameterIn") / 18, w = num(p, "weight"), vn = s.vn, fs = w / (sz * sz);
-      const tau = (0.42 * sz * num(p, "decay")) / Math.sqrt(w);
+      const tau = 0.42 * sz * num(p, "decay") * WEIGHT_SUSTAIN(w);
       cymbal(s, {
         nPartials: 140, fLo: clamp(300 * fs, 200, 700), fHi: 16000, tau1k: tau, tauExp: 0.4, contactT: contact(0.00035, s.v),
         lowModes: 6, lowBase: 55 * fs, washGain: num(p, "washGain") + 0.6 * vn, washLo: num(p, "washLo"), washHi: 8000 + 6000 * vn,
@@ -278,7 +291,7 @@ const KINDS: Record<VarietyKind, KindDef> = {
     seconds: (r, _p, a) => rd(a === "choke" ? r.range(0.5, 1) : r.range(1, 2.5), 2),
     render: (s, p, a) => {
       const sz = num(p, "diameterIn") / 18, w = num(p, "weight"), vn = s.vn, fs = w / (sz * sz);
-      const tau = (0.42 * sz * num(p, "decay")) / Math.sqrt(w);
+      const tau = 0.42 * sz * num(p, "decay") * WEIGHT_SUSTAIN(w);
       cymbal(s, {
         nPartials: 110, fLo: clamp(300 * fs, 600, 1600), fHi: 17500, tau1k: tau, tauExp: 0.35, contactT: contact(0.0003, s.v),
         lowModes: 3, lowBase: 55 * fs, washGain: 0.6 + 0.5 * vn, washLo: num(p, "washLo"), washHi: 11000 + 5000 * vn,
@@ -296,7 +309,7 @@ const KINDS: Record<VarietyKind, KindDef> = {
     seconds: (r, _p, a) => rd(a === "choke" ? r.range(0.8, 1.5) : r.range(2, 3.5), 2),
     render: (s, p, a) => {
       const sz = num(p, "diameterIn") / 18, w = num(p, "weight"), vn = s.vn, fs = w / (sz * sz);
-      const tau = (0.3 * sz * num(p, "decay")) / Math.sqrt(w);
+      const tau = 0.3 * sz * num(p, "decay") * WEIGHT_SUSTAIN(w);
       const T = contact(0.0004, s.v);
       cymbal(s, {
         nPartials: 160, fLo: clamp(350 * fs, 250, 600), fHi: 11000, tau1k: tau, tauExp: 0.4, contactT: T, lowModes: 6, lowBase: 70 * fs,
@@ -325,7 +338,7 @@ const KINDS: Record<VarietyKind, KindDef> = {
         return -6;
       }
       cymbal(s, {
-        nPartials: 130, fLo: clamp(300 * fs, 200, 600), fHi: 15000, tau1k: (0.55 * sz) / Math.sqrt(w), tauExp: 0.35, contactT: contact(0.0003, s.v),
+        nPartials: 130, fLo: clamp(300 * fs, 200, 600), fHi: 15000, tau1k: 0.55 * sz * WEIGHT_SUSTAIN(w), tauExp: 0.35, contactT: contact(0.0003, s.v),
         lowModes: 5, lowBase: 45 * fs, washGain: num(p, "washGain") + 0.15 * vn, washLo: 3500, washHi: 7000 + 5000 * vn, washTau: 0.5, washRise: 0.008,
       });
       partials(s, [1, 1.41, 1.87].map((q, i) => ({ f: num(p, "pingHz") * q * (1 + s.rng.gauss() * 0.03), a: 0.08 / (i + 1), tau: 0.25 })), 1);
@@ -457,6 +470,57 @@ const KINDS: Record<VarietyKind, KindDef> = {
       biquad(x, s.sr, "bandpass", num(p, "bandHz"), 1.5);
       addMono(s, x, 1, 0.95);
       return -10;
+    },
+  },
+
+  timbale: {
+    family: "other", count: 3,
+    sample: (r) => ({ tuneHz: rd(logU(r, 250, 600), 1), ring: rd(r.range(0.15, 0.4)), shellHz: rd(logU(r, 1500, 3500), 0), shellRing: rd(r.range(0.08, 0.3)) }),
+    strokes: () => ["hit", "hit", "hit"],
+    seconds: (r) => rd(r.range(0.8, 1.6), 2),
+    render: (s, p) => {
+      // a thin head on an open metal shell, struck with a stick: membrane plus the shell's ring (memory)
+      membrane(s, { f0: num(p, "tuneHz"), strikeRadius: 0.45 + 0.2 * s.rng.next(), tau0: num(p, "ring"), tauExp: 0.5, contactT: contact(0.0006, s.v), airLoading: 0.08, glide: 0.02 * s.vn, glideTau: 0.04, gain: 1, maxRatio: 5 });
+      partials(s, [1, 1.59, 2.33, 3.1].map((q, i) => ({ f: num(p, "shellHz") * q, a: 0.25 / (1 + i), tau: num(p, "shellRing") / (1 + 0.4 * i) })), 1);
+      stickTick(s, 0.4);
+      return -4;
+    },
+  },
+  cuica: {
+    family: "other", count: 3,
+    sample: (r) => ({ fromHz: rd(logU(r, 300, 900), 0), toRatio: rd(logU(r, 0.6, 1.7)), lengthSec: rd(logU(r, 0.08, 0.4), 3) }),
+    strokes: () => ["hit", "hit", "hit"],
+    seconds: (r, p) => rd(num(p, "lengthSec") + r.range(0.2, 0.5), 2),
+    render: (s, p) => {
+      // a friction drum: stick-slip drives the head into a harmonic-rich tone whose pitch glides with the pull (memory)
+      const len = num(p, "lengthSec"), n = span(s, len + 0.05), f0 = num(p, "fromHz");
+      for (const [h, g] of [[1, 1], [2, 0.45], [3, 0.25], [4, 0.12]] as const) {
+        const x = fallingSine(n, s.sr, { startHz: f0 * h, endHz: f0 * num(p, "toRatio") * h, fallTau: len / 2, ampTau: 1e9 });
+        gate(x, s.sr, 0.01, len);
+        addMono(s, x, g, 0.95);
+      }
+      return -6;
+    },
+  },
+  whistle: {
+    family: "other", count: 3,
+    sample: (r) => ({ toneHz: rd(logU(r, 1800, 3300), 0), trillHz: rd(r.range(18, 40), 1), depth: rd(r.range(0.01, 0.06), 3), lengthSec: rd(pick(r, [logU(r, 0.08, 0.2), logU(r, 0.4, 0.9)]), 3) }),
+    strokes: () => ["hit", "hit", "hit"],
+    seconds: (r, p) => rd(num(p, "lengthSec") + r.range(0.2, 0.5), 2),
+    render: (s, p) => {
+      // a pea whistle: a jet-driven tone warbled by the pea, with breath noise (memory)
+      const len = num(p, "lengthSec"), n = span(s, len + 0.05), f = num(p, "toneHz");
+      const x = new Float64Array(n);
+      let ph = 0;
+      for (let i = 0; i < n; i++) {
+        ph += (2 * Math.PI * f * (1 + num(p, "depth") * Math.sin((2 * Math.PI * num(p, "trillHz") * i) / s.sr))) / s.sr;
+        x[i] = Math.sin(ph);
+      }
+      const z = noiseOf(s, n, f * 0.7, f * 1.5);
+      for (let i = 0; i < n; i++) x[i]! += 0.15 * z[i]!;
+      gate(x, s.sr, 0.015, len);
+      addMono(s, x, 1, 0.95);
+      return -6;
     },
   },
 
