@@ -4,6 +4,7 @@ import { useCallback, useState } from "react";
 import { loadSampleAudio, useSample } from "../data/samples";
 import { Preview } from "./preview";
 import { Waveform } from "./waveform";
+import { SoundFit } from "./sound-fit";
 import { StateTag } from "./state-counts";
 
 export function SampleDetail({ studioId, libraryId, sampleId, onClose }: { studioId: string; libraryId: string; sampleId: string; onClose: () => void }) {
@@ -43,6 +44,7 @@ export function SampleDetail({ studioId, libraryId, sampleId, onClose }: { studi
               <ul className="list-disc pl-5 text-xs text-muted">{s.reasons.map((r, i) => <li key={i}>{r}</li>)}</ul>
             </div>
           )}
+          {s.sound && <SoundFit sound={s.sound} family={s.family} familySource={s.familySource} />}
           {s.measurement && s.measurement.warnings.length > 0 && (
             <ul className="list-disc pl-5 text-xs text-warn">{s.measurement.warnings.map((w, i) => <li key={i}>{w}</li>)}</ul>
           )}

@@ -1,6 +1,7 @@
 // Requests and answers of /api/studios/:id/libraries/:libraryId/samples (the paged browser, one sample, bulk
 // relabel and confirm). Types only, shared by lib/server and components/data.
 import type { z } from "zod";
+import type { CatalogueEntry } from "@/lib/catalogue";
 import type { confirmSchema, relabelSchema, SampleState } from "@/lib/validation/library";
 
 export type { SampleState };
@@ -55,6 +56,8 @@ export interface SamplesPage {
 export type SampleDetail = SampleRow & {
   peaks: { min: number[]; max: number[] } | null;
   reasons: string[];
+  /** What the sound alone says (null until the library is catalogued again after this was added). */
+  sound: CatalogueEntry["sound"] | null;
   measurement: { onsetMs: number; attackMs: number; tail: string; samplePeakDbfs: number; clippedRuns: number; dcOffset: number; noiseFloorDbfs: number; warnings: string[] } | null;
 };
 

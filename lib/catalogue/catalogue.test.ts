@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { catalogueSamples, type CatalogueSampleInput } from "./catalogue";
+import { catalogueSamples, soundFit, type CatalogueSampleInput } from "./catalogue";
 import { measurement, rng, type DrumShape } from "./test-helpers";
 
 // Acoustic shapes from typical ranges (common practice, no published source; see classify.test.ts)
@@ -107,5 +107,29 @@ describe("catalogueSamples", () => {
     const snare = c.groups.find((g) => g.instrumentKey === "snare:14x6.5-brass")!;
     expect(snare.layers[0]!.nominalVelocity).toBe(1);
     expect(c.curve.kind).toBe("dannenberg");
+  });
+});
+
+describe("soundFit: the families the sound weighed, for the sample page", () => {
+  it("lists at most four, best first, drops those under 1 %, puts the chosen family first on a tie", () => {
+    const fit = soundFit({ family: "china", familyScores: { crash: 0.4, china: 0.4, splash: 0.15, ride: 0.03, "hi-hat": 0.015, tom: 0.005 } });
+    expect(fit).toEqual([
+      { family: "china", fit: 0.4 },
+      { family: "crash", fit: 0.4 },
+      { family: "splash", fit: 0.15 },
+      { family: "ride", fit: 0.03 },
+    ]);
+    expect(soundFit({ family: "kick", familyScores: { kick: 1, tom: 0.004 } })).toEqual([{ family: "kick", fit: 1 }]);
+  });
+  it("every catalogued sample keeps its sound's fit with the sound's family first (rules of thumb here)", () => {
+    const cat = catalogueSamples(library(), RULES);
+    for (const s of cat.samples) {
+      expect(s.sound.fit[0]!.family).toBe(s.sound.family);
+      for (const f of s.sound.fit) expect(f.fit).toBeGreaterThanOrEqual(0.01);
+    }
+    // the mislabelled file: named kick, the sound says crash, and the kick is not what the sound weighed first
+    const kick = cat.samples.find((s) => s.path === "Kick_Hard_1.wav")!;
+    expect(kick.family).toBe("kick");
+    expect(kick.sound.fit[0]!.family).toBe("crash");
   });
 });

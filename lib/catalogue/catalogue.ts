@@ -57,6 +57,24 @@ export interface CatalogueOptions {
   strokes?: StrokeList | null;
 }
 
+/** One family the sound weighed, with how well it fits (0..1, see CatalogueEntry.sound.fit). */
+export interface SoundFit {
+  family: Family;
+  fit: number;
+}
+/** How many families the sound's fit lists. */
+export const SOUND_FIT_SHOWN = 4;
+
+/** The families a sound suggestion weighed, best first: at most SOUND_FIT_SHOWN, none below 1 %. */
+export function soundFit(s: Pick<SoundSuggestion, "family" | "familyScores">): SoundFit[] {
+  const list = (Object.entries(s.familyScores) as [Family, number][])
+    .filter(([, v]) => Number.isFinite(v) && v >= 0.01)
+    .sort((a, b) => b[1] - a[1] || (a[0] === s.family ? -1 : b[0] === s.family ? 1 : a[0] < b[0] ? -1 : 1))
+    .slice(0, SOUND_FIT_SHOWN)
+    .map(([family, v]) => ({ family, fit: Math.round(Math.min(1, v) * 1000) / 1000 }));
+  return list;
+}
+
 export interface CatalogueEntry {
   id: string;
   path: string;
@@ -69,7 +87,11 @@ export interface CatalogueEntry {
   /** Plain words: why these labels. */
   reasons: string[];
   name: Pick<NameInfo, "family" | "articulation" | "velocity" | "roundRobin" | "mic" | "stem">;
-  sound: Pick<SoundSuggestion, "family" | "articulation" | "confidence" | "source">;
+  sound: Pick<SoundSuggestion, "family" | "articulation" | "confidence" | "source"> & {
+    /** What the sound alone says of each family it weighed, best first (at most SOUND_FIT_SHOWN): the trained
+     * model's vote share, the rules' fit or the share of the nearest confirmed samples, 0..1. */
+    fit: SoundFit[];
+  };
   conflict: NameSoundConflict["level"];
   instrumentKey: string;
   instrumentName: string;
@@ -265,7 +287,7 @@ export function catalogueSamples(samples: CatalogueSampleInput[], opts: Catalogu
       confidence: w.confidence,
       reasons: w.reasons,
       name: { family: w.n.family, articulation: w.n.articulation, velocity: w.n.velocity, roundRobin: w.n.roundRobin, mic: w.n.mic, stem: w.n.stem },
-      sound: { family: w.snd.family, articulation: w.snd.articulation, confidence: w.snd.confidence, source: w.snd.source },
+      sound: { family: w.snd.family, articulation: w.snd.articulation, confidence: w.snd.confidence, source: w.snd.source, fit: soundFit(w.snd) },
       conflict: w.conflict.level,
       instrumentKey,
       instrumentName: instName.get(instrumentKey) ?? instrumentKey,

@@ -14,5 +14,5 @@ export {
 export { sortLayers, layerCountFromGaps, clusterSizes, isMonotonic, type Layer, type LayerMember, type LayerSorting, type LayerIssue, type LayerIssueCode, type LayerOptions, type GapChoice } from "./layers";
 export { DLS, dlsAttenuationDb, dannenbergCoefficients, dannenbergGainDb, curveAttenuationDb, velocityForAttenuation, velocityRanges, type VelocityCurve, type VelocityRange } from "./velocity";
 export { fileHealth, layerHealth, conflictHealth, sortFindings, severityOf, type HealthCode, type HealthFinding, type HealthOptions, type HealthSample, type Severity } from "./health";
-export { catalogueSamples, groupKeyOf, type Catalogue, type CatalogueEntry, type SortedInstrument, type CatalogueOptions, type CatalogueSampleInput, type LayerGroup, type LabelSource } from "./catalogue";
+export { catalogueSamples, groupKeyOf, soundFit, SOUND_FIT_SHOWN, type SoundFit, type Catalogue, type CatalogueEntry, type SortedInstrument, type CatalogueOptions, type CatalogueSampleInput, type LayerGroup, type LabelSource } from "./catalogue";
 export { instrumentPitchHz, mainStroke, type PitchedHit } from "./instrument-pitch";

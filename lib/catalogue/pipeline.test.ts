@@ -57,6 +57,16 @@ describe("bytes to catalogue", () => {
     expect(toms.every((s) => s.familySource === "sound")).toBe(true);
     const hats = cat.samples.filter((s) => s.id.startsWith("h"));
     expect(hats.map((s) => [s.family, s.articulation])).toEqual([["hi-hat", "closed"], ["hi-hat", "closed"]]);
+    // what the sound alone said, kept for the sample page: the trained model's vote shares, best first, the
+    // chosen family on top, shares of one vote (together at most 1, give or take their rounding)
+    for (const s of cat.samples) {
+      expect(s.sound.source).toBe("model");
+      expect(s.sound.fit[0]!.family).toBe(s.sound.family);
+      expect(s.sound.fit.length).toBeGreaterThanOrEqual(1);
+      expect(s.sound.fit.length).toBeLessThanOrEqual(4);
+      for (let i = 1; i < s.sound.fit.length; i++) expect(s.sound.fit[i]!.fit).toBeLessThanOrEqual(s.sound.fit[i - 1]!.fit);
+      expect(s.sound.fit.reduce((a, f) => a + f.fit, 0)).toBeLessThanOrEqual(1 + 4 * 0.0005); // each rounded to 0.001
+    }
 
     const g = cat.groups.find((x) => x.instrumentKey === "tom:session")!;
     expect(g.countFrom).toBe("gaps");

@@ -4,7 +4,7 @@
 // inside one collection overstates accuracy when copies leak). Pure computation over measured rows.
 
 import { createHash } from "node:crypto";
-import { calibrationTable, predictSound, trainSoundModel, type CalibrationTable, type ForestOptions } from "../../lib/catalogue/sound-model";
+import { calibrate, calibrationTable, predictSound, trainSoundModel, type CalibrationTable, type ForestOptions } from "../../lib/catalogue/sound-model";
 import type { Row } from "./dataset";
 
 export interface Prediction {
@@ -79,6 +79,52 @@ export function report(preds: Prediction[], articulationJudged: (p: Prediction) 
     articulationCalibration: calibrationTable(artPreds.map((p) => ({ share: p.articulationShare, right: p.family === p.row.family && p.articulation === p.row.articulation }))),
     wrong: preds.filter((p) => p.family !== p.row.family),
   };
+}
+
+/**
+ * The confidence shown, checked out of fold: each fold's real-recording predictions get the confidence of a
+ * calibration table made from the other folds' held-out predictions only (corpus and generator, as the committed
+ * model's table is made), then the confidences shown are compared with how often they were right. Binned by the
+ * confidence shown (tenths); the expected calibration error (ECE: the file-weighted mean gap, Naeini, Cooper &
+ * Hauskrecht, AAAI 2015) and the largest gap in a bin of at least `minBin` files.
+ */
+export interface CalibrationCheck {
+  bins: { upTo: number; n: number; meanConfidence: number; right: number }[];
+  ece: number;
+  worstGap: number;
+  minBin: number;
+}
+
+export function outOfFoldCalibration(judged: Prediction[], calibrateFrom: Prediction[], minBin = 10): CalibrationCheck {
+  const shown: { c: number; right: boolean }[] = [];
+  for (const fold of [...new Set(judged.map((p) => p.fold))]) {
+    const table = calibrationTable(calibrateFrom.filter((p) => p.fold !== fold).map((p) => ({ share: p.familyShare, right: p.family === p.row.family })));
+    for (const p of judged.filter((x) => x.fold === fold)) shown.push({ c: calibrate(table, p.familyShare), right: p.family === p.row.family });
+  }
+  const bins = Array.from({ length: 10 }, (_, i) => ({ upTo: (i + 1) / 10, n: 0, sum: 0, right: 0 }));
+  for (const x of shown) {
+    const b = bins[Math.min(9, Math.max(0, Math.ceil(x.c * 10 - 1e-9) - 1))]!;
+    b.n++;
+    b.sum += x.c;
+    if (x.right) b.right++;
+  }
+  const used = bins.filter((b) => b.n > 0).map((b) => ({ upTo: b.upTo, n: b.n, meanConfidence: b.sum / b.n, right: b.right / b.n }));
+  const total = shown.length || 1;
+  const ece = used.reduce((a, b) => a + (b.n / total) * Math.abs(b.meanConfidence - b.right), 0);
+  const worstGap = Math.max(0, ...used.filter((b) => b.n >= minBin).map((b) => Math.abs(b.meanConfidence - b.right)));
+  return { bins: used, ece, worstGap, minBin };
+}
+
+export function formatCalibrationCheck(c: CalibrationCheck): string {
+  const lines = [
+    "Confidence shown, checked out of fold (each fold's files get a calibration made without them): of the files shown a confidence in a bin, how many were right",
+    "",
+    "| confidence up to | files | mean confidence shown | right |",
+    "|---:|---:|---:|---:|",
+  ];
+  for (const b of c.bins) lines.push(`| ${b.upTo.toFixed(1)} | ${b.n} | ${pct(b.meanConfidence)} | ${pct(b.right)} |`);
+  lines.push("", `Expected calibration error ${pct(c.ece)}; largest gap in a bin of ${c.minBin} files or more: ${pct(c.worstGap)}.`);
+  return lines.join("\n");
 }
 
 const pct = (x: number) => `${(100 * x).toFixed(1)} %`;

@@ -6,7 +6,7 @@
 
 import { describe, expect, it } from "vitest";
 import { readCorpus } from "../corpus/corpus";
-import { ARTICULATION_KEYS, report } from "./evaluate";
+import { ARTICULATION_KEYS, outOfFoldCalibration, report } from "./evaluate";
 import { crossValidated, FOREST, loadRows } from "./run";
 
 const corpus = readCorpus();
@@ -31,6 +31,12 @@ describe("sound model on held-out real recordings (grouped 5-fold cross-validati
     expect(r.articulationAccuracy).toBeGreaterThanOrEqual(ARTICULATION_FLOOR);
     // of the predictions the forest is most sure of (vote share over 0.8), most are right
     expect(sureRight).toBeGreaterThanOrEqual(SURE_FLOOR);
+    // the confidence the app shows, checked out of fold, is within 10 points of how often it is right (the
+    // issue's target): the file-weighted mean gap and the largest gap in a bin of 10 files or more
+    const cal = outOfFoldCalibration(cv.corpus, [...cv.corpus, ...cv.generator]);
+    console.log(`confidence shown vs right, out of fold: expected calibration error ${(100 * cal.ece).toFixed(1)} %, largest gap ${(100 * cal.worstGap).toFixed(1)} %`);
+    expect(cal.ece).toBeLessThanOrEqual(CALIBRATION_GAP);
+    expect(cal.worstGap).toBeLessThanOrEqual(CALIBRATION_GAP);
   }, 900_000);
 });
 
@@ -40,3 +46,6 @@ describe("sound model on held-out real recordings (grouped 5-fold cross-validati
 const FAMILY_FLOOR = 0.78;
 const ARTICULATION_FLOOR = 0.66;
 const SURE_FLOOR = 0.95;
+// Out of fold, the confidence shown was off by 5.9 % on average (ECE) and 5.3 % at most in a bin of 10 or more
+// files (RESULTS.md); the issue asks for 10 points at most.
+const CALIBRATION_GAP = 0.1;

@@ -13,7 +13,7 @@ import { suggestByRules } from "../../lib/catalogue/classify";
 import { calibrationTable, domainOf, trainSoundModel, type ForestOptions, type SoundModel } from "../../lib/catalogue/sound-model";
 import { corpusDir } from "../corpus/corpus";
 import { corpusRows, dataHash, generatorRows, type Row } from "./dataset";
-import { ARTICULATION_KEYS, crossValidate, formatReport, report, type Prediction } from "./evaluate";
+import { ARTICULATION_KEYS, crossValidate, formatCalibrationCheck, formatReport, outOfFoldCalibration, report, type Prediction } from "./evaluate";
 
 const ROOT = path.resolve(__dirname, "../..");
 export const MODEL_PATH = path.join(ROOT, "lib/catalogue/sound-model.data.ts");
@@ -106,6 +106,8 @@ function main() {
     `Corpus: Debian's fluid-soundfont-gm percussion kits rendered by npm run corpus (labels: General MIDI Level 1 key map); ${rows.corpus.filter((r) => r.augmentation === "").length} files, ${new Set(rows.corpus.map((r) => r.group)).size} recordings. Sound only, names hidden; a recording and its copies never in both training and judged folds.`,
     "",
     formatReport("Real recordings (held-out recordings)", corpusReport),
+    "",
+    formatCalibrationCheck(outOfFoldCalibration(cv.corpus, [...cv.corpus, ...cv.generator])),
     "",
     ...(cv.generator.length ? [formatReport("Our generator (held-out instruments)", report(cv.generator, (p) => domainOf(p.row.family) !== null)), ""] : []),
     ...(process.argv.includes("--rules") ? [rulesReport(), ""] : []),

@@ -108,6 +108,12 @@ describe("library in the browser", () => {
     await page.getByTestId("sample-row").first().getByRole("button").first().click();
     await page.getByTestId("sample-detail").waitFor();
     await page.getByTestId("waveform").waitFor();
+    // what the sound alone says, as bars: the families it weighed, best first, each with its share
+    await page.getByTestId("sound-fit").waitFor();
+    const fitRows = await page.getByTestId("sound-fit-row").allTextContents();
+    expect(fitRows.length).toBeGreaterThanOrEqual(1);
+    const shares = fitRows.map((t) => Number(/(\d+) %/.exec(t)![1]));
+    expect(shares).toEqual([...shares].sort((a, b) => b - a));
     await page.getByTestId("play").click();
     await page.getByTestId("hearing-caution").waitFor();
     expect(await page.getByTestId("hearing-caution").textContent()).toMatch(/Monitoring levels are your responsibility/);

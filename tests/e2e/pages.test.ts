@@ -23,7 +23,7 @@ const THEMES = ["light", "dark"] as const;
 
 let browser: Browser;
 let s: Awaited<ReturnType<typeof makeStudioWithRoles>>;
-const ids = { library: "", kit: "", layout: "", auditA: "", auditB: "" };
+const ids = { library: "", sample: "", kit: "", layout: "", auditA: "", auditB: "" };
 const tag = Math.random().toString(36).slice(2, 7);
 
 /** A decaying tone with noise: enough of a drum hit for the measuring pipeline (our own generator). */
@@ -82,6 +82,7 @@ beforeAll(async () => {
   await page.getByTestId("upload-summary").waitFor({ timeout: 60_000 });
   await until(async () => (await page.getByTestId("count-catalogued").locator("dd").textContent()) === String(files.length), 120_000, "all files catalogued");
   await until(async () => (await page.getByTestId("progress-status").textContent()) === "all catalogued", 60_000, "the library sorted");
+  ids.sample = (await api<{ rows: { id: string }[] }>(page, "GET", `${base}/libraries/${ids.library}/samples?q=snare&pageSize=1`)).rows[0]!.id;
   ids.kit = (await api<{ kit: { id: string } }>(page, "POST", `${base}/kits`, { name: `Quay kit ${tag}`, template: "gm-percussion" })).kit.id;
   ids.layout = (await api<{ layout: { id: string } }>(page, "POST", `${base}/layouts`, { name: `GM map ${tag}`, template: "gm-percussion" })).layout.id;
   ids.auditA = (await api<{ audit: { id: string } }>(page, "POST", `${base}/audits`, { layoutId: ids.layout, kitId: ids.kit })).audit.id;
@@ -103,6 +104,7 @@ function pages() {
     { name: "studio", url: st, ready: "studio-name" },
     { name: "libraries", url: `${st}/libraries`, ready: "libraries" },
     { name: "samples", url: lib, ready: "sample-row" },
+    { name: "sample", url: `${lib}?sample=${ids.sample}`, ready: "sound-fit" },
     { name: "instruments", url: `${lib}/instruments`, ready: "library-name" },
     { name: "plots", url: `${lib}/plots`, ready: "feature-map" },
     { name: "health", url: `${lib}/health`, ready: "health" },

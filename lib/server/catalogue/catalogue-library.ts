@@ -54,14 +54,14 @@ export async function catalogueLibrary({ studioId, libraryId }: { studioId: stri
     const byId = new Map(rows.map((r) => [r.id as string, r]));
 
     // per-sample columns, in bulk (INSERT ... ON DUPLICATE KEY UPDATE on the primary key)
-    const cols = ["path_key", "family", "family_source", "articulation", "articulation_source", "confidence", "mic", "instrument_key", "layer_index", "layer_count", "round_robin", "velocity_low", "velocity_high", "conflict", "reasons"];
+    const cols = ["path_key", "family", "family_source", "articulation", "articulation_source", "confidence", "mic", "instrument_key", "layer_index", "layer_count", "round_robin", "velocity_low", "velocity_high", "conflict", "reasons", "sound"];
     const upd = cat.samples.map((e) => {
       const r = byId.get(e.id)!;
       return {
         id: e.id, studio_id: studioId, library_id: libraryId, rel_path: r.rel_path, path_key: String(r.rel_path).slice(0, 500), file_name: r.file_name, sha256: r.sha256, size_bytes: r.size_bytes, storage_key: r.storage_key,
         family: e.family, family_source: e.familySource, articulation: e.articulation, articulation_source: e.articulationSource,
         confidence: e.confidence, mic: e.mic, instrument_key: e.instrumentKey, layer_index: e.layerIndex, layer_count: e.layerCount || null,
-        round_robin: e.roundRobin, velocity_low: e.velocityLow, velocity_high: e.velocityHigh, conflict: e.conflict, reasons: JSON.stringify(e.reasons),
+        round_robin: e.roundRobin, velocity_low: e.velocityLow, velocity_high: e.velocityHigh, conflict: e.conflict, reasons: JSON.stringify(e.reasons), sound: JSON.stringify(e.sound),
       };
     });
     for (let i = 0; i < upd.length; i += 500) await trx("samples").insert(upd.slice(i, i + 500)).onConflict("id").merge(cols);

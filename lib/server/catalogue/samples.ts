@@ -184,13 +184,14 @@ export async function getSample({ studioId, libraryId, sampleId }: { studioId: s
       this.on("i.library_id", "s.library_id").andOn("i.key", "s.instrument_key");
     })
     .where({ "s.studio_id": studioId, "s.library_id": libraryId, "s.id": sampleId })
-    .first([...LIST_COLS, "s.peaks", "s.reasons", "s.measurement"]);
+    .first([...LIST_COLS, "s.peaks", "s.reasons", "s.measurement", "s.sound"]);
   if (!r) throw notFound("The sample");
   const m = jsonColumn(r.measurement) as Record<string, any> | null;
   return {
     ...toRow(r),
     peaks: jsonColumn(r.peaks) as { min: number[]; max: number[] } | null,
     reasons: (jsonColumn(r.reasons) as string[] | null) ?? [],
+    sound: (jsonColumn(r.sound) as SampleDetail["sound"]) ?? null,
     measurement: m ? { onsetMs: m.onsetMs, attackMs: m.attackMs, tail: m.tail, samplePeakDbfs: m.samplePeakDbfs, clippedRuns: m.clippedRuns, dcOffset: m.dcOffset, noiseFloorDbfs: m.noiseFloorDbfs, warnings: m.warnings } : null,
   };
 }

@@ -277,6 +277,12 @@ describe("measuring, browsing, listening, labelling", () => {
     const one = await call(sampleRoute.GET, { params: { studioId: ctx.studio.id, libraryId, sampleId }, user: ctx.users.viewer });
     expect(one.json.peaks.min).toHaveLength(400);
     expect(Math.max(...one.json.peaks.max)).toBeGreaterThan(0.2);
+    // what the sound alone said is kept beside the name's labels: the trained model's families, best first
+    const sound = one.json.sound as { family: string; source: string; confidence: number; fit: { family: string; fit: number }[] };
+    expect(sound.source).toBe("model");
+    expect(sound.fit[0]!.family).toBe(sound.family);
+    expect(sound.fit.map((f) => f.fit)).toEqual([...sound.fit.map((f) => f.fit)].sort((a, b) => b - a));
+    expect(sound.confidence).toBeGreaterThan(0);
   });
 
   it("serves the WAV with range requests (RFC 9110: 206 exact bytes, suffix ranges, 416)", async () => {
