@@ -107,10 +107,12 @@ export function corpusRows(opts: { augment: boolean; dir?: string } = { augment:
 }
 
 /**
- * What our generator contributes (chosen on held-out folds, scripts/sound-model/README.md): the demo library's
- * scenario seeds and the training-variety seeds (lib/synth/varieties.ts) with their scale (instruments per kind).
+ * What our generator contributes: the demo library's scenario seeds and the training-variety seeds
+ * (lib/synth/varieties.ts) with their scale (instruments per kind). Variety seeds [1, 2] lifted the held-out corpus
+ * (family 81.4 -> 82.3 %, stroke 69.0 -> 73.4 %, mean over forest seeds 7-12) but fail the out-of-fold calibration
+ * check of floors.test.ts at the committed forest seed, so they are off (scripts/sound-model/README.md).
  */
-export const GENERATOR: { demoSeeds: number[]; varietySeeds: number[]; varietyScale: number } = { demoSeeds: [1, 2], varietySeeds: [1, 2], varietyScale: 1 };
+export const GENERATOR: { demoSeeds: number[]; varietySeeds: number[]; varietyScale: number } = { demoSeeds: [1, 2], varietySeeds: [], varietyScale: 1 };
 
 /** Our generator's rows: the demo library and the training varieties; each instrument is one group. */
 export function generatorRows(opts = GENERATOR): Row[] {
