@@ -68,6 +68,7 @@ describe("training varieties (lib/synth/varieties.ts)", () => {
     }
   });
 
+  // the electronic kick's definition (a sine with an exponential pitch fall: common practice of synthesis), measured
   it("an electronic kick's pitch falls (lib/audio's low spectral peak, strike window vs 150 ms later)", () => {
     const kicks = FILES.filter((f) => f.instrument.kind === "e-kick" && f.seed.endsWith(":0"));
     expect(kicks.length).toBeGreaterThanOrEqual(4);
@@ -82,6 +83,7 @@ describe("training varieties (lib/synth/varieties.ts)", () => {
     }
   });
 
+  // smaller plates ring shorter (Fletcher & Rossing ch. 20; memory); the china's quicker decay is common practice
   it("a splash dies faster than a crash, a china faster than a crash (common practice; lib/audio T20)", () => {
     const hits = (kind: string) => FILES.filter((f) => f.instrument.kind === kind && f.articulation === "crash-hit" && f.seed.endsWith(":0"))
       .map((f) => decay({ ...close(f), seconds: 4 }));
@@ -90,6 +92,7 @@ describe("training varieties (lib/synth/varieties.ts)", () => {
     expect(median(china)).toBeLessThan(median(crash));
   });
 
+  // a closed hat is damped within about a tenth of a second, an open one rings (common practice)
   it("an electronic hi-hat's closed stroke is shorter than its open one (lib/audio T20)", () => {
     for (const inst of varietyInstruments(1).filter((i) => i.kind === "e-hat").slice(0, 3)) {
       const mine = FILES.filter((f) => f.instrument.id === inst.id);
