@@ -113,15 +113,16 @@ export function contactTime(tAtFull: number, velocity: number): number {
   return tAtFull * Math.pow(127 / velocity, 0.45);
 }
 
-interface Src { L: Float64Array; R: Float64Array; sr: number; rng: Rng; v: number; vn: number; pre: number }
+/** A source being rendered: stereo buffers, sample rate, its random stream, velocity (and /127), pre-roll. */
+export interface Src { L: Float64Array; R: Float64Array; sr: number; rng: Rng; v: number; vn: number; pre: number }
 
 /** Random pan gains for a partial inside a stereo close pair (mild decorrelation). */
-function pan(rng: Rng, width: number): [number, number] {
+export function pan(rng: Rng, width: number): [number, number] {
   const p = 0.5 + (rng.next() - 0.5) * width;
   return [Math.cos((p * Math.PI) / 2) * Math.SQRT2, Math.sin((p * Math.PI) / 2) * Math.SQRT2];
 }
 
-interface MembraneOpts {
+export interface MembraneOpts {
   f0: number;
   strikeRadius: number; // 0 centre .. 1 edge
   tau0: number; // time constant of the (0,1) mode
@@ -140,7 +141,7 @@ interface MembraneOpts {
   highRatio?: number;
 }
 
-function membrane(s: Src, o: MembraneOpts): void {
+export function membrane(s: Src, o: MembraneOpts): void {
   const a = o.airLoading;
   const maxRatio = o.maxRatio ?? 6;
   const rDither = Math.min(0.95, Math.max(0.02, o.strikeRadius + s.rng.gauss() * 0.04));
@@ -192,7 +193,7 @@ function membrane(s: Src, o: MembraneOpts): void {
  * Noise for one channel of a close stereo pair: a part common to both microphones plus an independent part
  * (about 0.75 correlation: the pair hears one source from slightly different places; our assumption).
  */
-function pairNoise(n: number, s: Src, common: Float64Array | null): Float64Array {
+export function pairNoise(n: number, s: Src, common: Float64Array | null): Float64Array {
   const x = whiteNoise(n, s.rng);
   if (!common) return x;
   const a = 0.86, b = 0.5;
@@ -201,7 +202,7 @@ function pairNoise(n: number, s: Src, common: Float64Array | null): Float64Array
 }
 
 /** A burst of filtered noise (stick tip, beater click, rim crack). */
-function noiseBurst(s: Src, o: { lo: number; hi: number; tau: number; gain: number; attack?: number; start?: number }): void {
+export function noiseBurst(s: Src, o: { lo: number; hi: number; tau: number; gain: number; attack?: number; start?: number }): void {
   const n = Math.min(s.L.length, Math.ceil((o.tau * 12 + (o.attack ?? 0.0003)) * s.sr) + s.pre + (o.start ?? 0));
   const common = whiteNoise(n, s.rng);
   for (const [buf, k] of [[s.L, 0], [s.R, 1]] as const) {
@@ -214,7 +215,7 @@ function noiseBurst(s: Src, o: { lo: number; hi: number; tau: number; gain: numb
 }
 
 /** A few resonances (rim, shell, stick, cowbell): partials with given frequencies/amplitudes/decays. */
-function partials(s: Src, list: readonly { f: number; a: number; tau: number }[], gain: number, start = 0): void {
+export function partials(s: Src, list: readonly { f: number; a: number; tau: number }[], gain: number, start = 0): void {
   for (const p of list) {
     const [gl, gr] = pan(s.rng, 0.4);
     addMode(s.L, s.R, s.sr, {
@@ -330,7 +331,7 @@ function renderTom(s: Src, t: TomSpec, art: TomArticulation): number {
   return art === "edge" ? -5 : -4;
 }
 
-interface CymbalOpts {
+export interface CymbalOpts {
   nPartials: number;
   fLo: number;
   fHi: number;
@@ -349,7 +350,7 @@ interface CymbalOpts {
   gain?: number;
 }
 
-function cymbal(s: Src, o: CymbalOpts): void {
+export function cymbal(s: Src, o: CymbalOpts): void {
   const g = o.gain ?? 1;
   // low plate modes (f roughly proportional to n^2 for the low (n,0) modes of a thin plate, F&R ch. 3 and 20)
   for (let n = 2; n < 2 + (o.lowModes ?? 0); n++) {
@@ -411,7 +412,7 @@ function cymbal(s: Src, o: CymbalOpts): void {
   }
 }
 
-function cymbalStick(s: Src, vn: number, gain: number): void {
+export function cymbalStick(s: Src, vn: number, gain: number): void {
   // the stick tip's tick on metal
   noiseBurst(s, { lo: 2000, hi: 5000 + 10000 * vn, tau: 0.0012, gain: gain * (0.3 + 0.7 * vn) });
 }
@@ -576,6 +577,30 @@ export const NOISE_FLOOR_DBFS = -80;
  * drummer's range) plus a natural take-to-take spread.
  */
 export function renderSound(sound: SoundSpec, opts: RenderOptions): Float32Array[] {
+  const key = `${sound.family}|${JSON.stringify(sound.instrument)}|${sound.articulation}|${opts.velocity}|${opts.seed}`;
+  return renderTake(key, defaultSeconds(sound), opts, (s) => drawSound(sound, s));
+}
+
+/** Draws a sound's dry source into a take's buffers; returns its reference peak level in dB at full strength. */
+export function drawSound(sound: SoundSpec, s: Src): number {
+  switch (sound.family) {
+    case "kick": return renderKick(s, sound.instrument, sound.articulation);
+    case "snare": return renderSnare(s, sound.instrument, sound.articulation);
+    case "tom": return renderTom(s, sound.instrument, sound.articulation);
+    case "hi-hat": return renderHiHat(s, sound.instrument, sound.articulation);
+    case "crash": return renderCrash(s, sound.instrument, sound.articulation);
+    case "ride": return renderRide(s, sound.instrument, sound.articulation);
+    case "china": return renderChina(s, sound.instrument, sound.articulation);
+    case "cowbell": return renderCowbell(s, sound.instrument, sound.articulation);
+  }
+}
+
+/**
+ * One take of any source: `body` writes the dry sound into the source buffers and returns its reference peak level
+ * in dB; the take then gets its attack, level (the velocity law of renderSound), microphone, room and noise floor.
+ * `key` seeds every random choice of the take.
+ */
+export function renderTake(key: string, defaultSecs: number, opts: RenderOptions, body: (s: Src) => number): Float32Array[] {
   const { sampleRate: sr } = opts;
   if (!Number.isFinite(sr) || sr < 8000 || sr > 384000) throw new RangeError(`sample rate out of range: ${sr}`);
   if (!Number.isFinite(opts.velocity) || opts.velocity < 1 || opts.velocity > 127) {
@@ -583,9 +608,8 @@ export function renderSound(sound: SoundSpec, opts: RenderOptions): Float32Array
   }
   const mic = opts.mic ?? "close";
   const channels = opts.channels ?? 2;
-  const seconds = opts.seconds ?? defaultSeconds(sound);
+  const seconds = opts.seconds ?? defaultSecs;
   const n = Math.max(1, Math.round(seconds * sr));
-  const key = `${sound.family}|${JSON.stringify(sound.instrument)}|${sound.articulation}|${opts.velocity}|${opts.seed}`;
   const rng = rngFromKey(key);
   // the player never strikes twice alike: a little velocity scatter drives both level and timbre
   const v = Math.min(127, Math.max(1, opts.velocity * (1 + rng.gauss() * 0.03)));
@@ -593,17 +617,7 @@ export function renderSound(sound: SoundSpec, opts: RenderOptions): Float32Array
     L: new Float64Array(n), R: new Float64Array(n), sr, rng: rng.fork("sound"), v, vn: v / 127,
     pre: Math.round(0.002 * sr), // a couple of milliseconds of pre-roll before the strike (common trimming practice)
   };
-  let refDb: number;
-  switch (sound.family) {
-    case "kick": refDb = renderKick(s, sound.instrument, sound.articulation); break;
-    case "snare": refDb = renderSnare(s, sound.instrument, sound.articulation); break;
-    case "tom": refDb = renderTom(s, sound.instrument, sound.articulation); break;
-    case "hi-hat": refDb = renderHiHat(s, sound.instrument, sound.articulation); break;
-    case "crash": refDb = renderCrash(s, sound.instrument, sound.articulation); break;
-    case "ride": refDb = renderRide(s, sound.instrument, sound.articulation); break;
-    case "china": refDb = renderChina(s, sound.instrument, sound.articulation); break;
-    case "cowbell": refDb = renderCowbell(s, sound.instrument, sound.articulation); break;
-  }
+  const refDb = body(s);
   // attack: the contact itself takes time; soft strokes are slower to build up (shorter attack when harder)
   const attackS = 0.0004 + 0.0025 * (1 - s.vn) * (1 - s.vn);
   for (const b of [s.L, s.R]) {

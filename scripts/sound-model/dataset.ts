@@ -13,6 +13,7 @@ import { soundFeatures } from "../../lib/catalogue/sound-features";
 import type { TrainingRow } from "../../lib/catalogue/sound-model";
 import { demoScenario } from "../../lib/synth/scenario";
 import { renderScenarioFile } from "../../lib/synth/render";
+import { renderVariety, varietyFiles } from "../../lib/synth/varieties";
 import { encodeWav } from "../../lib/synth/wav";
 import { corpusDir, readCorpus, type CorpusItem } from "../corpus/corpus";
 
@@ -105,10 +106,18 @@ export function corpusRows(opts: { augment: boolean; dir?: string } = { augment:
   return rows;
 }
 
-/** Our generator's demo library (seeds 1 and 2): each instrument is one group. */
-export function generatorRows(seeds = [1]): Row[] {
+/**
+ * What our generator contributes: the demo library's scenario seeds and the training-variety seeds
+ * (lib/synth/varieties.ts) with their scale (instruments per kind). Variety seeds [1, 2] lifted the held-out corpus
+ * (family 81.4 -> 82.3 %, stroke 69.0 -> 73.4 %, mean over forest seeds 7-12) but fail the out-of-fold calibration
+ * check of floors.test.ts at the committed forest seed, so they are off (scripts/sound-model/README.md).
+ */
+export const GENERATOR: { demoSeeds: number[]; varietySeeds: number[]; varietyScale: number } = { demoSeeds: [1, 2], varietySeeds: [], varietyScale: 1 };
+
+/** Our generator's rows: the demo library and the training varieties; each instrument is one group. */
+export function generatorRows(opts = GENERATOR): Row[] {
   const rows: Row[] = [];
-  for (const seed of seeds) {
+  for (const seed of opts.demoSeeds) {
     for (const f of demoScenario({ seed })) {
       if (f.duplicateOf || f.post) continue; // damaged files teach nothing about the sound
       const m = measureBytes(renderScenarioFile(f));
@@ -119,6 +128,21 @@ export function generatorRows(seeds = [1]): Row[] {
         family: f.truth.family,
         articulation: f.truth.articulation,
         group: `generator:${f.truth.instrumentId}`,
+        features: soundFeatures(m),
+        measurement: m,
+      });
+    }
+  }
+  for (const seed of opts.varietySeeds) {
+    for (const f of varietyFiles(seed, opts.varietyScale)) {
+      const m = measureBytes(encodeWav(renderVariety(f), { sampleRate: f.sampleRate, bits: 24 }));
+      rows.push({
+        id: `variety:${f.id}`,
+        source: "generator",
+        augmentation: "",
+        family: f.family,
+        articulation: f.articulation,
+        group: `generator:${f.instrument.id}`,
         features: soundFeatures(m),
         measurement: m,
       });

@@ -2,7 +2,7 @@
 //                         rows, written to lib/catalogue/sound-model.json with its version, data hash and command
 // npm run eval:sound    — grouped cross-validation only: accuracy, confusion, per-class recall, calibration,
 //                         cut-tail flag rate per family; printed, and written to scripts/sound-model/RESULTS.md
-// Options: --folds N (5), --trees N, --no-generator, --quick (a small subset: proves the pipeline, judges nothing)
+// Options: --folds N (5), --trees N, --seed N (the forest seed), --no-generator, --varieties (the training varieties too), --quick (a small subset: proves the pipeline, judges nothing)
 
 import { createHash } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
@@ -12,7 +12,7 @@ import { SOUND_FEATURE_NAMES } from "../../lib/catalogue/sound-features";
 import { suggestByRules } from "../../lib/catalogue/classify";
 import { calibrationTable, domainOf, trainSoundModel, type ForestOptions, type SoundModel } from "../../lib/catalogue/sound-model";
 import { corpusDir } from "../corpus/corpus";
-import { corpusRows, dataHash, generatorRows, type Row } from "./dataset";
+import { corpusRows, dataHash, GENERATOR, generatorRows, type Row } from "./dataset";
 import { ARTICULATION_KEYS, crossValidate, formatCalibrationCheck, formatReport, outOfFoldCalibration, report, type Prediction } from "./evaluate";
 
 const ROOT = path.resolve(__dirname, "../..");
@@ -30,10 +30,15 @@ function log(msg: string) {
   process.stderr.write(`[sound-model] ${msg}\n`);
 }
 
-/** Measured rows, cached under .data/corpus by what they depend on (corpus labels, measurer, features). */
-export function loadRows(opts: { generator: boolean }): { corpus: Row[]; generator: Row[] } {
+/** Measured rows, cached under .data/corpus by what they depend on (corpus labels, measurer, features, generator). */
+export function loadRows(opts: { generator: boolean; config?: typeof GENERATOR }): { corpus: Row[]; generator: Row[] } {
+  const config = opts.config ?? GENERATOR;
   const labels = readFileSync(path.join(corpusDir(), "labels.json"));
-  const key = createHash("sha256").update(labels).update(`${MEASURE_VERSION}|${SOUND_FEATURE_NAMES.join(",")}|${readFileSync(path.join(__dirname, "dataset.ts"))}`).digest("hex").slice(0, 16);
+  // the rows depend on this file's dataset code and on the generator's sources (the demo library, the varieties)
+  const sources = ["scripts/sound-model/dataset.ts", ...["drums", "dsp", "rng", "render", "scenario", "varieties", "wav"].map((f) => `lib/synth/${f}.ts`)];
+  const hash = createHash("sha256").update(labels).update(`${MEASURE_VERSION}|${SOUND_FEATURE_NAMES.join(",")}|${JSON.stringify(config)}`);
+  for (const f of sources) hash.update(readFileSync(path.join(ROOT, f)));
+  const key = hash.digest("hex").slice(0, 16);
   const cache = path.join(ROOT, ".data/corpus", `rows-${key}.json`);
   if (existsSync(cache)) {
     const c = JSON.parse(readFileSync(cache, "utf8")) as { corpus: Row[]; generator: Row[] };
@@ -41,7 +46,7 @@ export function loadRows(opts: { generator: boolean }): { corpus: Row[]; generat
   }
   log("measuring the corpus (and its augmented copies) and the generator's library");
   const corpus = corpusRows({ augment: true });
-  const generator = generatorRows([1, 2]);
+  const generator = generatorRows(config);
   const strip = (r: Row) => ({ ...r, measurement: { tail: r.measurement.tail, format: { durationSec: r.measurement.format.durationSec } } }) as unknown as Row;
   mkdirSync(path.dirname(cache), { recursive: true });
   writeFileSync(cache, JSON.stringify({ corpus: corpus.map(strip), generator: generator.map(strip) }));
@@ -86,8 +91,10 @@ function main() {
   const mode = process.argv[2];
   const quick = process.argv.includes("--quick");
   const folds = Number(arg("--folds") ?? 5);
-  const forest = { ...FOREST, ...(arg("--trees") ? { trees: Number(arg("--trees")) } : {}), ...(quick ? { trees: 5 } : {}) };
-  let rows = loadRows({ generator: !process.argv.includes("--no-generator") });
+  const forest = { ...FOREST, ...(arg("--trees") ? { trees: Number(arg("--trees")) } : {}), ...(arg("--seed") ? { seed: Number(arg("--seed")) } : {}), ...(quick ? { trees: 5 } : {}) };
+  // --varieties: the training varieties' seeds 1 and 2 added to the generator rows (README: tried, not committed)
+  const config = process.argv.includes("--varieties") ? { ...GENERATOR, varietySeeds: [1, 2] } : GENERATOR;
+  let rows = loadRows({ generator: !process.argv.includes("--no-generator"), config });
   if (quick) {
     // a few recordings of each family: enough to run every step, not to judge anything
     const keep = new Set<string>();
