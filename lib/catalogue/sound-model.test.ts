@@ -4,7 +4,8 @@ import { demoScenario } from "../synth/scenario";
 import { renderScenarioFile } from "../synth/render";
 import { suggestByModel, suggestFromSound } from "./classify";
 import { soundFeatures, SOUND_FEATURE_NAMES } from "./sound-features";
-import { calibrate, calibrationTable, predictSound, trainSoundModel, type TrainingRow } from "./sound-model";
+import { RandomForestClassifier } from "ml-random-forest";
+import { calibrate, calibrationTable, compactForest, predictSound, trainSoundModel, type TrainingRow } from "./sound-model";
 import { trainedSoundModel } from "./sound-model-file";
 import { FAMILIES, FAMILY_ARTICULATIONS } from "./taxonomy";
 
@@ -49,6 +50,24 @@ describe("training pipeline (a small subset of our generator's library: proves t
     const test = pick(2).filter((_, i) => i % 4 === 0);
     const right = test.filter((f) => predictSound(model, soundFeatures(measureBytes(renderScenarioFile(f)))).family === f.truth.family);
     expect(right.length / test.length).toBeGreaterThanOrEqual(0.9);
+  });
+});
+
+describe("compactForest: the forest's file without the fields loading and predicting never read", () => {
+  it("votes exactly as the full forest (ml-random-forest's own toJSON/load) on random rows, at a fraction of the size", () => {
+    // a random table: 3 classes from 6 features, the class a noisy function of two of them
+    let s = 12345;
+    const r = () => ((s = (s * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    const X = Array.from({ length: 300 }, () => Array.from({ length: 6 }, r));
+    const Y = X.map((x) => (x[0]! + 0.3 * r() > 0.8 ? 2 : x[3]! > 0.5 ? 1 : 0));
+    const rf = new RandomForestClassifier({ nEstimators: 10, maxFeatures: 0.5, replacement: false, useSampleBagging: true, noOOB: true, seed: 3, treeOptions: { maxDepth: 8, minNumSamples: 2 } } as never);
+    rf.train(X, Y);
+    const full = rf.toJSON();
+    const small = compactForest(full);
+    expect(JSON.stringify(small).length).toBeLessThan(JSON.stringify(full).length * 0.5);
+    const test = Array.from({ length: 200 }, () => Array.from({ length: 6 }, r));
+    const votes = (j: unknown) => (RandomForestClassifier.load(j as never).predictionValues(test) as unknown as { to2DArray(): number[][] }).to2DArray();
+    expect(votes(small)).toEqual(votes(full));
   });
 });
 
