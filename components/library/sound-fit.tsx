@@ -4,6 +4,7 @@
 // it hesitated between (a crash or a china, a tom or a hand drum), so a producer auditing an import sees where to
 // listen first.
 import type { SampleDetail } from "@/lib/api-types/samples";
+import { formatConfidence } from "@/lib/catalogue/confidence";
 
 const SOURCE_WORDS: Record<NonNullable<SampleDetail["sound"]>["source"], string> = {
   model: "share of the trained model's votes",
@@ -40,6 +41,11 @@ export function SoundFit({ sound, family, familySource }: { sound: NonNullable<S
           );
         })}
       </ul>
+      {sound.source === "model" && (
+        <p className="text-xs text-muted" data-testid="sound-fit-confidence">
+          Votes are not odds: answers given with this share of the votes were right {formatConfidence(sound.confidence)} of the time on recordings the model had not heard.
+        </p>
+      )}
       {differs && (
         <p className="text-xs text-muted">
           Labelled {familyWords(family)} by {DECIDED_BY[familySource ?? ""] ?? "another rule"}, not by the sound.
