@@ -188,6 +188,27 @@ const WEIGHT_SUSTAIN = (w: number) => Math.sqrt(w);
 
 const contact = (tFull: number, v: number) => tFull * Math.pow(127 / v, 0.45);
 
+/** A crash-like cymbal (crash, splash): one renderer, the kind's constants apart. Pairs are [base, per velocity]
+ * or [low clamp, high clamp]; the choke is [start, random extra, fall time constant] in seconds. */
+function crashLike(k: {
+  nPartials: number; fLo: [number, number]; fHi: number; tauExp: number; contactFull: number; lowModes: number;
+  washGain: (p: VarietyParams, vn: number) => number; washHi: [number, number]; washTau: number; washRise: [number, number];
+  tick: number; choke: [number, number, number]; level: number;
+}) {
+  return (s: Src, p: VarietyParams, a: Articulation): number => {
+    const sz = num(p, "diameterIn") / 18, w = num(p, "weight"), vn = s.vn, fs = w / (sz * sz);
+    const tau = 0.42 * sz * num(p, "decay") * WEIGHT_SUSTAIN(w);
+    cymbal(s, {
+      nPartials: k.nPartials, fLo: clamp(300 * fs, k.fLo[0], k.fLo[1]), fHi: k.fHi, tau1k: tau, tauExp: k.tauExp, contactT: contact(k.contactFull, s.v),
+      lowModes: k.lowModes, lowBase: 55 * fs, washGain: k.washGain(p, vn), washLo: num(p, "washLo"), washHi: k.washHi[0] + k.washHi[1] * vn,
+      washTau: tau * k.washTau, washRise: k.washRise[0] + k.washRise[1] * vn,
+    });
+    stickTick(s, k.tick);
+    if (a === "choke") choke(s, k.choke[0] + k.choke[1] * s.rng.next(), k.choke[2]);
+    return k.level;
+  };
+}
+
 // ---------------------------------------------------------------------------------------------------------
 // Acoustic drums: drums.ts renderers with sampled builds
 
@@ -271,36 +292,16 @@ const KINDS: Record<VarietyKind, KindDef> = {
     sample: (r) => ({ diameterIn: pick(r, [14, 15, 16, 17, 18, 19, 20]), weight: rd(r.range(0.8, 1.25)), washLo: rd(r.range(2500, 4000), 0), washGain: rd(r.range(0.4, 0.9)), decay: rd(r.range(0.75, 1.3)) }),
     strokes: (r) => ["crash-hit", "crash-hit", r.next() < 0.3 ? "choke" : "crash-hit"],
     seconds: (r, _p, a) => rd(a === "choke" ? r.range(0.8, 1.5) : r.range(2.5, 4), 2),
-    render: (s, p, a) => {
-      const sz = num(p, "diameterIn") / 18, w = num(p, "weight"), vn = s.vn, fs = w / (sz * sz);
-      const tau = 0.42 * sz * num(p, "decay") * WEIGHT_SUSTAIN(w);
-      cymbal(s, {
-        nPartials: 140, fLo: clamp(300 * fs, 200, 700), fHi: 16000, tau1k: tau, tauExp: 0.4, contactT: contact(0.00035, s.v),
-        lowModes: 6, lowBase: 55 * fs, washGain: num(p, "washGain") + 0.6 * vn, washLo: num(p, "washLo"), washHi: 8000 + 6000 * vn,
-        washTau: tau * 1.05, washRise: 0.003 + 0.006 * vn,
-      });
-      stickTick(s, 0.35);
-      if (a === "choke") choke(s, 0.18 + 0.12 * s.rng.next(), 0.025);
-      return -5;
-    },
+    render: crashLike({ nPartials: 140, fLo: [200, 700], fHi: 16000, tauExp: 0.4, contactFull: 0.00035, lowModes: 6, washGain: (p, vn) => num(p, "washGain") + 0.6 * vn,
+      washHi: [8000, 6000], washTau: 1.05, washRise: [0.003, 0.006], tick: 0.35, choke: [0.18, 0.12, 0.025], level: -5 }),
   },
   splash: {
     family: "splash", count: 8,
     sample: (r) => ({ diameterIn: pick(r, [6, 7, 8, 8, 9, 10, 10, 11, 12]), weight: rd(r.range(0.8, 1.3)), washLo: rd(r.range(4000, 6500), 0), decay: rd(r.range(0.45, 0.85)) }),
     strokes: (r) => ["crash-hit", "crash-hit", r.next() < 0.2 ? "choke" : "crash-hit"],
     seconds: (r, _p, a) => rd(a === "choke" ? r.range(0.5, 1) : r.range(1, 2.5), 2),
-    render: (s, p, a) => {
-      const sz = num(p, "diameterIn") / 18, w = num(p, "weight"), vn = s.vn, fs = w / (sz * sz);
-      const tau = 0.42 * sz * num(p, "decay") * WEIGHT_SUSTAIN(w);
-      cymbal(s, {
-        nPartials: 110, fLo: clamp(300 * fs, 600, 1600), fHi: 17500, tau1k: tau, tauExp: 0.35, contactT: contact(0.0003, s.v),
-        lowModes: 3, lowBase: 55 * fs, washGain: 0.6 + 0.5 * vn, washLo: num(p, "washLo"), washHi: 11000 + 5000 * vn,
-        washTau: tau * 0.9, washRise: 0.002 + 0.003 * vn,
-      });
-      stickTick(s, 0.4);
-      if (a === "choke") choke(s, 0.1 + 0.08 * s.rng.next(), 0.02);
-      return -6;
-    },
+    render: crashLike({ nPartials: 110, fLo: [600, 1600], fHi: 17500, tauExp: 0.35, contactFull: 0.0003, lowModes: 3, washGain: (_p, vn) => 0.6 + 0.5 * vn,
+      washHi: [11000, 5000], washTau: 0.9, washRise: [0.002, 0.003], tick: 0.4, choke: [0.1, 0.08, 0.02], level: -6 }),
   },
   china: {
     family: "china", count: 8,
