@@ -57,6 +57,13 @@ async function catalogued(): Promise<number> {
   return Number(n);
 }
 
+/** Samples measured so far (measured, catalogued or rejected) and samples still waiting for or under measuring. */
+async function measuring(): Promise<{ done: number; left: number }> {
+  const rows = (await db()("samples").select("state").count({ n: "*" }).groupBy("state")) as { state: string; n: number }[];
+  const by = (states: string[]) => rows.filter((r) => states.includes(r.state)).reduce((a, r) => a + Number(r.n), 0);
+  return { done: by(["measured", "catalogued", "rejected"]), left: by(["queued", "measuring"]) };
+}
+
 /** Sends one batch until some app answers, through the preferred app first, then the other (a load balancer's retry). */
 async function send(lib: Lib, files: PlannedFile[], preferred: number, twin = false): Promise<void> {
   const s: Sent = { lib, files, attempts: 0, twin, outcomes: [] };
@@ -102,10 +109,15 @@ async function drive(): Promise<void> {
       );
     }
   }, 50);
+  let uploadsDone = false;
   const watchWorkers = (async () => {
     while (!workerKilled) {
-      const n = await catalogued();
-      if (n >= goodTotal * 0.25) {
+      // a quarter measured and samples still waiting: both workers are busy measuring, so the kill leaves jobs
+      // held by worker 2 for the stalled-job check to hand back (waiting for a quarter *catalogued* could come
+      // after the last measure job, the cataloguing being debounced)
+      const m = await measuring();
+      if (m.done >= goodTotal * 0.25 && m.left >= 8) {
+        const n = await catalogued();
         workerKilled = true;
         events.push(`${at()}: worker 2 killed (SIGKILL) with ${n} of about ${goodTotal} samples catalogued`);
         figures.workerKilledAtCatalogued = n;
@@ -116,6 +128,8 @@ async function drive(): Promise<void> {
         figures.workerKilledBeforeAllCatalogued = n < goodTotal ? "yes" : "no";
         break;
       }
+      // nothing left to measure and nothing more coming: no kill (the first test then says so)
+      if (uploadsDone && m.left === 0) break;
       await sleep(100);
     }
   })();
@@ -133,6 +147,7 @@ async function drive(): Promise<void> {
     events.push(`${at()}: every batch answered`);
   } finally {
     clearInterval(monitor);
+    uploadsDone = true;
     await Promise.all(kills);
   }
   await watchWorkers;
