@@ -15,10 +15,10 @@ import { MIC_POSITIONS } from "@/lib/catalogue/names";
 import { formatConfidence, soundUnsure } from "@/lib/catalogue/confidence";
 import type { RelabelBody, SampleRow } from "@/lib/api-types/samples";
 import { SAMPLE_FLAGS, SAMPLE_STATES, type SampleFlag } from "@/lib/validation/library";
-
-const FLAG_WORDS: Record<SampleFlag, string> = { review: "either reason", conflict: "name ≠ sound", unsure: "sound unsure" };
 import { Select as UiSelect } from "@/components/ui/select";
 import { Tip } from "@/components/ui/tooltip";
+
+const FLAG_WORDS: Record<SampleFlag, string> = { review: "either reason", conflict: "name ≠ sound", unsure: "sound unsure" };
 
 type Inst = { key: string; name: string; family: string };
 

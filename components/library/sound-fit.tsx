@@ -5,16 +5,13 @@
 // listen first.
 import type { SampleDetail } from "@/lib/api-types/samples";
 import { formatConfidence } from "@/lib/catalogue/confidence";
+import { familyWords } from "@/lib/catalogue/taxonomy";
 
 const SOURCE_WORDS: Record<NonNullable<SampleDetail["sound"]>["source"], string> = {
   model: "share of the trained model's votes",
   rules: "how well the rules of thumb fit",
   labels: "share of the nearest samples your studio confirmed",
 };
-
-function familyWords(f: string): string {
-  return f === "hand-drum" ? "hand drum" : f;
-}
 
 const DECIDED_BY: Record<string, string> = { name: "its name", person: "a member's label", sound: "the sound" };
 

@@ -67,12 +67,16 @@ export const SOUND_FIT_SHOWN = 4;
 
 /** The families a sound suggestion weighed, best first: at most SOUND_FIT_SHOWN, none below 1 %. */
 export function soundFit(s: Pick<SoundSuggestion, "family" | "familyScores">): SoundFit[] {
-  const list = (Object.entries(s.familyScores) as [Family, number][])
+  // best first; on a tie the sound's own family, then by name
+  const rank = ([f, v]: [Family, number]) => [-v, f === s.family ? 0 : 1, f] as const;
+  return (Object.entries(s.familyScores) as [Family, number][])
     .filter(([, v]) => Number.isFinite(v) && v >= 0.01)
-    .sort((a, b) => b[1] - a[1] || (a[0] === s.family ? -1 : b[0] === s.family ? 1 : a[0] < b[0] ? -1 : 1))
+    .sort((a, b) => {
+      const [x, y] = [rank(a), rank(b)];
+      return x[0] - y[0] || x[1] - y[1] || x[2].localeCompare(y[2]);
+    })
     .slice(0, SOUND_FIT_SHOWN)
     .map(([family, v]) => ({ family, fit: Math.round(Math.min(1, v) * 1000) / 1000 }));
-  return list;
 }
 
 export interface CatalogueEntry {

@@ -24,7 +24,7 @@ import { decaySec, distance, featureVector, fitStandardiser, standardise, type S
 import { soundFeatures } from "./sound-features";
 import { predictSound, type SoundModel } from "./sound-model";
 import { trainedSoundModel } from "./sound-model-file";
-import { FAMILY_ARTICULATIONS, type Articulation, type Family, type Stroke } from "./taxonomy";
+import { FAMILY_ARTICULATIONS, familyWords, type Articulation, type Family, type Stroke } from "./taxonomy";
 
 export interface SoundSuggestion {
   family: Family;
@@ -244,7 +244,7 @@ function fitWords(m: Measurement, family: Family): string | null {
 /** A family in running text: "a hi-hat", "a hand drum", "an other sound". */
 function aFamily(f: Family): string {
   if (f === "other") return "another kind of percussion";
-  const w = f === "hand-drum" ? "hand drum" : f;
+  const w = familyWords(f);
   return `${/^[aeiou]/.test(w) ? "an" : "a"} ${w}`;
 }
 

@@ -43,6 +43,11 @@ export const FAMILY_ARTICULATIONS: Record<Family, readonly Articulation[]> = {
   other: ["hit"],
 };
 
+/** A family as a drummer writes it in running text ("hand drum"; the others as they are). */
+export function familyWords(f: string): string {
+  return f === "hand-drum" ? "hand drum" : f;
+}
+
 export function isFamily(s: string): s is Family {
   return (FAMILIES as readonly string[]).includes(s);
 }

@@ -412,6 +412,16 @@ export function cymbal(s: Src, o: CymbalOpts): void {
   }
 }
 
+/** Chokes a ringing source: a hand grabs it `at` seconds after the strike and it dies with time constant tau. */
+export function choke(s: Src, at: number, tau: number): void {
+  const tc = s.pre + Math.round(at * s.sr);
+  const dec = Math.exp(-1 / (tau * s.sr));
+  for (const b of [s.L, s.R]) {
+    let g = 1;
+    for (let i = tc; i < b.length; i++) { g *= dec; b[i] *= g; }
+  }
+}
+
 export function cymbalStick(s: Src, vn: number, gain: number): void {
   // the stick tip's tick on metal
   noiseBurst(s, { lo: 2000, hi: 5000 + 10000 * vn, tau: 0.0012, gain: gain * (0.3 + 0.7 * vn) });
@@ -472,12 +482,7 @@ function renderCrash(s: Src, c: CymbalSpec, art: CrashArticulation): number {
   cymbalStick(s, vn, 0.35);
   if (art === "choke") {
     // a hand grabs the edge: everything dies within a few tens of milliseconds after ~0.25 s
-    const tc = s.pre + Math.round((0.22 + 0.06 * s.rng.next()) * s.sr);
-    const dec = Math.exp(-1 / (0.025 * s.sr));
-    for (const b of [s.L, s.R]) {
-      let g = 1;
-      for (let i = tc; i < b.length; i++) { g *= dec; b[i] *= g; }
-    }
+    choke(s, 0.22 + 0.06 * s.rng.next(), 0.025);
   }
   return art === "bow" ? -7 : -5;
 }
@@ -516,14 +521,7 @@ function renderChina(s: Src, c: CymbalSpec, art: ChinaArticulation): number {
     sizzle: 0.55, sizzleRate: 70, gain: 1.1,
   });
   cymbalStick(s, vn, 0.3);
-  if (art === "choke") {
-    const tc = s.pre + Math.round((0.18 + 0.05 * s.rng.next()) * s.sr);
-    const dec = Math.exp(-1 / (0.02 * s.sr));
-    for (const b of [s.L, s.R]) {
-      let g = 1;
-      for (let i = tc; i < b.length; i++) { g *= dec; b[i] *= g; }
-    }
-  }
+  if (art === "choke") choke(s, 0.18 + 0.05 * s.rng.next(), 0.02);
   return -5;
 }
 

@@ -30,10 +30,10 @@
 
 import type { Articulation, Family } from "../catalogue/taxonomy";
 import {
-  cymbal, drawSound, membrane, noiseBurst, partials, renderTake, type CymbalOpts, type KickSpec, type Mic,
+  choke, contactTime, cymbal, cymbalStick, drawSound, membrane, noiseBurst, partials, renderTake, type CymbalOpts, type KickSpec, type Mic,
   type SnareSpec, type Src, type TomSpec,
 } from "./drums";
-import { biquad, mixInto, whiteNoise } from "./dsp";
+import { applyEnvelope, biquad, mixInto, whiteNoise } from "./dsp";
 import { rngFromKey, type Rng } from "./rng";
 
 export type VarietyKind =
@@ -93,19 +93,6 @@ const clamp = (x: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, x
 function addMono(s: Src, x: Float64Array, gain: number, right = 1): void {
   mixInto(s.L, x, gain, s.pre);
   mixInto(s.R, x, gain * right, s.pre);
-}
-
-/** Exponential decay envelope with a short raised-cosine attack, multiplied into x from sample 0. */
-function envelope(x: Float64Array, sr: number, tau: number, attack = 0.0005, from = 0): void {
-  const na = Math.max(1, Math.round(attack * sr));
-  const dec = Math.exp(-1 / (tau * sr));
-  let g = 1;
-  for (let i = 0; i < x.length; i++) {
-    if (i < from) { x[i] = 0; continue; }
-    const n = i - from;
-    if (n < na) x[i] *= 0.5 - 0.5 * Math.cos((Math.PI * n) / na);
-    else { g *= dec; x[i] *= g; }
-  }
 }
 
 /** A sustained sound's gate: raised-cosine attack, held for `len` seconds, then a 20 ms release. */
@@ -169,24 +156,12 @@ function noiseOf(s: Src, n: number, lo: number, hi: number): Float64Array {
 /** n samples of the take after its pre-roll, at most `sec` seconds */
 const span = (s: Src, sec: number) => Math.max(1, Math.min(s.L.length - s.pre, Math.round(sec * s.sr)));
 
-/** Chokes a ringing source: a hand grabs it at about `at` seconds, and it dies with time constant tau. */
-function choke(s: Src, at: number, tau: number): void {
-  const tc = s.pre + Math.round(at * s.sr);
-  const dec = Math.exp(-1 / (tau * s.sr));
-  for (const b of [s.L, s.R]) {
-    let g = 1;
-    for (let i = tc; i < b.length; i++) { g *= dec; b[i] *= g; }
-  }
-}
-
-function stickTick(s: Src, gain: number): void {
-  noiseBurst(s, { lo: 2000, hi: 5000 + 10000 * s.vn, tau: 0.0012, gain: gain * (0.3 + 0.7 * s.vn) });
-}
+/** The stick tip's tick on metal (drums.ts cymbalStick at the take's velocity). */
+const stickTick = (s: Src, gain: number) => cymbalStick(s, s.vn, gain);
 
 /** decay-time factor of a cymbal's relative weight (header: heavier sustains longer; the square root is our choice) */
 const WEIGHT_SUSTAIN = (w: number) => Math.sqrt(w);
 
-const contact = (tFull: number, v: number) => tFull * Math.pow(127 / v, 0.45);
 
 /** A crash-like cymbal (crash, splash): one renderer, the kind's constants apart. Pairs are [base, per velocity]
  * or [low clamp, high clamp]; the choke is [start, random extra, fall time constant] in seconds. */
@@ -199,7 +174,7 @@ function crashLike(k: {
     const sz = num(p, "diameterIn") / 18, w = num(p, "weight"), vn = s.vn, fs = w / (sz * sz);
     const tau = 0.42 * sz * num(p, "decay") * WEIGHT_SUSTAIN(w);
     cymbal(s, {
-      nPartials: k.nPartials, fLo: clamp(300 * fs, k.fLo[0], k.fLo[1]), fHi: k.fHi, tau1k: tau, tauExp: k.tauExp, contactT: contact(k.contactFull, s.v),
+      nPartials: k.nPartials, fLo: clamp(300 * fs, k.fLo[0], k.fLo[1]), fHi: k.fHi, tau1k: tau, tauExp: k.tauExp, contactT: contactTime(k.contactFull, s.v),
       lowModes: k.lowModes, lowBase: 55 * fs, washGain: k.washGain(p, vn), washLo: num(p, "washLo"), washHi: k.washHi[0] + k.washHi[1] * vn,
       washTau: tau * k.washTau, washRise: k.washRise[0] + k.washRise[1] * vn,
     });
@@ -259,7 +234,7 @@ const KINDS: Record<VarietyKind, KindDef> = {
       const sz = num(p, "diameterIn") / 14, w = num(p, "weight"), vn = s.vn;
       const fs = w / (sz * sz); // plate modes scale as h / a^2
       const base: CymbalOpts = {
-        nPartials: 60, fLo: clamp(500 * fs, 300, 1100), fHi: 16000, tau1k: 0, tauExp: 0.5, contactT: contact(0.00025, s.v),
+        nPartials: 60, fLo: clamp(500 * fs, 300, 1100), fHi: 16000, tau1k: 0, tauExp: 0.5, contactT: contactTime(0.00025, s.v),
         washGain: 0.6, washLo: num(p, "washLo"), washHi: 9000 + 7000 * vn, washTau: 0, washRise: 0.001,
       };
       const t = num(p, "tight");
@@ -311,7 +286,7 @@ const KINDS: Record<VarietyKind, KindDef> = {
     render: (s, p, a) => {
       const sz = num(p, "diameterIn") / 18, w = num(p, "weight"), vn = s.vn, fs = w / (sz * sz);
       const tau = 0.3 * sz * num(p, "decay") * WEIGHT_SUSTAIN(w);
-      const T = contact(0.0004, s.v);
+      const T = contactTime(0.0004, s.v);
       cymbal(s, {
         nPartials: 160, fLo: clamp(350 * fs, 250, 600), fHi: 11000, tau1k: tau, tauExp: 0.4, contactT: T, lowModes: 6, lowBase: 70 * fs,
         washGain: 0.6 + 0.3 * vn, washLo: num(p, "washLo"), washHi: 6000 + 4000 * vn, washTau: tau, washRise: 0.008,
@@ -334,12 +309,12 @@ const KINDS: Record<VarietyKind, KindDef> = {
       if (a === "bell") {
         const f = num(p, "bellHz") * Math.sqrt(fs);
         partials(s, [1, 1.5, 2.12, 2.71, 3.37, 4.3].map((q, i) => ({ f: f * q * (1 + 0.03 * s.rng.gauss()), a: 0.55 / (1 + i * 0.5), tau: (0.5 + 0.4 * s.rng.next()) / (1 + i * 0.35) })), 1);
-        cymbal(s, { nPartials: 50, fLo: 1500, fHi: 14000, tau1k: 0.6, tauExp: 0.5, contactT: contact(0.0002, s.v), washGain: 0.08 + 0.1 * vn, washLo: 4000, washHi: 11000, washTau: 0.5, washRise: 0.01, gain: 0.45 });
+        cymbal(s, { nPartials: 50, fLo: 1500, fHi: 14000, tau1k: 0.6, tauExp: 0.5, contactT: contactTime(0.0002, s.v), washGain: 0.08 + 0.1 * vn, washLo: 4000, washHi: 11000, washTau: 0.5, washRise: 0.01, gain: 0.45 });
         stickTick(s, 0.35);
         return -6;
       }
       cymbal(s, {
-        nPartials: 130, fLo: clamp(300 * fs, 200, 600), fHi: 15000, tau1k: 0.55 * sz * WEIGHT_SUSTAIN(w), tauExp: 0.35, contactT: contact(0.0003, s.v),
+        nPartials: 130, fLo: clamp(300 * fs, 200, 600), fHi: 15000, tau1k: 0.55 * sz * WEIGHT_SUSTAIN(w), tauExp: 0.35, contactT: contactTime(0.0003, s.v),
         lowModes: 5, lowBase: 45 * fs, washGain: num(p, "washGain") + 0.15 * vn, washLo: 3500, washHi: 7000 + 5000 * vn, washTau: 0.5, washRise: 0.008,
       });
       partials(s, [1, 1.41, 1.87].map((q, i) => ({ f: num(p, "pingHz") * q * (1 + s.rng.gauss() * 0.03), a: 0.08 / (i + 1), tau: 0.25 })), 1);
@@ -381,17 +356,17 @@ const KINDS: Record<VarietyKind, KindDef> = {
       partials(s, [1, 1.6].map((q, i) => ({ f: num(p, "shellHz") * q, a: 0.03 / (i + 1), tau: 0.03 })), 1);
       switch (a) {
         case "slap":
-          membrane(s, { ...common, f0, strikeRadius: 0.75, tau0: 0.04, tauExp: 0.1, contactT: contact(0.0006, s.v), gain: 1, highModes: 40, highRatio: 20 });
+          membrane(s, { ...common, f0, strikeRadius: 0.75, tau0: 0.04, tauExp: 0.1, contactT: contactTime(0.0006, s.v), gain: 1, highModes: 40, highRatio: 20 });
           noiseBurst(s, { lo: 1000, hi: 6000 + 5000 * vn, tau: 0.003 + 0.004 * s.rng.next(), gain: 0.35 + 0.4 * vn });
           return -4;
         case "bass":
-          membrane(s, { ...common, f0: f0 * 0.97, strikeRadius: 0.06, tau0: tau0 * 0.6, tauExp: 0.9, contactT: contact(0.005, s.v), gain: 1 });
+          membrane(s, { ...common, f0: f0 * 0.97, strikeRadius: 0.06, tau0: tau0 * 0.6, tauExp: 0.9, contactT: contactTime(0.005, s.v), gain: 1 });
           return -5;
         case "mute":
-          membrane(s, { ...common, f0, strikeRadius: 0.5, tau0: 0.03, tauExp: 0.5, contactT: contact(0.002, s.v), gain: 1 });
+          membrane(s, { ...common, f0, strikeRadius: 0.5, tau0: 0.03, tauExp: 0.5, contactT: contactTime(0.002, s.v), gain: 1 });
           return -7;
         default:
-          membrane(s, { ...common, f0, strikeRadius: 0.7, tau0, tauExp: 0.7, contactT: contact(0.0022, s.v), gain: 1 });
+          membrane(s, { ...common, f0, strikeRadius: 0.7, tau0, tauExp: 0.7, contactT: contactTime(0.0022, s.v), gain: 1 });
           return -4;
       }
     },
@@ -481,7 +456,7 @@ const KINDS: Record<VarietyKind, KindDef> = {
     seconds: (r) => rd(r.range(0.8, 1.6), 2),
     render: (s, p) => {
       // a thin head on an open metal shell, struck with a stick: membrane plus the shell's ring (memory)
-      membrane(s, { f0: num(p, "tuneHz"), strikeRadius: 0.45 + 0.2 * s.rng.next(), tau0: num(p, "ring"), tauExp: 0.5, contactT: contact(0.0006, s.v), airLoading: 0.08, glide: 0.02 * s.vn, glideTau: 0.04, gain: 1, maxRatio: 5 });
+      membrane(s, { f0: num(p, "tuneHz"), strikeRadius: 0.45 + 0.2 * s.rng.next(), tau0: num(p, "ring"), tauExp: 0.5, contactT: contactTime(0.0006, s.v), airLoading: 0.08, glide: 0.02 * s.vn, glideTau: 0.04, gain: 1, maxRatio: 5 });
       partials(s, [1, 1.59, 2.33, 3.1].map((q, i) => ({ f: num(p, "shellHz") * q, a: 0.25 / (1 + i), tau: num(p, "shellRing") / (1 + 0.4 * i) })), 1);
       stickTick(s, 0.4);
       return -4;
@@ -551,7 +526,7 @@ const KINDS: Record<VarietyKind, KindDef> = {
       addMono(s, fallingSine(n, s.sr, { startHz: num(p, "endHz") * num(p, "startRatio"), endHz: num(p, "endHz"), fallTau: num(p, "fallTau"), ampTau: num(p, "ampTau") }), 1);
       if (num(p, "noise") > 0.05) {
         const z = noiseOf(s, span(s, 0.3), 200, 5000);
-        envelope(z, s.sr, 0.03);
+        applyEnvelope(z, s.sr, { attack: 0.0005, tau: 0.03 });
         addMono(s, z, num(p, "noise"));
       }
       return -4;
@@ -568,7 +543,7 @@ const KINDS: Record<VarietyKind, KindDef> = {
       addMono(s, fallingSine(n, s.sr, { startHz: f * 1.6, endHz: f, fallTau: 0.015, ampTau: tt }), 1);
       addMono(s, fallingSine(n, s.sr, { startHz: f * num(p, "second") * 1.3, endHz: f * num(p, "second"), fallTau: 0.015, ampTau: tt * 0.7 }), 0.5);
       const z = noiseOf(s, n, num(p, "noiseLo"), num(p, "noiseHi"));
-      envelope(z, s.sr, num(p, "noiseTau"), 0.0008);
+      applyEnvelope(z, s.sr, { attack: 0.0008, tau: num(p, "noiseTau") });
       addMono(s, z, num(p, "mix") * 0.6, 0.97);
       return -4;
     },
@@ -634,7 +609,7 @@ function metalBank(s: Src, p: VarietyParams, tau: number): void {
   biquad(x, s.sr, "highpass", num(p, "bandHz") * 0.7, 0.7);
   const z = noiseOf(s, n, num(p, "bandHz") * 0.6, 16000);
   for (let k = 0; k < n; k++) x[k]! += num(p, "noise") * z[k]!;
-  envelope(x, s.sr, tau, 0.0004);
+  applyEnvelope(x, s.sr, { attack: 0.0004, tau });
   addMono(s, x, 1, 0.98);
 }
 

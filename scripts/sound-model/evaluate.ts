@@ -75,10 +75,23 @@ export function report(preds: Prediction[], articulationJudged: (p: Prediction) 
     confusion: { labels, matrix },
     recall: recallOf(preds, (p) => p.row.family, (p) => p.family === p.row.family),
     articulationRecall: recallOf(artPreds, (p) => `${p.row.family} ${p.row.articulation}`, (p) => p.family === p.row.family && p.articulation === p.row.articulation),
-    familyCalibration: calibrationTable(preds.map((p) => ({ share: p.familyShare, right: p.family === p.row.family }))),
+    familyCalibration: calibrationTable(familyPairs(preds)),
     articulationCalibration: calibrationTable(artPreds.map((p) => ({ share: p.articulationShare, right: p.family === p.row.family && p.articulation === p.row.articulation }))),
     wrong: preds.filter((p) => p.family !== p.row.family),
   };
+}
+
+/** Each prediction's family vote share and whether the family was right: what a family calibration table reads. */
+export function familyPairs(preds: Prediction[]): { share: number; right: boolean }[] {
+  return preds.map((p) => ({ share: p.familyShare, right: p.family === p.row.family }));
+}
+
+/** The out-of-fold calibration check (outOfFoldCalibration): per bin of the confidence shown, and summed up. */
+export interface CalibrationCheck {
+  bins: { upTo: number; n: number; meanConfidence: number; right: number }[];
+  ece: number;
+  worstGap: number;
+  minBin: number;
 }
 
 /**
@@ -88,18 +101,11 @@ export function report(preds: Prediction[], articulationJudged: (p: Prediction) 
  * confidence shown (tenths); the expected calibration error (ECE: the file-weighted mean gap, Naeini, Cooper &
  * Hauskrecht, AAAI 2015) and the largest gap in a bin of at least `minBin` files.
  */
-export interface CalibrationCheck {
-  bins: { upTo: number; n: number; meanConfidence: number; right: number }[];
-  ece: number;
-  worstGap: number;
-  minBin: number;
-}
-
 export function outOfFoldCalibration(judged: Prediction[], calibrateFrom: Prediction[], minBin = 10): CalibrationCheck {
   const shown: { c: number; right: boolean }[] = [];
   for (const fold of [...new Set(judged.map((p) => p.fold))]) {
-    const table = calibrationTable(calibrateFrom.filter((p) => p.fold !== fold).map((p) => ({ share: p.familyShare, right: p.family === p.row.family })));
-    for (const p of judged.filter((x) => x.fold === fold)) shown.push({ c: calibrate(table, p.familyShare), right: p.family === p.row.family });
+    const table = calibrationTable(familyPairs(calibrateFrom.filter((p) => p.fold !== fold)));
+    for (const { share, right } of familyPairs(judged.filter((x) => x.fold === fold))) shown.push({ c: calibrate(table, share), right });
   }
   const bins = Array.from({ length: 10 }, (_, i) => ({ upTo: (i + 1) / 10, n: 0, sum: 0, right: 0 }));
   for (const x of shown) {

@@ -13,7 +13,7 @@ import { suggestByRules } from "../../lib/catalogue/classify";
 import { calibrationTable, domainOf, trainSoundModel, type ForestOptions, type SoundModel } from "../../lib/catalogue/sound-model";
 import { corpusDir } from "../corpus/corpus";
 import { corpusRows, dataHash, GENERATOR, generatorRows, type Row } from "./dataset";
-import { ARTICULATION_KEYS, crossValidate, formatCalibrationCheck, formatReport, outOfFoldCalibration, report, type Prediction } from "./evaluate";
+import { ARTICULATION_KEYS, crossValidate, familyPairs, formatCalibrationCheck, formatReport, outOfFoldCalibration, report, type Prediction } from "./evaluate";
 
 const ROOT = path.resolve(__dirname, "../..");
 export const MODEL_PATH = path.join(ROOT, "lib/catalogue/sound-model.data.ts");
@@ -140,7 +140,7 @@ function main() {
   model.version = String(model.meta.version);
   const heldOut = [...cv.corpus, ...cv.generator];
   model.calibration = {
-    family: calibrationTable(heldOut.map((p) => ({ share: p.familyShare, right: p.family === p.row.family }))),
+    family: calibrationTable(familyPairs(heldOut)),
     articulation: calibrationTable(heldOut.filter((p) => p.row.articulation).map((p) => ({ share: p.articulationShare, right: p.family === p.row.family && p.articulation === p.row.articulation }))),
   };
   writeModel(model);
