@@ -1,7 +1,7 @@
 // The sorted sweep (forest-split.ts) against ml-cart's own split search (ml-cart 2.1.1, the reference library):
 // same feature, same threshold, same Gini gain, on data with ties, several classes and constant features.
 import { describe, expect, it } from "vitest";
-import { mlCartBestSplit, sweepBestSplit } from "./forest-split";
+import { mlCartBestSplit, nodeFeatures, setNodeSampling, sweepBestSplit } from "./forest-split";
 
 function rng(seed: number) {
   let s = seed >>> 0 || 1;
@@ -30,5 +30,36 @@ describe("sorted-sweep split search equals ml-cart's split search", () => {
   it("one class only: no split, like ml-cart", () => {
     const XT = { rows: 2, getRow: (i: number) => [1, 2, 3, i] };
     expect(sweepBestSplit(XT, [0, 0, 0, 0])).toEqual(mlCartBestSplit(XT, [0, 0, 0, 0]));
+  });
+});
+
+describe("features tried per node (Breiman 2001: a fresh random subset at every split)", () => {
+  // ten features, only the first tells the two classes apart; the others are noise
+  const n = 60;
+  const r = rng(11);
+  const cols = Array.from({ length: 10 }, (_, f) => Array.from({ length: n }, (_, i) => (f === 0 ? (i < n / 2 ? 0 : 1) + 0.1 * r() : r())));
+  const y = Array.from({ length: n }, (_, i) => (i < n / 2 ? 0 : 1));
+  const XT = { rows: 10, getRow: (i: number) => cols[i]! };
+  it("all features: the informative one always wins", () => {
+    setNodeSampling(1, 5);
+    expect(nodeFeatures(10)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8, 9]);
+    expect(sweepBestSplit(XT, y, nodeFeatures(10)).maxColumn).toBe(0);
+  });
+  it("a fifth of them: two distinct features per node, the informative one in about a fifth of the nodes, reproducible from the seed", () => {
+    setNodeSampling(0.2, 5);
+    const draws = Array.from({ length: 500 }, () => nodeFeatures(10));
+    for (const d of draws) {
+      expect(d).toHaveLength(2);
+      expect(d[0]).toBeLessThan(d[1]!);
+    }
+    const withFirst = draws.filter((d) => d.includes(0)).length / draws.length;
+    expect(withFirst).toBeGreaterThan(0.15);
+    expect(withFirst).toBeLessThan(0.25);
+    // a node that did not draw feature 0 splits on another one
+    const without = draws.find((d) => !d.includes(0))!;
+    expect(sweepBestSplit(XT, y, without).maxColumn).not.toBe(0);
+    setNodeSampling(0.2, 5);
+    expect(Array.from({ length: 500 }, () => nodeFeatures(10))).toEqual(draws);
+    setNodeSampling(1, 1);
   });
 });

@@ -22,8 +22,41 @@ function gini(counts: Float64Array, m: number): number {
   return 1 - s;
 }
 
+/**
+ * Features tried at each node: Breiman's random forest draws a fresh random subset of the features at every
+ * split (L. Breiman, "Random Forests", Machine Learning 45(1), 2001, section 4), where ml-random-forest draws one
+ * subset per tree. With a subset per tree a strong cue (the pitch, say) sits in few of the trees; drawn per node,
+ * every tree can reach it. `fraction` 1 tries every feature (ml-cart's own search). Set by sound-model.ts before
+ * each forest is trained (the trees are grown one after the other, so one seeded sequence makes a forest
+ * reproducible).
+ */
+let nodeFraction = 1;
+let nodeRng = 1;
+export function setNodeSampling(fraction: number, seed: number): void {
+  nodeFraction = fraction;
+  nodeRng = (seed >>> 0) || 1;
+}
+function nextRand(): number {
+  nodeRng ^= nodeRng << 13; nodeRng >>>= 0;
+  nodeRng ^= nodeRng >>> 17;
+  nodeRng ^= nodeRng << 5; nodeRng >>>= 0;
+  return nodeRng / 4294967296;
+}
+
+/** The features one node tries: all of them, or a random `fraction` of them (at least one), in column order. */
+export function nodeFeatures(count: number): number[] {
+  const idx = Array.from({ length: count }, (_, i) => i);
+  if (nodeFraction >= 1) return idx;
+  const k = Math.max(1, Math.round(nodeFraction * count));
+  for (let i = 0; i < k; i++) {
+    const j = i + Math.floor(nextRand() * (count - i));
+    [idx[i], idx[j]] = [idx[j]!, idx[i]!];
+  }
+  return idx.slice(0, k).sort((a, b) => a - b);
+}
+
 /** The sorted sweep: ml-cart's candidates and gain, counted incrementally. */
-export function sweepBestSplit(XT: SplitMatrix, y: number[]): SplitResult {
+export function sweepBestSplit(XT: SplitMatrix, y: number[], features?: number[]): SplitResult {
   const n = y.length;
   let K = 0;
   for (const v of y) if (v + 1 > K) K = v + 1;
@@ -35,7 +68,7 @@ export function sweepBestSplit(XT: SplitMatrix, y: number[]): SplitResult {
   const order = Array.from({ length: n }, (_, i) => i);
   let best = -Infinity;
   let maxColumn: number | undefined, maxValue: number | undefined, numberSamples: number | undefined;
-  for (let f = 0; f < XT.rows; f++) {
+  for (const f of features ?? Array.from({ length: XT.rows }, (_, i) => i)) {
     const x = XT.getRow(f);
     for (let i = 0; i < n; i++) order[i] = i;
     order.sort((a, b) => x[a]! - x[b]!); // stable, as ml-cart's sort of (x, y) pairs
@@ -76,6 +109,9 @@ export function useSweepSplits(): void {
   const orig = original;
   proto.bestSplit = function (this: NodeLike, XT: SplitMatrix, y: number[]) {
     if (this.kind !== "classifier" || this.gainFunction !== "gini" || this.splitFunction !== "mean") return orig.call(this, XT, y);
-    return sweepBestSplit(XT, y);
+    const tried = nodeFeatures(XT.rows);
+    const best = sweepBestSplit(XT, y, tried);
+    // no split among the drawn features (all constant on this node's rows): try the others before making a leaf
+    return best.maxColumn === undefined && tried.length < XT.rows && y.some((v) => v !== y[0]) ? sweepBestSplit(XT, y) : best;
   };
 }
