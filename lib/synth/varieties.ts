@@ -39,7 +39,7 @@ import { rngFromKey, type Rng } from "./rng";
 export type VarietyKind =
   | "kick" | "snare" | "tom" | "hi-hat" | "crash" | "ride" | "china" | "splash" | "cowbell" | "hand-drum" | "shaker"
   | "tambourine" | "clap" | "wood" | "triangle" | "scrape" | "timbale" | "cuica" | "whistle"
-  | "e-kick" | "e-tom" | "e-snare" | "e-clap" | "e-hat" | "e-cymbal" | "e-cowbell";
+  | "e-kick" | "e-tom" | "e-tom-noise" | "e-snare" | "e-clap" | "e-hat" | "e-cymbal" | "e-cowbell";
 
 export type VarietyParams = Record<string, number | string>;
 
@@ -518,7 +518,7 @@ const KINDS: Record<VarietyKind, KindDef> = {
   },
   "e-tom": {
     family: "tom", electronic: true, count: 6,
-    sample: (r) => ({ endHz: rd(logU(r, 70, 260), 1), startRatio: rd(logU(r, 1.3, 2.5)), fallTau: rd(logU(r, 0.03, 0.15), 4), ampTau: rd(logU(r, 0.12, 0.6), 3), noise: rd(r.range(0, 0.25)) }),
+    sample: (r) => ({ endHz: rd(logU(r, 70, 260), 1), startRatio: rd(logU(r, 1.02, 2.5)), fallTau: rd(logU(r, 0.03, 0.15), 4), ampTau: rd(logU(r, 0.12, 0.6), 3), noise: rd(r.range(0, 0.25)) }),
     strokes: () => ["centre", "centre", "centre"],
     seconds: (r, p) => rd(clamp(num(p, "ampTau") * 7, 0.6, 2.5) * r.range(0.8, 1.1), 2),
     render: (s, p) => {
@@ -529,6 +529,23 @@ const KINDS: Record<VarietyKind, KindDef> = {
         applyEnvelope(z, s.sr, { attack: 0.0005, tau: 0.03 });
         addMono(s, z, num(p, "noise"));
       }
+      return -4;
+    },
+  },
+  // An electronic tom whose body is mostly filtered noise under a slow pitch sweep: the oscillator falls over a
+  // few hundred milliseconds and the noise decays with it, so it rings as long as a tom while its spectrum sits
+  // kHz above its pitch (generic subtractive synthesis, common practice)
+  "e-tom-noise": {
+    family: "tom", electronic: true, count: 4,
+    sample: (r) => ({ endHz: rd(logU(r, 80, 260), 1), startRatio: rd(logU(r, 1.4, 3)), fallTau: rd(logU(r, 0.06, 0.3), 4), ampTau: rd(logU(r, 0.1, 0.45), 3), noiseLo: rd(logU(r, 300, 1500), 0), noiseHi: rd(logU(r, 3000, 10000), 0), noiseTau: rd(r.range(0.5, 1)), mix: rd(logU(r, 0.5, 2.5)) }),
+    strokes: () => ["centre", "centre", "centre"],
+    seconds: (r, p) => rd(clamp(num(p, "ampTau") * 7, 0.4, 2.5) * r.range(0.8, 1.1), 2),
+    render: (s, p) => {
+      const n = span(s, num(p, "ampTau") * 10);
+      addMono(s, fallingSine(n, s.sr, { startHz: num(p, "endHz") * num(p, "startRatio"), endHz: num(p, "endHz"), fallTau: num(p, "fallTau"), ampTau: num(p, "ampTau") }), 1);
+      const z = noiseOf(s, n, num(p, "noiseLo"), num(p, "noiseHi"));
+      applyEnvelope(z, s.sr, { attack: 0.001, tau: num(p, "ampTau") * num(p, "noiseTau") });
+      addMono(s, z, num(p, "mix") * 0.5, 0.97);
       return -4;
     },
   },
