@@ -1,5 +1,6 @@
 // The trained sound model: random forests (ml-random-forest, a general-purpose CART forest) over the level-free
-// features of sound-features.ts. One forest says the family; one forest per stroke domain (snare strokes,
+// features of sound-features.ts, each split choosing among a fresh random subset of the features (Breiman's
+// forest; forest-split.ts, `nodeFeatures`). One forest says the family; one forest per stroke domain (snare strokes,
 // hi-hat openness, cymbal strokes, tom strokes, hand-drum strokes) says the articulation within the family.
 // A forest's vote share is not a probability: the confidence shown is the share mapped through a calibration
 // table measured on held-out folds (see scripts/sound-model/README.md), so "0.9" means about nine in ten right.
@@ -7,7 +8,7 @@
 // `npm run train:sound`.
 
 import { RandomForestClassifier } from "ml-random-forest";
-import { useSweepSplits } from "./forest-split";
+import { setNodeSampling, useSweepSplits } from "./forest-split";
 import type { Articulation, Family } from "./taxonomy";
 
 export const SOUND_MODEL_FORMAT = 1;
@@ -66,14 +67,17 @@ export interface ForestOptions {
   seed?: number;
   /** Rows per class are repeated up to at least this many (so a rare family is not outvoted). */
   minPerClass?: number;
+  /** fraction of the tree's features tried at each node (1: all of them) */
+  nodeFeatures?: number;
 }
 
-const DEFAULTS: Required<ForestOptions> = { trees: 150, maxFeatures: 0.35, maxDepth: 14, seed: 7, minPerClass: 40 };
+const DEFAULTS: Required<ForestOptions> = { trees: 150, maxFeatures: 0.35, maxDepth: 14, seed: 7, minPerClass: 40, nodeFeatures: 1 };
 
 function trainForest(rows: { x: number[]; y: string }[], o: Required<ForestOptions>): ForestJson {
   const classes = [...new Set(rows.map((r) => r.y))].sort();
   if (classes.length === 1) return { classes, forest: null };
   useSweepSplits();
+  setNodeSampling(o.nodeFeatures, o.seed);
   // repeat the rows of rare classes so every class has at least minPerClass rows
   const byClass = new Map<string, { x: number[]; y: string }[]>();
   for (const r of rows) (byClass.get(r.y) ?? byClass.set(r.y, []).get(r.y)!).push(r);
