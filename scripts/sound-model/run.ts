@@ -1,10 +1,10 @@
 // npm run train:sound   — grouped cross-validation (for the calibration table), then the final model on all
-//                         rows, written to lib/catalogue/sound-model.json with its version, data hash and command
+//                         rows, written to lib/catalogue/sound-model.data.ts with its version, data hash and command
 // npm run eval:sound    — grouped cross-validation only: accuracy, confusion, per-class recall, calibration,
 //                         cut-tail flag rate per family; printed, and written to scripts/sound-model/RESULTS.md
 // Options: --folds N (5), --trees N, --seed N (the forest seed), --no-generator, --no-varieties (the demo library
-// only, as before 2026-12-03), --per-tree (features drawn per tree as ml-random-forest does, 15 %, the setting
-// before 2026-12-03), --quick (a small subset: proves the pipeline, judges nothing)
+// only, as for model 2026-12-02-82240d0a), --per-tree (features drawn per tree as ml-random-forest does, 15 %, as for
+// that model), --quick (a small subset: proves the pipeline, judges nothing)
 
 import { createHash } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
