@@ -265,7 +265,10 @@ describe("shell", () => {
     expect(paper).toBe("rgb(23, 25, 28)"); // --color-paper of the dark palette, #17191c
     await page.reload();
     expect(await page.evaluate(() => (window as unknown as { __themeAtBody: string | null }).__themeAtBody)).toBe("dark");
-    await expect(page.getByTestId("theme-switch").getByRole("radio", { name: "Dark" }).isChecked()).resolves.toBe(true);
+    // the page's colours are right before the body is drawn (above); the switch itself shows the stored choice once
+    // React has hydrated it (server-rendered it cannot know localStorage), so wait for that rather than read it at once
+    // (read at once it failed once in CI on a loaded machine)
+    await expect.poll(() => page.getByTestId("theme-switch").getByRole("radio", { name: "Dark" }).isChecked(), { timeout: 15_000 }).toBe(true);
     await page.getByTestId("theme-switch").getByTitle("System theme").click();
     expect(await page.evaluate(() => [document.documentElement.dataset.theme, localStorage.getItem("kw-theme")])).toEqual(["light", null]);
     await ctx.close();
