@@ -50,7 +50,7 @@ function CreateTokenForm({ studios }: { studios: { id: string; name: string; rol
         A token lets a script (such as <code>kitwright upload</code>) act for you in one studio, with a role no higher than yours there.
         Every use is written to that studio&apos;s activity log.
       </p>
-      <div className="grid gap-3 sm:grid-cols-2">
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
         <Field label="Name" name="name" required maxLength={120} placeholder="e.g. nightly build" error={fields.name} />
         <div>
           <label htmlFor="token-studio" className="label">Studio</label>

@@ -35,7 +35,7 @@ export function LayoutPreview({ layout, note, standIn, slotFamily }: { layout: L
     );
   }
   return (
-    <ul className="grid gap-2 sm:grid-cols-2 lg:grid-cols-3" data-testid="suggested-zones">
+    <ul className="grid grid-cols-1 gap-2 sm:grid-cols-2 lg:grid-cols-3" data-testid="suggested-zones">
       {layout.pads.map((p) => <li key={p.id}><PreviewPad p={p} aim={aim(p)} note={note?.(p.id)} standIn={!!standIn?.(p.id)} /></li>)}
     </ul>
   );

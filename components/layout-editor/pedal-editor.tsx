@@ -96,7 +96,7 @@ function PedalView({ pedal, slots, middleC }: { pedal: HiHatPedal; slots: Layout
   const slot = slots.find((s) => s.id === pedal.slotId);
   return (
     <div className="space-y-3" data-testid="pedal-view">
-      <dl className="grid gap-3 sm:grid-cols-4">
+      <dl className="grid grid-cols-1 gap-3 sm:grid-cols-4">
         <ReadOnlyValue label="Controller (CC)"><span className="num">{pedal.controller}</span>{pedal.controller === 4 ? " (Foot Controller)" : ""}</ReadOnlyValue>
         <ReadOnlyValue label="Channel"><span className="num">{pedal.channel}</span></ReadOnlyValue>
         <ReadOnlyValue label="Closed at">{pedal.closedAt === "high" ? "high values (127 = closed)" : "low values (0 = closed)"}</ReadOnlyValue>

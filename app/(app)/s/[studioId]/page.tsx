@@ -18,7 +18,7 @@ export default async function StudioOverview({ params }: { params: Promise<{ stu
   return (
     <>
     <NextStepSlot studio={studio} always />
-    <div className="grid gap-6 lg:grid-cols-3">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-3">
       <section className="card space-y-3 lg:col-span-2" data-testid="overview-libraries">
         <div className="flex items-baseline justify-between">
           <h2>Libraries</h2>

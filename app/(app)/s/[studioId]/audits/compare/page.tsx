@@ -34,7 +34,7 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
     <div className="space-y-6">
       <p className="text-sm"><Link href={`/s/${studio.id}/audits?layoutId=${data.after.layoutId}`}>← Audits of “{data.after.layoutName}”</Link></p>
       <h2 className="text-xl [overflow-wrap:anywhere]">What changed in “{data.after.layoutName}”</h2>
-      <div className="grid gap-4 md:grid-cols-3">
+      <div className="grid grid-cols-1 gap-4 md:grid-cols-3">
         <div className="card space-y-1 text-sm" data-testid="compare-before"><p className="text-muted">Before</p><p><Link href={`/s/${studio.id}/audits/${data.before.id}`} className="num">{when(data.before.createdAt)}</Link> UTC</p><p>Kit “{data.before.kitName}”</p><p className="num text-lg font-semibold">{d.scoreBefore}/100</p><p className="text-muted">{d.sentenceBefore}</p></div>
         <div className="card space-y-1 text-sm" data-testid="compare-after"><p className="text-muted">After</p><p><Link href={`/s/${studio.id}/audits/${data.after.id}`} className="num">{when(data.after.createdAt)}</Link> UTC</p><p>Kit “{data.after.kitName}”</p><p className="num text-lg font-semibold">{d.scoreAfter}/100</p><p className="text-muted">{d.sentenceAfter}</p></div>
         <div className="card text-sm" data-testid="compare-score"><p className="text-muted">Score</p><p className="num text-2xl font-semibold">{d.scoreBefore}/100 → {d.scoreAfter}/100</p><p>{delta}</p>
