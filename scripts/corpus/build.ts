@@ -301,21 +301,33 @@ function headOf(channels: Float32Array[]): Float32Array {
  * family: the font keeps some recordings twice, once trimmed or faded, under different sample names.
  */
 function mergeEdits(renders: Render[], groups: Groups) {
-  const heads = renders.map((r) => headOf(r.channels));
+  // a render is often played by several kits (same bytes, same hash): each head is computed, and each pair of
+  // distinct renders correlated, once (the pairs of all renders, ~2,000 of them, took 7 minutes; this takes seconds)
+  const headByHash = new Map<string, Float32Array>();
+  for (const r of renders) if (!headByHash.has(r.hash)) headByHash.set(r.hash, headOf(r.channels));
   const lag = Math.round(0.001 * OUTPUT_RATE);
+  const similar = new Map<string, boolean>();
+  const isEdit = (ha: string, hb: string): boolean => {
+    const k = ha < hb ? `${ha}|${hb}` : `${hb}|${ha}`;
+    let known = similar.get(k);
+    if (known !== undefined) return known;
+    const x = headByHash.get(ha)!, y = headByHash.get(hb)!;
+    let best = 0;
+    for (let l = -lag; l <= lag; l++) {
+      let s = 0;
+      for (let i = Math.max(0, -l); i < x.length && i + l < y.length; i++) s += x[i]! * y[i + l]!;
+      best = Math.max(best, s);
+    }
+    known = best >= 0.9;
+    similar.set(k, known);
+    return known;
+  };
   for (let a = 0; a < renders.length; a++) {
     for (let b = a + 1; b < renders.length; b++) {
       const ra = renders[a]!, rb = renders[b]!;
       if (gmPercussionTruth(ra.key)!.family !== gmPercussionTruth(rb.key)!.family) continue;
       if (groups.find(ra.voices[0]!.sample) === groups.find(rb.voices[0]!.sample)) continue;
-      const x = heads[a]!, y = heads[b]!;
-      let best = 0;
-      for (let l = -lag; l <= lag; l++) {
-        let s = 0;
-        for (let i = Math.max(0, -l); i < x.length && i + l < y.length; i++) s += x[i]! * y[i + l]!;
-        best = Math.max(best, s);
-      }
-      if (best >= 0.9) groups.union(ra.voices[0]!.sample, rb.voices[0]!.sample);
+      if (isEdit(ra.hash, rb.hash)) groups.union(ra.voices[0]!.sample, rb.voices[0]!.sample);
     }
   }
 }
