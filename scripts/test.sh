@@ -18,8 +18,11 @@ create_database "$KW_RUN" "$KW_DB_NAME" fresh
 node --import tsx db/migrate.ts
 
 step() { log "── $1"; }
-step "corpus of real recordings (npm run corpus; reused when up to date)"; npm run -s corpus
-step "type check"; npx tsc --noEmit -p .
+# the type check (one core) runs beside the corpus build (the other core); its output is shown when it fails
+step "type check (in the background) and the corpus of real recordings (npm run corpus; reused when up to date)"
+npx tsc --noEmit -p . >"$KW_RUN/tsc.log" 2>&1 & tsc_pid=$!
+npm run -s corpus
+wait "$tsc_pid" || { cat "$KW_RUN/tsc.log"; log "type check failed"; exit 1; }
 step "unit tests"; npx vitest run --project unit
 step "integration tests"; npx vitest run --project integration
 step "build"; npx next build >"$KW_RUN/build.log" 2>&1 || { tail -40 "$KW_RUN/build.log"; exit 1; }
