@@ -1,7 +1,8 @@
 // The sorted sweep (forest-split.ts) against ml-cart's own split search (ml-cart 2.1.1, the reference library):
 // same feature, same threshold, same Gini gain, on data with ties, several classes and constant features.
 import { describe, expect, it } from "vitest";
-import { mlCartBestSplit, nodeFeatures, setNodeSampling, sweepBestSplit } from "./forest-split";
+import { RandomForestClassifier } from "ml-random-forest";
+import { mlCartBestSplit, nodeFeatures, setNodeSampling, sweepBestSplit, useSweepSplits, withMlCartTraining } from "./forest-split";
 
 function rng(seed: number) {
   let s = seed >>> 0 || 1;
@@ -62,4 +63,29 @@ describe("features tried per node (Breiman 2001: a fresh random subset at every 
     expect(Array.from({ length: 500 }, () => nodeFeatures(10))).toEqual(draws);
     setNodeSampling(1, 1);
   });
+});
+
+describe("tree growth on row indices equals ml-cart's TreeNode.train (ml-cart 2.1.1, the reference library)", () => {
+  for (const seed of [21, 22, 23]) {
+    it(`a 10-tree forest on random table ${seed}: the same trees, node for node`, () => {
+      const r = rng(seed);
+      const n = 150 + Math.floor(r() * 150);
+      const features = 6 + Math.floor(r() * 10);
+      // coarse values make ties and constant nodes; the class leans on the first two features
+      const X = Array.from({ length: n }, () => Array.from({ length: features }, (_, f) => Math.round(r() * (f % 2 ? 8 : 500)) / 4));
+      const y = X.map((row) => (row[0]! + 20 * row[1]! > 140 + 60 * r() ? 0 : Math.floor(r() * 3) + 1));
+      const grow = () => {
+        setNodeSampling(0.3, seed);
+        const rf = new RandomForestClassifier({ nEstimators: 10, seed, maxFeatures: 1, replacement: true, noOOB: true, treeOptions: { maxDepth: 8, minNumSamples: 3 } } as never);
+        rf.train(X, y);
+        return JSON.stringify(rf.toJSON());
+      };
+      useSweepSplits();
+      const fast = grow();
+      const ref = withMlCartTraining(grow);
+      expect(fast.length).toBeGreaterThan(2000); // real trees, not stumps
+      expect(fast).toBe(ref);
+      setNodeSampling(1, 1);
+    });
+  }
 });

@@ -114,4 +114,81 @@ export function useSweepSplits(): void {
     // no split among the drawn features (all constant on this node's rows): try the others before making a leaf
     return best.maxColumn === undefined && tried.length < XT.rows && y.some((v) => v !== y[0]) ? sweepBestSplit(XT, y) : best;
   };
+  // ml-cart's TreeNode.train copies the node's rows into two new ml-matrix Matrices and transposes them at every
+  // node (half the time of a forest went there). The same recursion over row indices into the columns, made
+  // once per tree: the rows reach each node, and the search sees them, in the same order, so the trees are the
+  // same (forest-split.test.ts compares whole trees).
+  const trainProto = proto as unknown as { train: TrainFn };
+  const origTrain = trainProto.train;
+  mlCartTrain = origTrain;
+  fastTrain = function (this: TreeNodeLike, X: MatrixLike, y: number[], depth: number, parentGain: number | null | undefined) {
+    if (this.kind !== "classifier" || this.gainFunction !== "gini" || this.splitFunction !== "mean") return origTrain.call(this, X, y, depth, parentGain);
+    const rows = X.rows, features = X.columns;
+    const cols = Array.from({ length: features }, () => new Float64Array(rows));
+    for (let i = 0; i < rows; i++) {
+      const r = X.getRow(i);
+      for (let f = 0; f < features; f++) cols[f]![i] = r[f]!;
+    }
+    trainOnIndices(this, cols, Array.from({ length: rows }, (_, i) => i), y, depth, parentGain);
+  };
+  trainProto.train = fastTrain;
+}
+
+let mlCartTrain: TrainFn | null = null;
+let fastTrain: TrainFn | null = null;
+
+/** Runs `fn` with ml-cart's own TreeNode.train (the split search stays the sweep), for the test that compares trees. */
+export function withMlCartTraining<T>(fn: () => T): T {
+  useSweepSplits();
+  const proto = nodeProto as { train: TrainFn };
+  proto.train = mlCartTrain!;
+  try {
+    return fn();
+  } finally {
+    proto.train = fastTrain!;
+  }
+}
+
+interface MatrixLike { rows: number; columns: number; getRow(i: number): number[] }
+type TrainFn = (this: TreeNodeLike, X: MatrixLike, y: number[], depth: number, parentGain: number | null | undefined) => void;
+interface TreeNodeLike extends NodeLike {
+  minNumSamples: number; maxDepth: number; gainThreshold: number;
+  splitValue: number | undefined; splitColumn: number | undefined; gain: number; numberSamples: number | undefined;
+  left?: TreeNodeLike; right?: TreeNodeLike;
+  bestSplit: BestSplit; calculatePrediction(y: number[]): void;
+}
+
+/** ml-cart 2.1.1's TreeNode.train (src/TreeNode.js), step for step, on row indices instead of copied matrices. */
+function trainOnIndices(node: TreeNodeLike, cols: Float64Array[], idx: number[], y: number[], depth: number, parentGain: number | null | undefined): void {
+  if (idx.length <= node.minNumSamples) { node.calculatePrediction(y); return; }
+  if (parentGain === undefined) parentGain = 0;
+  const XT: SplitMatrix = {
+    rows: cols.length,
+    getRow(f: number) {
+      const c = cols[f]!, out = new Array<number>(idx.length);
+      for (let i = 0; i < idx.length; i++) out[i] = c[idx[i]!]!;
+      return out;
+    },
+  };
+  const split = node.bestSplit(XT, y);
+  node.splitValue = split.maxValue;
+  node.splitColumn = split.maxColumn;
+  node.gain = split.maxGain;
+  node.numberSamples = split.numberSamples;
+  const lesser: number[] = [], greater: number[] = [], lesserY: number[] = [], greaterY: number[] = [];
+  const c = split.maxColumn === undefined ? undefined : cols[split.maxColumn]!;
+  for (let i = 0; i < idx.length; i++) {
+    // ml-cart: X.get(i, column) < value, which is false when no column was found (every row goes right)
+    if (c && c[idx[i]!]! < split.maxValue!) { lesser.push(idx[i]!); lesserY.push(y[i]!); }
+    else { greater.push(idx[i]!); greaterY.push(y[i]!); }
+  }
+  if (depth < node.maxDepth && node.gain > node.gainThreshold && node.gain !== parentGain && lesser.length > 0 && greater.length > 0) {
+    const Node = node.constructor as new (parent: TreeNodeLike) => TreeNodeLike;
+    node.left = new Node(node);
+    node.right = new Node(node);
+    trainOnIndices(node.left, cols, lesser, lesserY, depth + 1, node.gain);
+    trainOnIndices(node.right, cols, greater, greaterY, depth + 1, node.gain);
+  } else {
+    node.calculatePrediction(y);
+  }
 }
