@@ -26,7 +26,7 @@ export function writeModel(model: SoundModel, file = MODEL_PATH) {
   writeFileSync(file, `// Made by ${String(model.meta.command ?? "npm run train:sound")}: the trained sound model (lib/catalogue/sound-model.ts), version ${model.version}.\n// Do not edit by hand; train again.\nexport const SOUND_MODEL_JSON: string = ${JSON.stringify(text)};\n`);
 }
 /** The forest settings of the committed model (chosen on held-out folds, scripts/sound-model/README.md). */
-export const FOREST: ForestOptions = { trees: 60, maxDepth: 12, maxFeatures: 1, nodeFeatures: 0.15, minPerClass: 30, seed: 7 };
+export const FOREST: ForestOptions = { trees: 120, maxDepth: 12, maxFeatures: 1, nodeFeatures: 0.15, minPerClass: 30, seed: 7 };
 
 function log(msg: string) {
   process.stderr.write(`[sound-model] ${msg}\n`);
