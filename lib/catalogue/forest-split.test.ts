@@ -81,11 +81,14 @@ describe("tree growth on row indices equals ml-cart's TreeNode.train (ml-cart 2.
         return JSON.stringify(rf.toJSON());
       };
       useSweepSplits();
-      const fast = grow();
-      const ref = withMlCartTraining(grow);
-      expect(fast.length).toBeGreaterThan(2000); // real trees, not stumps
-      expect(fast).toBe(ref);
-      setNodeSampling(1, 1);
+      try {
+        const fast = grow();
+        const ref = withMlCartTraining(grow);
+        expect(fast.length).toBeGreaterThan(2000); // real trees, not stumps
+        expect(fast).toBe(ref);
+      } finally {
+        setNodeSampling(1, 1);
+      }
     });
   }
 });

@@ -6,6 +6,8 @@
 // their order, the rule "x < threshold goes left", the Gini gain and the strict "first best wins" are ml-cart's
 // (ml-cart 2.1.1, src/TreeNode.js bestSplit and featureSplit, src/utils.js giniGain); regression trees and
 // other gain functions keep ml-cart's own search. forest-split.test.ts checks it against ml-cart's search.
+// The trees also grow on row indices (trainOnIndices) instead of ml-cart's copied matrices: the same trees, checked
+// against ml-cart's own TreeNode.train in the same test file.
 
 import { RandomForestClassifier } from "ml-random-forest";
 
@@ -119,8 +121,7 @@ export function useSweepSplits(): void {
   // once per tree: the rows reach each node, and the search sees them, in the same order, so the trees are the
   // same (forest-split.test.ts compares whole trees).
   const trainProto = proto as unknown as { train: TrainFn };
-  const origTrain = trainProto.train;
-  mlCartTrain = origTrain;
+  const origTrain = (mlCartTrain = trainProto.train);
   fastTrain = function (this: TreeNodeLike, X: MatrixLike, y: number[], depth: number, parentGain: number | null | undefined) {
     if (this.kind !== "classifier" || this.gainFunction !== "gini" || this.splitFunction !== "mean") return origTrain.call(this, X, y, depth, parentGain);
     const rows = X.rows, features = X.columns;
