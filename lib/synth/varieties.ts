@@ -10,6 +10,11 @@
 //   and ring shorter (F&R ch. 20; memory). Size ranges are common practice: splash 6-12", crash 14-20",
 //   ride 18-24", china 12-22", hi-hat 12-16". A heavier cymbal of the same size sustains longer and a thin one
 //   opens up fast and dies sooner (common practice); modelled as decay times in proportion to sqrt(weight).
+// - A hi-hat pair: besides the plates' partials and wash, a broadband rush from 250 Hz up to 20 kHz (air pushed
+//   out from between the plates, plate-on-plate contact; memory), sampled from faint to dominant. Measured, not
+//   assumed: the open corpus's acoustic hi-hats are close to white noise at the strike (spectral flatness
+//   0.65-0.75), the plates-and-wash model alone gave 0.15-0.42; with the rush the training hats span about
+//   0.36-0.68 (scripts/sound-model/README.md, fourth round).
 // - The china's upturned flange: a trashy, rattling sound with stronger mid partials and a quicker decay than a
 //   crash of the same size (common practice, no published source).
 // - Hand drums: single-headed and tuned high (conga about 180-350 Hz, bongo about 350-600 Hz; common practice).
@@ -224,7 +229,8 @@ const KINDS: Record<VarietyKind, KindDef> = {
 
   "hi-hat": {
     family: "hi-hat", count: 10,
-    sample: (r) => ({ diameterIn: pick(r, [12, 13, 14, 14, 15, 16]), weight: rd(r.range(0.75, 1.35)), washLo: rd(r.range(4500, 7000), 0), tight: rd(r.range(0.6, 1.6)), chickHz: rd(logU(r, 600, 1300), 0) }),
+    sample: (r) => ({ diameterIn: pick(r, [12, 13, 14, 14, 15, 16]), weight: rd(r.range(0.75, 1.35)), washLo: rd(r.range(4500, 7000), 0), tight: rd(r.range(0.6, 1.6)), chickHz: rd(logU(r, 600, 1300), 0),
+      air: rd(logU(r, 0.05, 2.5)) }),
     strokes: () => ["closed", "closed", "pedal", "open", "half-open", "quarter-open"],
     seconds: (r, _p, a) => {
       const [lo, hi] = ({ closed: [0.4, 1], pedal: [0.4, 1], "quarter-open": [0.8, 1.5], "half-open": [1, 2] } as Record<string, [number, number]>)[a] ?? [1.8, 3.2];
@@ -232,6 +238,9 @@ const KINDS: Record<VarietyKind, KindDef> = {
     },
     render: (s, p, a) => {
       const sz = num(p, "diameterIn") / 14, w = num(p, "weight"), vn = s.vn;
+      // the pair's broadband rush (header): lasting about as long as the stroke lets the plates ring
+      const airTau = ({ closed: 0.03, pedal: 0.02, "quarter-open": 0.07, "half-open": 0.14 } as Record<string, number>)[a] ?? 0.3;
+      noiseBurst(s, { lo: 250, hi: 20000, tau: airTau * sz * (0.7 + 0.6 * s.rng.next()), gain: num(p, "air") * (0.4 + 0.6 * vn), attack: 0.0005 });
       const fs = w / (sz * sz); // plate modes scale as h / a^2
       const base: CymbalOpts = {
         nPartials: 60, fLo: clamp(500 * fs, 300, 1100), fHi: 16000, tau1k: 0, tauExp: 0.5, contactT: contactTime(0.00025, s.v),
