@@ -4,6 +4,7 @@
 // inside one collection overstates accuracy when copies leak). Pure computation over measured rows.
 
 import { createHash } from "node:crypto";
+import { linearRegression } from "simple-statistics";
 import { calibrate, calibrationTable, predictSound, trainSoundModel, type CalibrationTable, type ForestOptions } from "../../lib/catalogue/sound-model";
 import type { Row } from "./dataset";
 
@@ -36,6 +37,78 @@ export function crossValidate(judged: Row[], train: Row[], opts: { folds?: numbe
     }
   }
   return out;
+}
+
+/**
+ * The corpus rows of a share of its recordings, the learning curve's training data: a recording is kept whole (its
+ * files, copies and augmentations) when a hash of its name and the seed falls under the share, so each seed draws
+ * another subset and a larger share keeps every recording a smaller one kept.
+ */
+export function recordingShare<T extends { group: string }>(rows: T[], share: number, seed: number): T[] {
+  const u = (g: string) => createHash("sha256").update(`${seed}|${g}`).digest().readUInt32LE(0) / 2 ** 32;
+  return rows.filter((r) => u(r.group) < share);
+}
+
+/**
+ * A learning curve's power law, error = a * n^-b (n: real recordings trained on), fitted by least squares on
+ * log(error) against log(n), the usual form of a learning curve (Cortes et al., "Learning curves: asymptotic values
+ * and rate of convergence", NIPS 1993; Hestness et al., "Deep learning scaling is predictable, empirically", 2017).
+ * recordingsFor(e) inverts it: the recordings at which the fitted error reaches e.
+ */
+export function powerLawFit(points: { n: number; error: number }[]): { a: number; b: number; recordingsFor: (error: number) => number } {
+  const usable = points.filter((p) => p.n > 0 && p.error > 0);
+  if (usable.length < 2) throw new Error("a power law needs two points with recordings and errors above zero");
+  const { m, b: c } = linearRegression(usable.map((p) => [Math.log(p.n), Math.log(p.error)]));
+  const a = Math.exp(c);
+  const b = -m;
+  return { a, b, recordingsFor: (error: number) => (a / error) ** (1 / b) };
+}
+
+/** One share of a learning curve: the recordings a fold trained on (mean) and the accuracy per forest seed. */
+export interface CurvePoint {
+  n: number;
+  family: number[];
+  stroke: number[];
+}
+
+/**
+ * The learning curve as an SVG plot: accuracy against the real recordings trained on (log scale), each seed a dot,
+ * the mean a line, the fitted power law dashed out to `upTo` recordings, the targets as dotted rules; 40 to 100 %.
+ */
+export function learningCurveSvg(points: CurvePoint[], fits: { family: { a: number; b: number }; stroke: { a: number; b: number } }, targets = { family: 0.95, stroke: 0.85 }, upTo = 1000): string {
+  const W = 640, H = 400, L = 56, R = 150, T = 24, B = 48;
+  const nMin = 10;
+  const x = (n: number) => L + ((Math.log10(Math.max(n, nMin)) - 1) / (Math.log10(upTo) - 1)) * (W - L - R);
+  const y = (acc: number) => T + ((1 - acc) / 0.6) * (H - T - B); // 40 % to 100 %
+  const mean = (v: number[]) => v.reduce((a, b) => a + b, 0) / v.length;
+  const used = points.filter((p) => p.n > 0);
+  const series = [
+    { key: "family" as const, colour: "#2563eb", label: "family" },
+    { key: "stroke" as const, colour: "#d97706", label: "stroke" },
+  ];
+  const out: string[] = [
+    `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${W} ${H}" width="${W}" height="${H}" font-family="sans-serif" font-size="12">`,
+    `<rect width="${W}" height="${H}" fill="#ffffff"/>`,
+  ];
+  for (const acc of [0.4, 0.5, 0.6, 0.7, 0.8, 0.9, 1]) out.push(`<line x1="${L}" x2="${W - R}" y1="${y(acc)}" y2="${y(acc)}" stroke="#e5e7eb"/><text x="${L - 6}" y="${y(acc) + 4}" text-anchor="end" fill="#374151">${Math.round(acc * 100)} %</text>`);
+  for (const n of [10, 20, 50, 100, 200, 500, 1000].filter((n) => n <= upTo)) out.push(`<line x1="${x(n)}" x2="${x(n)}" y1="${T}" y2="${H - B}" stroke="#e5e7eb"/><text x="${x(n)}" y="${H - B + 16}" text-anchor="middle" fill="#374151">${n}</text>`);
+  out.push(`<text x="${(L + W - R) / 2}" y="${H - 10}" text-anchor="middle" fill="#111827">real recordings trained on (log scale)</text>`);
+  out.push(`<text x="14" y="${(T + H - B) / 2}" transform="rotate(-90 14 ${(T + H - B) / 2})" text-anchor="middle" fill="#111827">held-out accuracy</text>`);
+  for (const s of series) {
+    const t = targets[s.key];
+    out.push(`<line x1="${L}" x2="${W - R}" y1="${y(t)}" y2="${y(t)}" stroke="${s.colour}" stroke-width="1" stroke-dasharray="2 3"/><text x="${W - R + 6}" y="${y(t) + 4}" fill="${s.colour}">${s.label} target ${Math.round(t * 100)} %</text>`);
+    const fit = fits[s.key];
+    const curve = Array.from({ length: 41 }, (_, i) => used[0]!.n * (upTo / used[0]!.n) ** (i / 40)).map((n) => `${x(n).toFixed(1)},${y(1 - fit.a * n ** -fit.b).toFixed(1)}`);
+    out.push(`<polyline points="${curve.join(" ")}" fill="none" stroke="${s.colour}" stroke-dasharray="6 4"/>`);
+    out.push(`<polyline points="${used.map((p) => `${x(p.n).toFixed(1)},${y(mean(p[s.key])).toFixed(1)}`).join(" ")}" fill="none" stroke="${s.colour}" stroke-width="2"/>`);
+    for (const p of used) for (const v of p[s.key]) out.push(`<circle cx="${x(p.n).toFixed(1)}" cy="${y(v).toFixed(1)}" r="2.5" fill="${s.colour}" fill-opacity="0.5"/>`);
+    const last = used[used.length - 1]!;
+    out.push(`<text x="${x(last.n) + 8}" y="${y(mean(last[s.key])) + (s.key === "family" ? -6 : 14)}" fill="${s.colour}">${s.label} ${(100 * mean(last[s.key])).toFixed(1)} %</text>`);
+  }
+  const ly = y(0.55);
+  out.push(`<text x="${W - R + 6}" y="${ly}" fill="#374151">solid: measured (mean;</text><text x="${W - R + 6}" y="${ly + 14}" fill="#374151">dots: forest seeds)</text><text x="${W - R + 6}" y="${ly + 32}" fill="#374151">dashed: power law</text>`);
+  out.push("</svg>");
+  return out.join("\n");
 }
 
 /** Keys whose stroke the targets judge: snare (centre, cross-stick), hi-hat (closed, pedal, open), cymbals. */
