@@ -34,7 +34,7 @@ export function LibraryProgress({ studioId, libraryId, initial }: { studioId: st
       <div className="h-2 w-full overflow-hidden rounded bg-paper" role="progressbar" aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct} aria-label="Samples catalogued">
         <div className="h-full bg-brand transition-all" style={{ width: `${pct}%` }} />
       </div>
-      <dl className="grid grid-cols-5 gap-2 text-sm">
+      <dl className="grid grid-cols-[repeat(auto-fit,minmax(5.25rem,1fr))] gap-2 text-sm">
         {(["queued", "measuring", "measured", "catalogued", "rejected"] as const).map((k) => (
           <div key={k} className={`rounded border px-2 py-1 ${STATE_LOOK[k].cls}`} data-testid={`count-${k}`}>
             <dt className="text-xs"><span aria-hidden>{STATE_LOOK[k].icon}</span> {STATE_LOOK[k].word}</dt>

@@ -2,6 +2,8 @@
 // the owner (and a few pages as the editor and the viewer), in Chromium against the running app and worker:
 // - the page never scrolls sideways (document.documentElement.scrollWidth <= innerWidth);
 // - known text boxes (headings, header controls, tabs, labels, column headers) do not overlap;
+// - the terms and values of the pages' description lists (the progress tiles, the sample's figures) fit their
+//   boxes (a word wider than its box spills under the next one: the state tiles did at 390 px);
 // - axe-core finds no serious or critical accessibility violation (WCAG 2.x A/AA rules, contrast included);
 // - a full-page screenshot of each lands in $KW_STATE/screenshots (.data/test/screenshots), kept after the run.
 // The studio is filled the way a user fills it: generated WAVs uploaded through the page and sorted by the
@@ -179,6 +181,18 @@ async function overlaps(page: Page): Promise<string[]> {
   });
 }
 
+/** Terms and values of description lists whose text is wider than their box. */
+async function spills(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const out: string[] = [];
+    for (const e of document.querySelectorAll<HTMLElement>("main dt, main dd")) {
+      if (e.getBoundingClientRect().width < 2 || getComputedStyle(e).display === "none") continue;
+      if (e.scrollWidth > e.clientWidth + 1) out.push(`"${(e.textContent ?? "").trim().slice(0, 30)}" is ${e.scrollWidth} px wide in a ${e.clientWidth} px box`);
+    }
+    return out;
+  });
+}
+
 async function seriousAxeViolations(page: Page): Promise<string[]> {
   if (!(await page.evaluate(() => "axe" in window))) await page.addScriptTag({ content: axeSource });
   const found = await page.evaluate(async () => {
@@ -201,7 +215,7 @@ async function visit(page: Page, p: { name: string; url: string; ready: string }
   // the whole page, cut at 8000 px: Chromium can run out of memory on a much taller full-page capture
   const height = await page.evaluate(() => document.documentElement.scrollHeight);
   await page.screenshot({ path: path.join(SHOTS, `${shot}.png`), fullPage: true, clip: { x: 0, y: 0, width: size.inner, height: Math.min(height, 8000) } });
-  return { theme, size, overlaps: await overlaps(page), axe: await seriousAxeViolations(page) };
+  return { theme, size, overlaps: await overlaps(page), spills: await spills(page), axe: await seriousAxeViolations(page) };
 }
 
 describe("every main page at 390 px and 1440 px, light and dark", () => {
@@ -215,6 +229,7 @@ describe("every main page at 390 px and 1440 px, light and dark", () => {
           expect(r.theme, `${p.name}: the theme follows the system setting`).toBe(theme);
           if (r.size.scroll > r.size.inner) problems.push(`${p.name}: page is ${r.size.scroll} px wide in a ${r.size.inner} px window`);
           for (const o of r.overlaps) problems.push(`${p.name}: ${o}`);
+          for (const o of r.spills) problems.push(`${p.name}: ${o}`);
           for (const a of r.axe) problems.push(`${p.name}: ${a}`);
         }
         expect(problems.join("\n")).toBe("");
@@ -229,6 +244,7 @@ describe("every main page at 390 px and 1440 px, light and dark", () => {
           const r = await visit(page, p, `${role}-${p.name}-${width}-${theme}`);
           if (r.size.scroll > r.size.inner) problems.push(`${p.name} ${width}: page is ${r.size.scroll} px wide`);
           for (const o of r.overlaps) problems.push(`${p.name} ${width}: ${o}`);
+          for (const o of r.spills) problems.push(`${p.name} ${width}: ${o}`);
           for (const a of r.axe) problems.push(`${p.name} ${width}: ${a}`);
         }
       }
