@@ -24,9 +24,9 @@ export function Waveform({ peaks, durationSec, onsetMs, height = 80, playhead = 
         )}
         {onsetX !== null && <line x1={onsetX} x2={onsetX} y1={0} y2={height} stroke="currentColor" className="text-warn" strokeDasharray="3 2" strokeWidth={1} />}
       </svg>
-      <figcaption className="mt-1 flex justify-between text-xs text-muted">
+      <figcaption className="mt-1 flex justify-between gap-3 text-xs text-muted">
         <span>0 s{onsetX !== null ? " · dashed line: onset" : ""}{zoom > 1 ? <span title={`Drawn ${zoom.toFixed(1)} times taller than full scale`}> · a quiet file, drawn taller to be seen</span> : null}</span>
-        <span className="num">{durationSec.toFixed(2)} s</span>
+        <span className="num shrink-0 whitespace-nowrap">{durationSec.toFixed(2)} s</span>
       </figcaption>
     </figure>
   );
