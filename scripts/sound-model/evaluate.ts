@@ -4,7 +4,7 @@
 // inside one collection overstates accuracy when copies leak). Pure computation over measured rows.
 
 import { createHash } from "node:crypto";
-import { linearRegression } from "simple-statistics";
+import { linearRegression, mean } from "simple-statistics";
 import { calibrate, calibrationTable, predictSound, trainSoundModel, type CalibrationTable, type ForestOptions } from "../../lib/catalogue/sound-model";
 import type { Row } from "./dataset";
 
@@ -80,7 +80,6 @@ export function learningCurveSvg(points: CurvePoint[], fits: { family: { a: numb
   const nMin = 10;
   const x = (n: number) => L + ((Math.log10(Math.max(n, nMin)) - 1) / (Math.log10(upTo) - 1)) * (W - L - R);
   const y = (acc: number) => T + ((1 - acc) / 0.6) * (H - T - B); // 40 % to 100 %
-  const mean = (v: number[]) => v.reduce((a, b) => a + b, 0) / v.length;
   const used = points.filter((p) => p.n > 0);
   const series = [
     { key: "family" as const, colour: "#2563eb", label: "family" },

@@ -10,6 +10,7 @@
 // that model), --quick (a small subset: proves the pipeline, judges nothing)
 
 import { createHash } from "node:crypto";
+import { mean } from "simple-statistics";
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { MEASURE_VERSION } from "../../lib/audio";
@@ -18,7 +19,7 @@ import { suggestByRules } from "../../lib/catalogue/classify";
 import { calibrationTable, domainOf, trainSoundModel, type ForestOptions, type SoundModel } from "../../lib/catalogue/sound-model";
 import { corpusDir } from "../corpus/corpus";
 import { corpusRows, dataHash, GENERATOR, generatorRows, type Row } from "./dataset";
-import { ARTICULATION_KEYS, crossValidate, familyPairs, foldOf, formatCalibrationCheck, formatReport, learningCurveSvg, outOfFoldCalibration, powerLawFit, recordingShare, report, type Prediction } from "./evaluate";
+import { ARTICULATION_KEYS, crossValidate, familyPairs, formatCalibrationCheck, formatReport, learningCurveSvg, outOfFoldCalibration, powerLawFit, recordingShare, report, type Prediction } from "./evaluate";
 
 const ROOT = path.resolve(__dirname, "../..");
 export const MODEL_PATH = path.join(ROOT, "lib/catalogue/sound-model.data.ts");
@@ -133,9 +134,9 @@ function learningCurve(rows: { corpus: Row[]; generator: Row[] }, folds: number,
     const point = { share, n: 0, family: [] as number[], stroke: [] as number[] };
     for (const seed of seeds) {
       const kept = recordingShare(rows.corpus, share, seed);
-      // recordings a fold trains on: those kept, minus the fold's own
+      // each recording is judged in one fold and trains the others: a fold trains on (folds - 1) / folds of those kept
       const keptGroups = new Set(kept.map((r) => r.group));
-      point.n += [...Array(folds).keys()].reduce((a, k) => a + [...keptGroups].filter((g) => foldOf(g, folds) !== k).length, 0) / folds / seeds.length;
+      point.n += (keptGroups.size * (folds - 1)) / folds / seeds.length;
       const preds = crossValidate(judged, trainingRows({ corpus: kept, generator: rows.generator }), { folds, forest: { ...forest, seed } });
       const r = report(preds, (p) => ARTICULATION_KEYS.has(p.row.key ?? 0));
       point.family.push(r.familyAccuracy);
@@ -144,7 +145,6 @@ function learningCurve(rows: { corpus: Row[]; generator: Row[] }, folds: number,
     }
     points.push(point);
   }
-  const mean = (x: number[]) => x.reduce((a, b) => a + b, 0) / x.length;
   const pc = (x: number) => `${(100 * x).toFixed(1)} %`;
   const about = (n: number) => (n < 100_000 ? String(Math.round(n)) : "more than 100,000");
   const fam = powerLawFit(points.map((p) => ({ n: p.n, error: 1 - mean(p.family) })));
